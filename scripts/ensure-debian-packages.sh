@@ -1,0 +1,19 @@
+#!/usr/bin/env bash
+# Installs the Debian packages the tests use, when missing: chromium (browser tests) and FastJet
+# (the reference library of the physics tests; never used at run time).
+set -euo pipefail
+need=()
+[ -x /usr/bin/chromium ] || need+=(chromium)
+[ -f /usr/include/fastjet/ClusterSequence.hh ] || need+=(libfastjet-dev)
+[ -f /usr/include/fastjet/tools/Recluster.hh ] || need+=(libfastjettools-dev)
+[ -f /usr/include/nlohmann/json.hpp ] || need+=(nlohmann-json3-dev)
+if [ ${#need[@]} -eq 0 ]; then echo "all present"; exit 0; fi
+if [ "$(id -u)" -ne 0 ]; then
+  echo "Missing Debian packages: ${need[*]}" >&2
+  echo "Install them with: sudo apt-get install -y ${need[*]}" >&2
+  exit 1
+fi
+echo "installing ${need[*]}"
+export DEBIAN_FRONTEND=noninteractive
+apt-get update -qq
+apt-get install -y -qq "${need[@]}" >/dev/null
