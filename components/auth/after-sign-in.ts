@@ -1,0 +1,23 @@
+import { signIn } from 'next-auth/react';
+
+/** Where to go after signing in: the page that sent the visitor here if it is on this site, else the studies. */
+export function safeReturnPath(callbackUrl: string | undefined): string {
+  if (!callbackUrl) return '/studies';
+  try {
+    const url = new URL(callbackUrl, window.location.origin);
+    if (url.origin !== window.location.origin || url.pathname.startsWith('/sign-')) return '/studies';
+    return `${url.pathname}${url.search}${url.hash}`;
+  } catch {
+    return '/studies';
+  }
+}
+
+/** Signs in with next-auth's credentials provider; throws an Error with a message fit to show. */
+export async function signInWithPassword(email: string, password: string): Promise<void> {
+  const result = await signIn('credentials', { email, password, redirect: false });
+  if (result?.ok && !result.error) return;
+  if (!result?.error || result.error === 'CredentialsSignin') {
+    throw new Error('Wrong email or password. Check both and try again.');
+  }
+  throw new Error(result.error);
+}

@@ -1,0 +1,25 @@
+'use client';
+
+import { sendJson } from '@/lib/fetcher';
+import { ActionForm, field, SubmitButton } from '../action-form';
+import { SelectField, TextField } from '../fields';
+import { RoleOptions } from './role-options';
+
+/** Owners add a collaborator by the e-mail of their account. */
+export function AddMemberForm({ studyId, onAdded }: { studyId: string; onAdded: () => Promise<unknown> }) {
+  async function submit(data: FormData) {
+    await sendJson('POST', `/api/studies/${studyId}/members`, { email: field(data, 'email'), role: field(data, 'role') });
+    await onAdded();
+  }
+  return (
+    <ActionForm onSubmit={submit} resetOnSuccess successMessage="Member added." aria-label="Add member" className="space-y-3">
+      <TextField label="Email" name="email" type="email" required placeholder="colleague@example.org" />
+      <SelectField label="Role" name="role" defaultValue="viewer">
+        <RoleOptions />
+      </SelectField>
+      <SubmitButton size="sm" pendingLabel="Adding…">
+        Add member
+      </SubmitButton>
+    </ActionForm>
+  );
+}

@@ -1,0 +1,10 @@
+import { STUDY_ROLES } from '../api-types';
+
+/** The <option>s of a study-role select. */
+export function RoleOptions() {
+  return STUDY_ROLES.map((role) => (
+    <option key={role} value={role}>
+      {role[0].toUpperCase() + role.slice(1)}
+    </option>
+  ));
+}
