@@ -1,0 +1,496 @@
+// Binary column storage of one processed sample under a directory: a per-jet table, a per-splitting table and the
+// record ids, each column one file of little-endian values, described by manifest.json. The writer streams into a
+// hidden sibling directory and only commit() renames it into place, so readers never see a half-written sample.
+import { randomUUID } from 'node:crypto';
+import { type FileHandle, mkdir, open, readFile, rename, rm, stat, writeFile } from 'node:fs/promises';
+import { endianness } from 'node:os';
+import path from 'node:path';
+import {
+  type JetResult,
+  type RecordResult,
+  S_DELTA,
+  S_GENERATION,
+  S_KAPPA,
+  S_KT,
+  S_LN_INV_DELTA,
+  S_LN_KT,
+  S_M,
+  S_PSI,
+  S_Z,
+  SPLIT_STRIDE,
+} from '../physics/types';
+
+export const COLUMNS_FORMAT = 'splitfield-columns';
+export const COLUMNS_VERSION = 1;
+const MANIFEST_FILE = 'manifest.json';
+
+export type ColumnType = 'float64' | 'int32';
+type ColumnArray<T extends ColumnType> = T extends 'int32' ? Int32Array : Float64Array;
+
+/** Per-jet table: `record` indexes the record id table, `jet` is the jet's index in its record (pt order). */
+export const JET_COLUMNS = {
+  record: 'int32',
+  jet: 'int32',
+  weight: 'float64',
+  pt: 'float64',
+  y: 'float64',
+  phi: 'float64',
+  m: 'float64',
+  n: 'int32',
+  mg: 'float64',
+  zg: 'float64',
+  Rg: 'float64',
+  multiplicity: 'int32',
+} as const satisfies Record<string, ColumnType>;
+
+/** Per-splitting table: `jetRow` is the row of its jet in the jet table; primary splittings have generation 1. */
+export const SPLITTING_COLUMNS = {
+  jetRow: 'int32',
+  generation: 'int32',
+  lnInvDelta: 'float64',
+  lnKt: 'float64',
+  z: 'float64',
+  delta: 'float64',
+  kt: 'float64',
+  psi: 'float64',
+  m: 'float64',
+  kappa: 'float64',
+} as const satisfies Record<string, ColumnType>;
+
+export type JetColumnName = keyof typeof JET_COLUMNS;
+export type SplittingColumnName = keyof typeof SPLITTING_COLUMNS;
+
+/** Where each splitting column's value sits within a splitting of the engine's Float64Array. */
+const SPLIT_FIELD_OF: Record<Exclude<SplittingColumnName, 'jetRow'>, number> = {
+  generation: S_GENERATION,
+  lnInvDelta: S_LN_INV_DELTA,
+  lnKt: S_LN_KT,
+  z: S_Z,
+  delta: S_DELTA,
+  kt: S_KT,
+  psi: S_PSI,
+  m: S_M,
+  kappa: S_KAPPA,
+};
+export type TableName = 'jets' | 'splittings';
+
+/** Which splittings a sample stores: the primary sequence, or the full C/A tree (primary = generation 1). */
+export type StoredTree = 'primary' | 'full';
+
+export interface ColumnManifest {
+  format: typeof COLUMNS_FORMAT;
+  version: typeof COLUMNS_VERSION;
+  tree: StoredTree;
+  records: { rows: number; bytes: number };
+  jets: { rows: number; columns: Array<{ name: JetColumnName; type: ColumnType }> };
+  splittings: { rows: number; columns: Array<{ name: SplittingColumnName; type: ColumnType }> };
+}
+
+/** One row of the jet table as the jet-table view shows it. */
+export type JetRow = { row: number; recordId: string } & { [K in JetColumnName]: number };
+
+/** What the writer needs of a record (the pipeline's RecordMeta fits). */
+export interface RecordKey {
+  id: string | number;
+  weight: number;
+}
+
+const BYTES_PER_VALUE: Record<ColumnType, number> = { float64: 8, int32: 4 };
+const RECORD_OFFSETS_FILE = 'records.offsets.i32';
+const RECORD_IDS_FILE = 'records.ids.utf8';
+
+function columnFile(table: TableName, name: string, type: ColumnType): string {
+  return `${table}.${name}.${type === 'int32' ? 'i32' : 'f64'}`;
+}
+
+function requireLittleEndian(): void {
+  if (endianness() !== 'LE') throw new Error('column storage is little-endian and needs a little-endian platform');
+}
+
+/** A growable typed buffer that a column appends to and drains to its file. */
+class ColumnBuffer<A extends Float64Array | Int32Array | Uint8Array> {
+  private values: A;
+  length = 0;
+
+  constructor(private readonly make: (n: number) => A) {
+    this.values = make(1024);
+  }
+
+  push(v: number): void {
+    if (this.length === this.values.length) {
+      const bigger = this.make(this.values.length * 2);
+      bigger.set(this.values);
+      this.values = bigger;
+    }
+    this.values[this.length++] = v;
+  }
+
+  pushAll(vs: Uint8Array): void {
+    for (const v of vs) this.push(v);
+  }
+
+  async drainTo(file: FileHandle): Promise<void> {
+    const bytes = new Uint8Array(this.values.buffer, 0, this.length * this.values.BYTES_PER_ELEMENT);
+    let written = 0;
+    while (written < bytes.length) written += (await file.write(bytes, written)).bytesWritten;
+    this.length = 0;
+  }
+}
+
+interface OpenColumn {
+  buffer: ColumnBuffer<Float64Array | Int32Array | Uint8Array>;
+  file: FileHandle;
+}
+
+export interface ColumnWriterOptions {
+  /** Store the full tree (results must carry `all`) or only the primary sequence. Default 'primary'. */
+  tree?: StoredTree;
+  /** A column is written out once it holds this many values (bounds memory). Default 16384. */
+  chunkValues?: number;
+}
+
+type WriterState = 'open' | 'committed' | 'aborted';
+
+export class ColumnWriter {
+  private state: WriterState = 'open';
+  private readonly jets = new Map<JetColumnName, OpenColumn>();
+  private readonly splittings = new Map<SplittingColumnName, OpenColumn>();
+  private recordOffsets!: OpenColumn;
+  private recordIds!: OpenColumn;
+  /** Every column whose file is open, in opening order. */
+  private readonly opened: OpenColumn[] = [];
+  private rows = { records: 0, recordBytes: 0, jets: 0, splittings: 0 };
+  private readonly encoder = new TextEncoder();
+
+  private constructor(
+    /** Where commit() puts the sample. */
+    readonly target: string,
+    /** The hidden sibling directory being written. */
+    readonly staging: string,
+    readonly tree: StoredTree,
+    private readonly chunkValues: number,
+  ) {}
+
+  /** Starts a sample that commit() will place at `target` (which must not exist yet). */
+  static async create(target: string, options: ColumnWriterOptions = {}): Promise<ColumnWriter> {
+    requireLittleEndian();
+    const tree = options.tree ?? 'primary';
+    if (tree !== 'primary' && tree !== 'full') throw new RangeError(`tree must be "primary" or "full" (got "${tree}")`);
+    const chunkValues = options.chunkValues ?? 16384;
+    if (!Number.isInteger(chunkValues) || chunkValues < 1) {
+      throw new RangeError(`chunkValues must be a positive integer (got ${chunkValues})`);
+    }
+    const absolute = path.resolve(target);
+    if (await exists(absolute)) throw new Error(`column store ${absolute} already exists`);
+    await mkdir(path.dirname(absolute), { recursive: true });
+    const staging = path.join(path.dirname(absolute), `.${path.basename(absolute)}.partial-${randomUUID()}`);
+    await mkdir(staging);
+    const writer = new ColumnWriter(absolute, staging, tree, chunkValues);
+    try {
+      await writer.openFiles();
+    } catch (error) {
+      await writer.abort();
+      throw error;
+    }
+    return writer;
+  }
+
+  private async openColumn(file: string, make: (n: number) => Float64Array | Int32Array | Uint8Array): Promise<OpenColumn> {
+    const column = { buffer: new ColumnBuffer(make), file: await open(path.join(this.staging, file), 'wx') };
+    this.opened.push(column);
+    return column;
+  }
+
+  private async openFiles(): Promise<void> {
+    const typed = (type: ColumnType) => (type === 'int32' ? (n: number) => new Int32Array(n) : (n: number) => new Float64Array(n));
+    for (const [name, type] of Object.entries(JET_COLUMNS) as Array<[JetColumnName, ColumnType]>) {
+      this.jets.set(name, await this.openColumn(columnFile('jets', name, type), typed(type)));
+    }
+    for (const [name, type] of Object.entries(SPLITTING_COLUMNS) as Array<[SplittingColumnName, ColumnType]>) {
+      this.splittings.set(name, await this.openColumn(columnFile('splittings', name, type), typed(type)));
+    }
+    this.recordOffsets = await this.openColumn(RECORD_OFFSETS_FILE, typed('int32'));
+    this.recordIds = await this.openColumn(RECORD_IDS_FILE, (n) => new Uint8Array(n));
+    this.recordOffsets.buffer.push(0);
+  }
+
+  private requireOpen(action: string): void {
+    if (this.state !== 'open') throw new Error(`cannot ${action}: the column writer is already ${this.state}`);
+  }
+
+  /** Appends consecutive records with their results (same order and length); bounded memory across calls. */
+  async append(records: readonly RecordKey[], results: readonly RecordResult[]): Promise<void> {
+    this.requireOpen('append');
+    const ids = this.checkedBatch(records, results);
+    for (let r = 0; r < ids.length; r++) {
+      const record = this.rows.records++;
+      this.rows.recordBytes += ids[r].length;
+      this.recordIds.buffer.pushAll(ids[r]);
+      this.recordOffsets.buffer.push(this.rows.recordBytes);
+      results[r].jets.forEach((jet, index) => this.pushJet(record, index, records[r].weight, jet));
+    }
+    for (const column of this.opened) {
+      if (column.buffer.length >= this.chunkValues) await column.buffer.drainTo(column.file);
+    }
+  }
+
+  /** Validates a whole batch before anything is stored, so a bad batch leaves the tables aligned. */
+  private checkedBatch(records: readonly RecordKey[], results: readonly RecordResult[]): Uint8Array[] {
+    if (records.length !== results.length) {
+      throw new RangeError(`append: ${records.length} records but ${results.length} results`);
+    }
+    let bytes = this.rows.recordBytes;
+    return records.map((record, r) => {
+      const where = `append: record ${this.rows.records + r + 1} of the sample`;
+      const idOk = typeof record.id === 'string' || (typeof record.id === 'number' && Number.isFinite(record.id));
+      if (!idOk) throw new RangeError(`${where}: id must be a string or a finite number`);
+      if (!Number.isFinite(record.weight)) throw new RangeError(`${where}: weight must be a finite number (got ${record.weight})`);
+      for (const jet of results[r].jets) {
+        if (this.tree === 'full' && jet.all === null) {
+          throw new RangeError(`${where}: the full tree is stored but a jet has no "all" splittings (process with fullTree)`);
+        }
+        const stored = this.tree === 'full' ? jet.all! : jet.primary;
+        if (stored.length % SPLIT_STRIDE !== 0) throw new RangeError(`${where}: splittings length is not a multiple of ${SPLIT_STRIDE}`);
+      }
+      const id = this.encoder.encode(String(record.id));
+      bytes += id.length;
+      if (bytes > 0x7fffffff) throw new RangeError(`${where}: record ids exceed 2 GiB in total`);
+      return id;
+    });
+  }
+
+  private pushJet(record: number, index: number, weight: number, jet: JetResult): void {
+    const jetRow = this.rows.jets++;
+    const values: Record<JetColumnName, number> = {
+      record,
+      jet: index,
+      weight,
+      pt: jet.pt,
+      y: jet.y,
+      phi: jet.phi,
+      m: jet.m,
+      n: jet.n,
+      mg: jet.softDrop.mg,
+      zg: jet.softDrop.zg,
+      Rg: jet.softDrop.Rg,
+      multiplicity: jet.multiplicity,
+    };
+    for (const [name, column] of this.jets) column.buffer.push(values[name]);
+    const splittings = this.tree === 'full' ? jet.all! : jet.primary;
+    for (let at = 0; at < splittings.length; at += SPLIT_STRIDE) {
+      this.rows.splittings++;
+      for (const [name, column] of this.splittings) {
+        column.buffer.push(name === 'jetRow' ? jetRow : splittings[at + SPLIT_FIELD_OF[name]]);
+      }
+    }
+  }
+
+  private async closeFiles(drain: boolean): Promise<void> {
+    for (const column of this.opened) {
+      if (drain) {
+        await column.buffer.drainTo(column.file);
+        await column.file.sync();
+      }
+      await column.file.close();
+    }
+  }
+
+  /** Writes the manifest and renames the staging directory into place; on failure nothing is left behind. */
+  async commit(): Promise<ColumnManifest> {
+    this.requireOpen('commit');
+    const manifest: ColumnManifest = {
+      format: COLUMNS_FORMAT,
+      version: COLUMNS_VERSION,
+      tree: this.tree,
+      records: { rows: this.rows.records, bytes: this.rows.recordBytes },
+      jets: { rows: this.rows.jets, columns: describe(JET_COLUMNS) },
+      splittings: { rows: this.rows.splittings, columns: describe(SPLITTING_COLUMNS) },
+    };
+    try {
+      await this.closeFiles(true);
+      await writeFile(path.join(this.staging, MANIFEST_FILE), JSON.stringify(manifest, null, 1));
+      if (await exists(this.target)) throw new Error(`column store ${this.target} appeared while writing; not replacing it`);
+      await rename(this.staging, this.target);
+    } catch (error) {
+      this.state = 'aborted';
+      await rm(this.staging, { recursive: true, force: true });
+      throw error;
+    }
+    this.state = 'committed';
+    return manifest;
+  }
+
+  /** Drops everything written so far. Safe to call more than once; a no-op after commit. */
+  async abort(): Promise<void> {
+    if (this.state !== 'open') return;
+    this.state = 'aborted';
+    try {
+      await this.closeFiles(false);
+    } finally {
+      await rm(this.staging, { recursive: true, force: true });
+    }
+  }
+}
+
+function describe<T extends Record<string, ColumnType>>(columns: T): Array<{ name: keyof T & string; type: ColumnType }> {
+  return Object.entries(columns).map(([name, type]) => ({ name: name as keyof T & string, type }));
+}
+
+async function exists(p: string): Promise<boolean> {
+  try {
+    await stat(p);
+    return true;
+  } catch (error) {
+    if ((error as NodeJS.ErrnoException).code === 'ENOENT') return false;
+    throw error;
+  }
+}
+
+/** Largest page of the jet table one call returns. */
+export const MAX_JET_PAGE = 10_000;
+
+export class ColumnReader {
+  private constructor(
+    readonly directory: string,
+    readonly manifest: ColumnManifest,
+  ) {}
+
+  /** Opens a committed sample, checking its manifest and that every file has the size the manifest implies. */
+  static async open(directory: string): Promise<ColumnReader> {
+    requireLittleEndian();
+    const manifestPath = path.join(directory, MANIFEST_FILE);
+    let text: string;
+    try {
+      text = await readFile(manifestPath, 'utf8');
+    } catch (error) {
+      throw new Error(`column store ${directory}: cannot read ${MANIFEST_FILE} (${(error as Error).message})`);
+    }
+    const manifest = checkedManifest(text, directory);
+    const reader = new ColumnReader(directory, manifest);
+    const expected: Array<[string, number]> = [
+      [RECORD_OFFSETS_FILE, (manifest.records.rows + 1) * 4],
+      [RECORD_IDS_FILE, manifest.records.bytes],
+    ];
+    for (const [name, type] of Object.entries(JET_COLUMNS)) {
+      expected.push([columnFile('jets', name, type), manifest.jets.rows * BYTES_PER_VALUE[type]]);
+    }
+    for (const [name, type] of Object.entries(SPLITTING_COLUMNS)) {
+      expected.push([columnFile('splittings', name, type), manifest.splittings.rows * BYTES_PER_VALUE[type]]);
+    }
+    for (const [file, size] of expected) {
+      const actual = await stat(path.join(directory, file)).then(
+        (s) => s.size,
+        () => -1,
+      );
+      if (actual !== size) {
+        throw new Error(`column store ${directory}: ${file} has ${actual < 0 ? 'gone missing' : `${actual} bytes, expected ${size}`}`);
+      }
+    }
+    return reader;
+  }
+
+  /** Bytes [start, start + length) of one file, in a fresh buffer (aligned for typed-array views). */
+  private async readBytes(file: string, start: number, length: number): Promise<ArrayBuffer> {
+    const buffer = new ArrayBuffer(length);
+    if (length === 0) return buffer;
+    const handle = await open(path.join(this.directory, file), 'r');
+    try {
+      let done = 0;
+      while (done < length) {
+        const { bytesRead } = await handle.read(new Uint8Array(buffer, done), 0, length - done, start + done);
+        if (bytesRead === 0) throw new Error(`column store ${this.directory}: ${file} ended early`);
+        done += bytesRead;
+      }
+    } finally {
+      await handle.close();
+    }
+    return buffer;
+  }
+
+  private async readRows<T extends ColumnType>(file: string, type: T, first: number, count: number): Promise<ColumnArray<T>> {
+    const width = BYTES_PER_VALUE[type];
+    const buffer = await this.readBytes(file, first * width, count * width);
+    return (type === 'int32' ? new Int32Array(buffer) : new Float64Array(buffer)) as ColumnArray<T>;
+  }
+
+  /** A whole jet column. */
+  jetColumn<K extends JetColumnName>(name: K): Promise<ColumnArray<(typeof JET_COLUMNS)[K]>> {
+    const type = JET_COLUMNS[name];
+    if (!type) return Promise.reject(new RangeError(`unknown jet column "${String(name)}"`));
+    return this.readRows(columnFile('jets', name, type), type, 0, this.manifest.jets.rows);
+  }
+
+  /** A whole splitting column. */
+  splittingColumn<K extends SplittingColumnName>(name: K): Promise<ColumnArray<(typeof SPLITTING_COLUMNS)[K]>> {
+    const type = SPLITTING_COLUMNS[name];
+    if (!type) return Promise.reject(new RangeError(`unknown splitting column "${String(name)}"`));
+    return this.readRows(columnFile('splittings', name, type), type, 0, this.manifest.splittings.rows);
+  }
+
+  /** Record ids [first, first + count), in record order. */
+  async recordIds(first = 0, count = this.manifest.records.rows - first): Promise<string[]> {
+    checkRange('record', first, count, this.manifest.records.rows);
+    const offsets = await this.readRows(RECORD_OFFSETS_FILE, 'int32', first, count + 1);
+    const bytes = new Uint8Array(await this.readBytes(RECORD_IDS_FILE, offsets[0], offsets[count] - offsets[0]));
+    const decoder = new TextDecoder('utf-8', { fatal: true });
+    const ids: string[] = [];
+    for (let k = 0; k < count; k++) ids.push(decoder.decode(bytes.subarray(offsets[k] - offsets[0], offsets[k + 1] - offsets[0])));
+    return ids;
+  }
+
+  /** Rows [offset, offset + limit) of the jet table (fewer at the end), reading only that range of each column. */
+  async jetPage(offset: number, limit: number): Promise<JetRow[]> {
+    if (!Number.isInteger(limit) || limit < 1 || limit > MAX_JET_PAGE) {
+      throw new RangeError(`page limit must be an integer from 1 to ${MAX_JET_PAGE} (got ${limit})`);
+    }
+    if (!Number.isInteger(offset) || offset < 0) throw new RangeError(`page offset must be a non-negative integer (got ${offset})`);
+    const count = Math.max(0, Math.min(limit, this.manifest.jets.rows - offset));
+    if (count === 0) return [];
+    const columns = {} as Record<JetColumnName, Float64Array | Int32Array>;
+    for (const [name, type] of Object.entries(JET_COLUMNS) as Array<[JetColumnName, ColumnType]>) {
+      columns[name] = await this.readRows(columnFile('jets', name, type), type, offset, count);
+    }
+    const firstRecord = columns.record[0];
+    const ids = await this.recordIds(firstRecord, columns.record[count - 1] - firstRecord + 1);
+    const rows: JetRow[] = [];
+    for (let k = 0; k < count; k++) {
+      const row = { row: offset + k, recordId: ids[columns.record[k] - firstRecord] } as JetRow;
+      for (const name of Object.keys(JET_COLUMNS) as JetColumnName[]) row[name] = columns[name][k];
+      rows.push(row);
+    }
+    return rows;
+  }
+}
+
+function checkRange(what: string, first: number, count: number, rows: number): void {
+  if (!Number.isInteger(first) || !Number.isInteger(count) || first < 0 || count < 0 || first + count > rows) {
+    throw new RangeError(`${what} range ${first}+${count} is outside 0..${rows}`);
+  }
+}
+
+function checkedManifest(text: string, directory: string): ColumnManifest {
+  const fail = (why: string): never => {
+    throw new Error(`column store ${directory}: ${MANIFEST_FILE} ${why}`);
+  };
+  let m: ColumnManifest;
+  try {
+    m = JSON.parse(text) as ColumnManifest;
+  } catch {
+    return fail('is not valid JSON');
+  }
+  if (m === null || typeof m !== 'object' || m.format !== COLUMNS_FORMAT) fail(`is not a ${COLUMNS_FORMAT} manifest`);
+  if (m.version !== COLUMNS_VERSION) fail(`has version ${String(m.version)}; this code reads version ${COLUMNS_VERSION}`);
+  if (m.tree !== 'primary' && m.tree !== 'full') fail(`has an unknown tree "${String(m.tree)}"`);
+  const count = (v: unknown) => Number.isInteger(v) && (v as number) >= 0;
+  if (!count(m.records?.rows) || !count(m.records?.bytes)) fail('has invalid record counts');
+  const tables: Array<[TableName, Record<string, ColumnType>]> = [
+    ['jets', JET_COLUMNS],
+    ['splittings', SPLITTING_COLUMNS],
+  ];
+  for (const [table, columns] of tables) {
+    if (!count(m[table]?.rows)) fail(`has an invalid row count for ${table}`);
+    const listed = JSON.stringify(m[table].columns);
+    if (listed !== JSON.stringify(describe(columns))) fail(`lists ${table} columns ${listed}, not those of version ${COLUMNS_VERSION}`);
+  }
+  return m;
+}
