@@ -1,0 +1,23 @@
+import { z } from 'zod';
+import { json, signedInRoute } from '@/lib/api';
+import { readJsonBody } from '@/lib/api-validation';
+import { siteSettings } from '@/lib/api-settings';
+
+export const dynamic = 'force-dynamic';
+export const runtime = 'nodejs';
+
+const settingsSchema = z.strictObject({
+  openSignup: z.boolean({ error: 'openSignup must be true or false' }),
+});
+
+export const GET = signedInRoute({ adminOnly: true }, async () => {
+  const settings = await siteSettings();
+  return json({ openSignup: settings.openSignup });
+});
+
+export const PATCH = signedInRoute({ adminOnly: true }, async ({ request }) => {
+  const change = await readJsonBody(request, settingsSchema);
+  const settings = await siteSettings();
+  await settings.update(change);
+  return json({ openSignup: settings.openSignup });
+});

@@ -1,0 +1,11 @@
+import { json, signedInRoute } from '@/lib/api';
+import { adminUserView } from '@/lib/api-views';
+import { db } from '@/lib/db';
+
+export const dynamic = 'force-dynamic';
+export const runtime = 'nodejs';
+
+export const GET = signedInRoute({ adminOnly: true }, async () => {
+  const users = await db().models.User.findAll({ order: [['id', 'ASC']] });
+  return json({ users: users.map(adminUserView) });
+});

@@ -1,0 +1,36 @@
+import { z } from 'zod';
+import { conflict, forbidden } from '@/lib/api-errors';
+import { json, publicRoute } from '@/lib/api';
+import { emailSchema, passwordSchema, userNameSchema } from '@/lib/api-schemas';
+import { readJsonBody } from '@/lib/api-validation';
+import { userView } from '@/lib/api-views';
+import { siteSettings } from '@/lib/api-settings';
+import { hashPassword } from '@/lib/auth-password';
+import { db } from '@/lib/db';
+
+export const dynamic = 'force-dynamic';
+export const runtime = 'nodejs';
+
+const signupSchema = z.strictObject({ name: userNameSchema, email: emailSchema, password: passwordSchema });
+
+async function openSignup(): Promise<boolean> {
+  return (await siteSettings()).openSignup;
+}
+
+/** Whether anyone may create an account here, for the sign-up page. */
+export const GET = publicRoute(async () => json({ openSignup: await openSignup() }));
+
+export const POST = publicRoute(async (request) => {
+  const input = await readJsonBody(request, signupSchema);
+  if (!(await openSignup())) throw forbidden('Sign-up is closed on this server; ask an admin for an account.');
+  const { User } = db().models;
+  if (await User.findOne({ where: { email: input.email } })) {
+    throw conflict('email_taken', `An account with the e-mail ${input.email} already exists.`);
+  }
+  const user = await User.create({
+    name: input.name,
+    email: input.email,
+    passwordHash: await hashPassword(input.password),
+  });
+  return json({ user: userView(user) }, 201);
+});

@@ -1,0 +1,59 @@
+import type { Transaction } from 'sequelize';
+import { z } from 'zod';
+import { notFound } from '@/lib/api-errors';
+import { json, noContent, signedInRoute } from '@/lib/api';
+import { moveInOrder } from '@/lib/api-entry-order';
+import { atLeastOneField, entryTitleSchema, idParam, noteBodySchema } from '@/lib/api-schemas';
+import { entryOrder, entryWithAuthors, renumberEntries, touchStudy } from '@/lib/api-studies';
+import { readJsonBody } from '@/lib/api-validation';
+import { studyAccess } from '@/lib/authz';
+import { db } from '@/lib/db';
+
+export const dynamic = 'force-dynamic';
+export const runtime = 'nodejs';
+
+const params = z.object({ studyId: idParam, entryId: idParam });
+
+const entryChangeSchema = atLeastOneField({
+  title: entryTitleSchema.optional(),
+  body: noteBodySchema.optional(),
+  position: z
+    .number({ error: 'Position must be a number' })
+    .int('Position must be a whole number')
+    .min(0, 'Position counts from 0')
+    .optional(),
+});
+
+async function studyEntry(studyId: number, entryId: number, transaction: Transaction) {
+  const entry = await db().models.Entry.findOne({ where: { id: entryId, studyId }, transaction });
+  if (!entry) throw notFound(`No entry ${entryId} in this study.`);
+  return entry;
+}
+
+export const PATCH = signedInRoute({ params }, async ({ request, params, user }) => {
+  const { study } = await studyAccess(user, params.studyId, 'editor');
+  const { position, ...content } = await readJsonBody(request, entryChangeSchema);
+  const updated = await db().sequelize.transaction(async (transaction) => {
+    const entry = await studyEntry(study.id, params.entryId, transaction);
+    await entry.update({ ...content, updatedById: user.id }, { transaction });
+    if (position !== undefined) {
+      const order = moveInOrder(await entryOrder(study.id, transaction), entry.id, position);
+      await renumberEntries(study.id, order, transaction);
+    }
+    await touchStudy(study.id, transaction);
+    return entryWithAuthors(entry.id, transaction);
+  });
+  return json({ entry: updated });
+});
+
+/** Removes the entry and closes the gap it leaves in the list. */
+export const DELETE = signedInRoute({ params }, async ({ params, user }) => {
+  const { study } = await studyAccess(user, params.studyId, 'editor');
+  await db().sequelize.transaction(async (transaction) => {
+    const entry = await studyEntry(study.id, params.entryId, transaction);
+    await entry.destroy({ transaction });
+    await renumberEntries(study.id, await entryOrder(study.id, transaction), transaction);
+    await touchStudy(study.id, transaction);
+  });
+  return noContent();
+});

@@ -1,0 +1,41 @@
+import { z } from 'zod';
+import { json, signedInRoute } from '@/lib/api';
+import { entryTitleSchema, idParam, noteBodySchema } from '@/lib/api-schemas';
+import { entryWithAuthors, studyEntries, touchStudy } from '@/lib/api-studies';
+import { readJsonBody } from '@/lib/api-validation';
+import { studyAccess } from '@/lib/authz';
+import { db } from '@/lib/db';
+
+export const dynamic = 'force-dynamic';
+export const runtime = 'nodejs';
+
+const params = z.object({ studyId: idParam });
+
+// Only notes for now: maps, contrasts and separations need processed samples, which come later.
+const newEntrySchema = z.strictObject({
+  kind: z.literal('note', { error: 'kind must be "note"; other kinds cannot be created yet' }),
+  title: entryTitleSchema.optional(),
+  body: noteBodySchema,
+});
+
+export const GET = signedInRoute({ params }, async ({ params, user }) => {
+  const { study } = await studyAccess(user, params.studyId, 'viewer');
+  return json({ entries: await studyEntries(study.id) });
+});
+
+/** Adds the entry at the end of the study's list. */
+export const POST = signedInRoute({ params }, async ({ request, params, user }) => {
+  const { study } = await studyAccess(user, params.studyId, 'editor');
+  const input = await readJsonBody(request, newEntrySchema);
+  const { sequelize, models } = db();
+  const entry = await sequelize.transaction(async (transaction) => {
+    const position = await models.Entry.count({ where: { studyId: study.id }, transaction });
+    const created = await models.Entry.create(
+      { ...input, studyId: study.id, position, createdById: user.id, updatedById: user.id },
+      { transaction },
+    );
+    await touchStudy(study.id, transaction);
+    return entryWithAuthors(created.id, transaction);
+  });
+  return json({ entry }, 201);
+});

@@ -1,0 +1,43 @@
+import type { z } from 'zod';
+import { ApiError, badRequest, notFound, type ErrorDetail } from './api-errors';
+
+/** zod's issues as the error body's details, each naming where in the input it is. */
+export function issueDetails(error: z.ZodError): ErrorDetail[] {
+  return error.issues.map((issue) => ({
+    path: issue.path.length > 0 ? issue.path.map(String).join('.') : '(body)',
+    message: issue.message,
+  }));
+}
+
+function summary(details: ErrorDetail[]): string {
+  return details.map((detail) => `${detail.path}: ${detail.message}`).join('; ');
+}
+
+/** The request's JSON body checked against the schema; 400 when it is not JSON or does not fit. */
+export async function readJsonBody<T>(request: Request, schema: z.ZodType<T>): Promise<T> {
+  const text = await request.text();
+  let body: unknown;
+  try {
+    body = JSON.parse(text);
+  } catch {
+    throw new ApiError(400, 'invalid_json', 'The request body is not valid JSON.', [
+      { path: '(body)', message: text.trim() === '' ? 'The body is empty.' : 'The body could not be parsed as JSON.' },
+    ]);
+  }
+  const parsed = schema.safeParse(body);
+  if (!parsed.success) {
+    const details = issueDetails(parsed.error);
+    throw badRequest(`Invalid request body: ${summary(details)}`, details);
+  }
+  return parsed.data;
+}
+
+/**
+ * The path parameters checked against the schema. A malformed id names nothing that exists, so it answers
+ * 404 like an unknown one.
+ */
+export function readRouteParams<T>(raw: unknown, schema: z.ZodType<T>): T {
+  const parsed = schema.safeParse(raw);
+  if (!parsed.success) throw notFound(`Nothing found at this address (${summary(issueDetails(parsed.error))}).`);
+  return parsed.data;
+}

@@ -1,0 +1,15 @@
+// Which pages need a session, and where someone without one is sent. Pure, for proxy.ts.
+import { SIGN_IN_PATH } from './auth-constants';
+
+const PUBLIC_PAGES = [SIGN_IN_PATH, '/sign-up'];
+
+export function isPublicPage(pathname: string): boolean {
+  return PUBLIC_PAGES.some((page) => pathname === page || pathname.startsWith(`${page}/`));
+}
+
+/** The sign-in page, told where to return afterwards (a path on this site only). */
+export function signInRedirect(requested: URL): URL {
+  const target = new URL(SIGN_IN_PATH, requested);
+  target.searchParams.set('callbackUrl', `${requested.pathname}${requested.search}`);
+  return target;
+}

@@ -1,0 +1,38 @@
+import path from 'node:path';
+import { z } from 'zod';
+
+/** Where the server keeps its files and listens; read from the environment, with defaults for a local run. */
+export interface ServerConfig {
+  storageDir: string;
+  databasePath: string;
+  host: string;
+  port: number;
+}
+
+const environmentSchema = z.object({
+  SPLITFIELD_STORAGE: z.string().trim().min(1).optional(),
+  SPLITFIELD_DB: z.string().trim().min(1).optional(),
+  HOST: z.string().trim().min(1).optional(),
+  PORT: z
+    .string()
+    .regex(/^\d+$/, 'must be a whole number')
+    .transform(Number)
+    .refine((port) => port >= 1 && port <= 65535, 'must be between 1 and 65535')
+    .optional(),
+});
+
+export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
+  const parsed = environmentSchema.safeParse(env);
+  if (!parsed.success) {
+    const problems = parsed.error.issues.map((issue) => `${issue.path.join('.')} ${issue.message}`);
+    throw new Error(`Invalid environment variable: ${problems.join('; ')}`);
+  }
+  const values = parsed.data;
+  const storageDir = path.resolve(values.SPLITFIELD_STORAGE ?? 'storage');
+  return {
+    storageDir,
+    databasePath: path.resolve(values.SPLITFIELD_DB ?? path.join(storageDir, 'splitfield.sqlite')),
+    host: values.HOST ?? '127.0.0.1',
+    port: values.PORT ?? 3000,
+  };
+}

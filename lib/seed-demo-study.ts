@@ -1,0 +1,43 @@
+// The demo study's words: an invented team (the Larkspur jet group) preparing for an invented detector
+// upgrade (the Tallis inner tracker). Every name here is fictional.
+
+export const DEMO_STUDY = {
+  title: 'Quark-like vs gluon-like jets with the Tallis tracker',
+  description:
+    'Does the finer angular resolution of the planned Tallis inner tracker sharpen quark/gluon separation ' +
+    'in the primary emission plane? Larkspur jet group, upgrade working study.',
+};
+
+export const DEMO_NOTES: { title: string; body: string }[] = [
+  {
+    title: 'Goal and plan',
+    body: `The Tallis upgrade halves the track angular resolution in the core of high-pt jets. We want to know
+whether that is visible where quark-like and gluon-like jets differ most.
+
+**Plan**
+
+1. Generate two simulated samples: a *quark-enriched* one (jets recoiling against a boson) and a
+   *gluon-enriched* one (dijets), both at 200–400 GeV jet pt, anti-kt R = 0.4.
+2. Re-cluster every jet with Cambridge/Aachen and follow the harder branch: each primary splitting gives
+   one point at (ln 1/Δ, ln kt).
+3. Compare the two per-jet densities, then find the bins that separate them best.
+4. Repeat with the current and the upgraded resolution smearing.
+`,
+  },
+  {
+    title: 'What we expect before looking',
+    body: `At leading order and in the soft-collinear corner the density is flat per unit ln(1/Δ) and ln kt,
+proportional to the colour factor of the jet's initiator:
+
+| initiator | colour factor |
+|---|---|
+| quark | C_F = 4/3 |
+| gluon | C_A = 3 |
+
+So the gluon/quark ratio should approach **C_A / C_F = 9/4** there, and fall towards 1 at large kt,
+where hadronisation and the hard-collinear terms matter.
+
+Question for the group: at which ln(1/Δ) does the current resolution start to wash this out?
+`,
+  },
+];

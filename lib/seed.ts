@@ -1,0 +1,67 @@
+import { randomBytes } from 'node:crypto';
+import { writeFileSync } from 'node:fs';
+import path from 'node:path';
+import type { SiteRole, StudyRole } from '@/models/vocabulary';
+import { hashPassword } from './auth-password';
+import type { Database } from './db';
+import { DEMO_NOTES, DEMO_STUDY } from './seed-demo-study';
+
+export interface DemoAccount {
+  name: string;
+  email: string;
+  password: string;
+  siteRole: SiteRole;
+  /** The account's role in the demo study. */
+  studyRole: StudyRole;
+}
+
+export const DEMO_CREDENTIALS_FILE = 'DEMO-CREDENTIALS.txt';
+
+// Fictional people of the fictional Larkspur jet group.
+const DEMO_PEOPLE: Omit<DemoAccount, 'password'>[] = [
+  { name: 'Ines Marrow', email: 'admin@larkspur.test', siteRole: 'admin', studyRole: 'editor' },
+  { name: 'Tamsin Quell', email: 'tamsin@larkspur.test', siteRole: 'member', studyRole: 'owner' },
+  { name: 'Oren Halvik', email: 'oren@larkspur.test', siteRole: 'member', studyRole: 'commenter' },
+];
+
+export function demoCredentialsText(accounts: DemoAccount[]): string {
+  const lines = accounts.map(
+    (account) => `${account.siteRole.padEnd(7)} ${account.email.padEnd(24)} ${account.password}  (${account.name})`,
+  );
+  return [
+    'Splitfield demo accounts, made on first start. Change these passwords after signing in.',
+    ...lines,
+    '',
+  ].join('\n');
+}
+
+/**
+ * On an empty database (no users yet), creates the demo accounts with random passwords, the demo study and
+ * its notes, and writes the credentials to storage/; all or nothing. Returns the accounts, or null when the
+ * database already had users, so it runs once however often the server starts.
+ */
+export async function seedOnce(database: Database, storageDir: string): Promise<DemoAccount[] | null> {
+  const { sequelize, models } = database;
+  return sequelize.transaction(async (transaction) => {
+    if ((await models.User.count({ transaction })) > 0) return null;
+    const accounts = DEMO_PEOPLE.map((person) => ({ ...person, password: randomBytes(12).toString('base64url') }));
+    const study = await models.Study.create(DEMO_STUDY, { transaction });
+    const users = [];
+    for (const { name, email, siteRole, studyRole, password } of accounts) {
+      const passwordHash = await hashPassword(password);
+      const user = await models.User.create({ name, email, siteRole, passwordHash }, { transaction });
+      await models.Membership.create({ studyId: study.id, userId: user.id, role: studyRole }, { transaction });
+      users.push(user);
+    }
+    const author = users[accounts.findIndex((account) => account.studyRole === 'owner')];
+    for (const [position, note] of DEMO_NOTES.entries()) {
+      await models.Entry.create(
+        { studyId: study.id, kind: 'note', position, ...note, createdById: author.id, updatedById: author.id },
+        { transaction },
+      );
+    }
+    // Written before the commit: if it fails, the transaction rolls back and the next start tries again.
+    writeFileSync(path.join(storageDir, DEMO_CREDENTIALS_FILE), demoCredentialsText(accounts), { mode: 0o600 });
+    return accounts;
+  });
+}

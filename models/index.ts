@@ -1,0 +1,31 @@
+import type { Sequelize } from 'sequelize';
+import { defineEntry } from './entry';
+import { defineMembership } from './membership';
+import { defineSiteSetting } from './site-setting';
+import { defineStudy } from './study';
+import { defineUser } from './user';
+
+/**
+ * Defines every model on one connection and declares how they relate. Each call makes fresh classes, so
+ * two connections in one process (a test and the server it prepares) never rebind each other's models.
+ */
+export function defineModels(sequelize: Sequelize) {
+  const User = defineUser(sequelize);
+  const SiteSetting = defineSiteSetting(sequelize);
+  const Study = defineStudy(sequelize);
+  const Membership = defineMembership(sequelize);
+  const Entry = defineEntry(sequelize);
+
+  Study.hasMany(Membership, { foreignKey: 'studyId', as: 'memberships' });
+  Membership.belongsTo(Study, { foreignKey: 'studyId', as: 'study' });
+  Membership.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+  User.hasMany(Membership, { foreignKey: 'userId', as: 'memberships' });
+  Study.hasMany(Entry, { foreignKey: 'studyId', as: 'entries' });
+  Entry.belongsTo(Study, { foreignKey: 'studyId', as: 'study' });
+  Entry.belongsTo(User, { foreignKey: 'createdById', as: 'createdBy' });
+  Entry.belongsTo(User, { foreignKey: 'updatedById', as: 'updatedBy' });
+
+  return { User, SiteSetting, Study, Membership, Entry };
+}
+
+export type Models = ReturnType<typeof defineModels>;

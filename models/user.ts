@@ -1,0 +1,46 @@
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
+import { SITE_ROLES, type SiteRole } from './vocabulary';
+
+export function defineUser(sequelize: Sequelize) {
+  class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
+    declare id: CreationOptional<number>;
+    /** Stored trimmed and lower-cased, so uniqueness ignores case. */
+    declare email: string;
+    declare name: string;
+    declare passwordHash: string;
+    declare siteRole: CreationOptional<SiteRole>;
+    declare disabled: CreationOptional<boolean>;
+    /** Raised to end every session issued before; sessions carry the value they were issued with. */
+    declare sessionVersion: CreationOptional<number>;
+    declare createdAt: CreationOptional<Date>;
+    declare updatedAt: CreationOptional<Date>;
+  }
+  return User.init(
+    {
+      id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
+      email: { type: DataTypes.STRING, allowNull: false, unique: true },
+      name: { type: DataTypes.STRING, allowNull: false },
+      passwordHash: { type: DataTypes.STRING, allowNull: false },
+      siteRole: {
+        type: DataTypes.STRING,
+        allowNull: false,
+        defaultValue: 'member',
+        validate: { isIn: [[...SITE_ROLES]] },
+      },
+      disabled: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+      sessionVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
+      createdAt: DataTypes.DATE,
+      updatedAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: 'users', underscored: true },
+  );
+}
+
+export type User = InstanceType<ReturnType<typeof defineUser>>;

@@ -1,0 +1,20 @@
+// Words shared by the database, the API and the pages. Kept free of server imports so client code can use them.
+
+/** Study roles, weakest first: each role may do everything the roles before it may. */
+export const STUDY_ROLES = ['viewer', 'commenter', 'editor', 'owner'] as const;
+export type StudyRole = (typeof STUDY_ROLES)[number];
+
+export const SITE_ROLES = ['member', 'admin'] as const;
+export type SiteRole = (typeof SITE_ROLES)[number];
+
+export const ENTRY_KINDS = ['note', 'map', 'contrast', 'separation'] as const;
+export type EntryKind = (typeof ENTRY_KINDS)[number];
+
+export const STUDY_TITLE_MAX = 200;
+export const STUDY_DESCRIPTION_MAX = 5000;
+export const ENTRY_TITLE_MAX = 200;
+export const NOTE_BODY_MAX = 200_000;
+export const USER_NAME_MAX = 100;
+export const PASSWORD_MIN = 8;
+// bcrypt only reads the first 72 bytes; a longer password would pass with any tail.
+export const PASSWORD_MAX = 72;

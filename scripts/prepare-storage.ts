@@ -1,0 +1,33 @@
+// What every start does before the web server runs (npm start and the test harness alike):
+// storage folder, session secret, schema migrations, and the demo data on the very first start.
+import { mkdirSync } from 'node:fs';
+import path from 'node:path';
+import { ensureAuthSecret } from '../lib/auth-secret';
+import type { ServerConfig } from '../lib/config';
+import { openDatabase } from '../lib/db';
+import { seedOnce, type DemoAccount } from '../lib/seed';
+import { migrateUp } from '../models/migrate';
+
+export interface PreparedStorage {
+  secret: string;
+  appliedMigrations: string[];
+  /** The demo accounts when this start created them; null on every later start. */
+  demoAccounts: DemoAccount[] | null;
+}
+
+export async function prepareStorage(
+  config: ServerConfig,
+  env: NodeJS.ProcessEnv = process.env,
+): Promise<PreparedStorage> {
+  mkdirSync(config.storageDir, { recursive: true });
+  mkdirSync(path.dirname(config.databasePath), { recursive: true });
+  const secret = ensureAuthSecret(config.storageDir, env);
+  const database = openDatabase(config.databasePath);
+  try {
+    const appliedMigrations = await migrateUp(database.sequelize);
+    const demoAccounts = await seedOnce(database, config.storageDir);
+    return { secret, appliedMigrations, demoAccounts };
+  } finally {
+    await database.sequelize.close();
+  }
+}
