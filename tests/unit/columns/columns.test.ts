@@ -4,7 +4,14 @@ import { existsSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { ColumnReader, ColumnWriter, JET_COLUMNS, SPLITTING_COLUMNS } from '@/lib/ingest/columns';
+import {
+  ColumnReader,
+  ColumnWriter,
+  JET_COLUMNS,
+  type JetColumnName,
+  SPLITTING_COLUMNS,
+  type SplittingColumnName,
+} from '@/lib/ingest/columns';
 import { type JetResult, type RecordResult, SPLIT_STRIDE } from '@/lib/physics/types';
 
 let root: string;
@@ -36,6 +43,10 @@ function jet(pt: number, primary: number[][], all: number[][] | null = null, sof
   };
 }
 
+async function expectColumns(read: (name: string) => Promise<ArrayLike<number>>, values: Record<string, number[]>) {
+  for (const [name, expected] of Object.entries(values)) expect(Array.from(await read(name)), name).toEqual(expected);
+}
+
 const result = (...jets: JetResult[]): RecordResult => ({ jets, rejected: { pt: 0, y: 0, rank: 0 } });
 
 describe('column storage', () => {
@@ -58,23 +69,29 @@ describe('column storage', () => {
     const reader = await ColumnReader.open(target);
     expect(reader.manifest).toEqual(manifest);
     expect(await reader.recordIds()).toEqual(['évt-1', '17', 'e3']);
-    expect(Array.from(await reader.jetColumn('record'))).toEqual([0, 0, 2]);
-    expect(Array.from(await reader.jetColumn('jet'))).toEqual([0, 1, 0]);
-    expect(Array.from(await reader.jetColumn('weight'))).toEqual([2.5, 2.5, 0.5]);
-    expect(Array.from(await reader.jetColumn('pt'))).toEqual([300, 120, 80]);
-    expect(Array.from(await reader.jetColumn('phi'))).toEqual([1.3, 1.12, 1.08]);
-    expect(Array.from(await reader.jetColumn('n'))).toEqual([3, 1, 2]);
-    expect(Array.from(await reader.jetColumn('mg'))).toEqual([15, Number.NaN, 4]);
-    expect(Array.from(await reader.jetColumn('multiplicity'))).toEqual([2, 0, 1]);
+    const jetValues: Partial<Record<JetColumnName, number[]>> = {
+      record: [0, 0, 2],
+      jet: [0, 1, 0],
+      weight: [2.5, 2.5, 0.5],
+      pt: [300, 120, 80],
+      phi: [1.3, 1.12, 1.08],
+      n: [3, 1, 2],
+      mg: [15, Number.NaN, 4],
+      multiplicity: [2, 0, 1],
+    };
+    await expectColumns((name) => reader.jetColumn(name as JetColumnName), jetValues);
     expect(await reader.jetColumn('multiplicity')).toBeInstanceOf(Int32Array);
     expect(await reader.jetColumn('Rg')).toBeInstanceOf(Float64Array);
     // splitting fields in engine order: lnInvDelta, lnKt, z, delta, kt, psi, m, kappa, generation
-    expect(Array.from(await reader.splittingColumn('jetRow'))).toEqual([0, 0, 2]);
-    expect(Array.from(await reader.splittingColumn('lnInvDelta'))).toEqual([10, 20, 30]);
-    expect(Array.from(await reader.splittingColumn('lnKt'))).toEqual([11, 21, 31]);
-    expect(Array.from(await reader.splittingColumn('kt'))).toEqual([14, 24, 34]);
-    expect(Array.from(await reader.splittingColumn('kappa'))).toEqual([17, 27, 37]);
-    expect(Array.from(await reader.splittingColumn('generation'))).toEqual([1, 1, 1]);
+    const splittingValues: Partial<Record<SplittingColumnName, number[]>> = {
+      jetRow: [0, 0, 2],
+      lnInvDelta: [10, 20, 30],
+      lnKt: [11, 21, 31],
+      kt: [14, 24, 34],
+      kappa: [17, 27, 37],
+      generation: [1, 1, 1],
+    };
+    await expectColumns((name) => reader.splittingColumn(name as SplittingColumnName), splittingValues);
     // one file per column plus the record id table and the manifest
     const files = await readdir(target);
     expect(files.length).toBe(Object.keys(JET_COLUMNS).length + Object.keys(SPLITTING_COLUMNS).length + 3);
