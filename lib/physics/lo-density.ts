@@ -4,7 +4,6 @@
 import { alphaS, C_A, C_F, N_F, T_R } from './running-coupling';
 
 export type Parton = 'quark' | 'gluon';
-export const PARTONS: readonly Parton[] = ['quark', 'gluon'];
 
 /** Colour factor of the emitting parton: C_F for a quark, C_A for a gluon. */
 export function colourFactor(parton: Parton): number {
