@@ -47,7 +47,11 @@ export async function studyMembers(studyId: number, transaction?: Transaction) {
 
 /** Marks the study as changed now, so lists show recently worked-on studies first. */
 export async function touchStudy(studyId: number, transaction: Transaction): Promise<void> {
-  await db().models.Study.update({ updatedAt: new Date() }, { where: { id: studyId }, transaction });
+  // Model.update skips a change of updatedAt alone, so this goes to the table directly.
+  await db().sequelize.query('UPDATE studies SET updated_at = :now WHERE id = :studyId', {
+    replacements: { now: new Date(), studyId },
+    transaction,
+  });
 }
 
 /** The study's entry ids in list order. */

@@ -28,10 +28,11 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
     throw new Error(`Invalid environment variable: ${problems.join('; ')}`);
   }
   const values = parsed.data;
-  const storageDir = path.resolve(values.SPLITFIELD_STORAGE ?? 'storage');
+  // The ignore comments stop the bundler from tracing the whole project: these paths are only known at run time.
+  const storageDir = path.resolve(/*turbopackIgnore: true*/ values.SPLITFIELD_STORAGE ?? 'storage');
   return {
     storageDir,
-    databasePath: path.resolve(values.SPLITFIELD_DB ?? path.join(storageDir, 'splitfield.sqlite')),
+    databasePath: path.resolve(/*turbopackIgnore: true*/ values.SPLITFIELD_DB ?? path.join(storageDir, 'splitfield.sqlite')),
     host: values.HOST ?? '127.0.0.1',
     port: values.PORT ?? 3000,
   };

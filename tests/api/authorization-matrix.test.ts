@@ -1,0 +1,330 @@
+// Who may call what: every API route and method, for every kind of caller, with the status each must get.
+// A route file under app/api whose route or method is missing here fails the coverage test, so new routes
+// have to be added to this table.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { Client, signIn, startTestServer, type TestServer } from '../support/server';
+import { addMember, newAccount, newNote, newPerson, newStudy, type Person } from './fixtures';
+import { apiRouteMethods } from './route-inventory';
+
+const ACTORS = ['anonymous', 'nonMember', 'viewer', 'commenter', 'editor', 'owner', 'admin'] as const;
+type Actor = (typeof ACTORS)[number];
+
+interface World {
+  server: TestServer;
+  clients: Record<Actor, Client>;
+  /** Owned by `owner`, with `viewer`, `commenter` and `editor` as members; `admin` (a site admin) is not one. */
+  studyId: number;
+  people: Record<'owner' | 'viewer' | 'commenter' | 'editor', Person>;
+}
+
+interface Call {
+  path: string;
+  body?: unknown;
+  /** Checked after a refused call: what the call must not have changed. */
+  unchanged?: () => Promise<void>;
+}
+
+interface Row {
+  method: 'GET' | 'POST' | 'PATCH' | 'DELETE';
+  /** The route as its folder under app/ names it. */
+  route: string;
+  /** Makes what the call acts on (fresh where the call changes or removes it) and says where to send it. */
+  call: (world: World, actor: Actor) => Promise<Call>;
+  expected: Record<Actor, number>;
+}
+
+/** Expected statuses in the order of ACTORS: anonymous, nonMember, viewer, commenter, editor, owner, admin. */
+function statuses(...codes: number[]): Record<Actor, number> {
+  return Object.fromEntries(ACTORS.map((actor, i) => [actor, codes[i]])) as Record<Actor, number>;
+}
+
+async function freshStudy(world: World): Promise<number> {
+  const owner = world.people.owner;
+  const study = await newStudy(owner.client, 'Throwaway study');
+  for (const role of ['viewer', 'commenter', 'editor'] as const) {
+    await addMember(owner.client, study, world.people[role].email, role);
+  }
+  return study;
+}
+
+async function freshMember(world: World): Promise<number> {
+  const account = await newAccount(world.server, 'target');
+  await addMember(world.people.owner.client, world.studyId, account.email, 'viewer');
+  return account.id;
+}
+
+async function memberRole(world: World, userId: number): Promise<string | undefined> {
+  const detail = await world.people.owner.client.get(`/api/studies/${world.studyId}`);
+  return detail.body.members.find((member: { userId: number }) => member.userId === userId)?.role;
+}
+
+async function entryBodies(world: World): Promise<string[]> {
+  const list = await world.people.owner.client.get(`/api/studies/${world.studyId}/entries`);
+  return list.body.entries.map((entry: { body: string }) => entry.body);
+}
+
+const admin = (world: World) => world.clients.admin;
+const inStudy = (world: World, rest = '') => `/api/studies/${world.studyId}${rest}`;
+
+//                                                    anon nonMem viewer comm  editor owner admin
+const ROWS: Row[] = [
+  {
+    method: 'GET',
+    route: '/api/auth/[...nextauth]',
+    call: async () => ({ path: '/api/auth/session' }),
+    expected: statuses(200, 200, 200, 200, 200, 200, 200),
+  },
+  {
+    // next-auth's own csrf check refuses a form post without its token, whoever sends it.
+    method: 'POST',
+    route: '/api/auth/[...nextauth]',
+    call: async () => ({ path: '/api/auth/signout' }),
+    expected: statuses(302, 302, 302, 302, 302, 302, 302),
+  },
+  {
+    method: 'GET',
+    route: '/api/signup',
+    call: async () => ({ path: '/api/signup' }),
+    expected: statuses(200, 200, 200, 200, 200, 200, 200),
+  },
+  {
+    method: 'POST',
+    route: '/api/signup',
+    call: async (_world, actor) => ({
+      path: '/api/signup',
+      body: { name: 'New', email: `signup-by-${actor}-${Date.now()}@matrix.test`, password: 'long-enough' },
+    }),
+    expected: statuses(201, 201, 201, 201, 201, 201, 201),
+  },
+  {
+    method: 'GET',
+    route: '/api/me',
+    call: async () => ({ path: '/api/me' }),
+    expected: statuses(401, 200, 200, 200, 200, 200, 200),
+  },
+  {
+    method: 'PATCH',
+    route: '/api/me',
+    call: async (_world, actor) => ({ path: '/api/me', body: { name: `The ${actor}` } }),
+    expected: statuses(401, 200, 200, 200, 200, 200, 200),
+  },
+  {
+    method: 'GET',
+    route: '/api/admin/users',
+    call: async () => ({ path: '/api/admin/users' }),
+    expected: statuses(401, 403, 403, 403, 403, 403, 200),
+  },
+  {
+    method: 'PATCH',
+    route: '/api/admin/users/[userId]',
+    call: async (world) => {
+      const target = await newAccount(world.server, 'disable-me');
+      return {
+        path: `/api/admin/users/${target.id}`,
+        body: { disabled: true },
+        unchanged: async () => {
+          const users = (await admin(world).get('/api/admin/users')).body.users;
+          expect(users.find((user: { id: number }) => user.id === target.id).disabled).toBe(false);
+        },
+      };
+    },
+    expected: statuses(401, 403, 403, 403, 403, 403, 200),
+  },
+  {
+    method: 'GET',
+    route: '/api/admin/settings',
+    call: async () => ({ path: '/api/admin/settings' }),
+    expected: statuses(401, 403, 403, 403, 403, 403, 200),
+  },
+  {
+    method: 'PATCH',
+    route: '/api/admin/settings',
+    // Keeps sign-up open: the other rows need it.
+    call: async () => ({ path: '/api/admin/settings', body: { openSignup: true } }),
+    expected: statuses(401, 403, 403, 403, 403, 403, 200),
+  },
+  {
+    method: 'GET',
+    route: '/api/studies',
+    call: async () => ({ path: '/api/studies' }),
+    expected: statuses(401, 200, 200, 200, 200, 200, 200),
+  },
+  {
+    method: 'POST',
+    route: '/api/studies',
+    call: async (_world, actor) => ({ path: '/api/studies', body: { title: `Made by ${actor}` } }),
+    expected: statuses(401, 201, 201, 201, 201, 201, 201),
+  },
+  {
+    method: 'GET',
+    route: '/api/studies/[studyId]',
+    call: async (world) => ({ path: inStudy(world) }),
+    expected: statuses(401, 404, 200, 200, 200, 200, 200),
+  },
+  {
+    method: 'PATCH',
+    route: '/api/studies/[studyId]',
+    call: async (world, actor) => ({
+      path: inStudy(world),
+      body: { description: `Changed by ${actor}` },
+      unchanged: async () => {
+        const detail = await world.people.owner.client.get(inStudy(world));
+        expect(detail.body.study.description).not.toBe(`Changed by ${actor}`);
+      },
+    }),
+    expected: statuses(401, 404, 403, 403, 200, 200, 200),
+  },
+  {
+    method: 'DELETE',
+    route: '/api/studies/[studyId]',
+    call: async (world) => {
+      const study = await freshStudy(world);
+      return {
+        path: `/api/studies/${study}`,
+        unchanged: async () => expect((await world.people.owner.client.get(`/api/studies/${study}`)).status).toBe(200),
+      };
+    },
+    expected: statuses(401, 404, 403, 403, 403, 204, 204),
+  },
+  {
+    method: 'POST',
+    route: '/api/studies/[studyId]/members',
+    call: async (world) => {
+      const invited = await newAccount(world.server, 'invited');
+      return {
+        path: inStudy(world, '/members'),
+        body: { email: invited.email, role: 'viewer' },
+        unchanged: async () => expect(await memberRole(world, invited.id)).toBeUndefined(),
+      };
+    },
+    expected: statuses(401, 404, 403, 403, 403, 201, 201),
+  },
+  {
+    method: 'PATCH',
+    route: '/api/studies/[studyId]/members/[userId]',
+    call: async (world) => {
+      const member = await freshMember(world);
+      return {
+        path: inStudy(world, `/members/${member}`),
+        body: { role: 'commenter' },
+        unchanged: async () => expect(await memberRole(world, member)).toBe('viewer'),
+      };
+    },
+    expected: statuses(401, 404, 403, 403, 403, 200, 200),
+  },
+  {
+    method: 'DELETE',
+    route: '/api/studies/[studyId]/members/[userId]',
+    call: async (world) => {
+      const member = await freshMember(world);
+      return {
+        path: inStudy(world, `/members/${member}`),
+        unchanged: async () => expect(await memberRole(world, member)).toBe('viewer'),
+      };
+    },
+    expected: statuses(401, 404, 403, 403, 403, 204, 204),
+  },
+  {
+    method: 'GET',
+    route: '/api/studies/[studyId]/entries',
+    call: async (world) => ({ path: inStudy(world, '/entries') }),
+    expected: statuses(401, 404, 200, 200, 200, 200, 200),
+  },
+  {
+    method: 'POST',
+    route: '/api/studies/[studyId]/entries',
+    call: async (world, actor) => ({
+      path: inStudy(world, '/entries'),
+      body: { kind: 'note', body: `Written by ${actor}` },
+      unchanged: async () => expect(await entryBodies(world)).not.toContain(`Written by ${actor}`),
+    }),
+    expected: statuses(401, 404, 403, 403, 201, 201, 201),
+  },
+  {
+    method: 'PATCH',
+    route: '/api/studies/[studyId]/entries/[entryId]',
+    call: async (world, actor) => {
+      const entry = await newNote(world.people.owner.client, world.studyId, 'original');
+      return {
+        path: inStudy(world, `/entries/${entry}`),
+        body: { body: `Edited by ${actor}` },
+        unchanged: async () => expect(await entryBodies(world)).not.toContain(`Edited by ${actor}`),
+      };
+    },
+    expected: statuses(401, 404, 403, 403, 200, 200, 200),
+  },
+  {
+    method: 'DELETE',
+    route: '/api/studies/[studyId]/entries/[entryId]',
+    call: async (world, actor) => {
+      const body = `Keep unless deleted by ${actor}`;
+      const entry = await newNote(world.people.owner.client, world.studyId, body);
+      return {
+        path: inStudy(world, `/entries/${entry}`),
+        unchanged: async () => expect(await entryBodies(world)).toContain(body),
+      };
+    },
+    expected: statuses(401, 404, 403, 403, 204, 204, 204),
+  },
+];
+
+let world: World;
+
+beforeAll(async () => {
+  const server = await startTestServer();
+  const people = {
+    owner: await newPerson(server, 'owner'),
+    viewer: await newPerson(server, 'viewer'),
+    commenter: await newPerson(server, 'commenter'),
+    editor: await newPerson(server, 'editor'),
+  };
+  const outsider = await newPerson(server, 'non-member');
+  const adminClient = await signIn(server.baseUrl, server.credentials.admin.email, server.credentials.admin.password);
+  const studyId = await newStudy(people.owner.client, 'Matrix study');
+  for (const role of ['viewer', 'commenter', 'editor'] as const) {
+    await addMember(people.owner.client, studyId, people[role].email, role);
+  }
+  world = {
+    server,
+    studyId,
+    people,
+    clients: {
+      anonymous: new Client(server.baseUrl),
+      nonMember: outsider.client,
+      viewer: people.viewer.client,
+      commenter: people.commenter.client,
+      editor: people.editor.client,
+      owner: people.owner.client,
+      admin: adminClient,
+    },
+  };
+});
+afterAll(() => world?.server.stop());
+
+describe.each(ROWS)('$method $route', (row) => {
+  it.each(ACTORS)('as %s', async (actor) => {
+    const call = await row.call(world, actor);
+    const response = await world.clients[actor].send(row.method, call.path, { body: call.body });
+    expect(response.status, `${row.method} ${call.path} as ${actor}: ${response.text.slice(0, 300)}`).toBe(
+      row.expected[actor],
+    );
+    if (response.status >= 400) {
+      if (row.route.startsWith('/api/') && !row.route.startsWith('/api/auth/')) {
+        expect(response.body.error.code).toEqual(expect.any(String));
+      }
+      await call.unchanged?.();
+    }
+  });
+});
+
+describe('coverage of the table', () => {
+  it('has a row for every route and method under app/api, and no row for anything else', () => {
+    const inTable = ROWS.map((row) => `${row.method} ${row.route}`).sort();
+    expect(inTable).toEqual(apiRouteMethods().sort());
+  });
+
+  it('names no route and method twice', () => {
+    const keys = ROWS.map((row) => `${row.method} ${row.route}`);
+    expect(new Set(keys).size).toBe(keys.length);
+  });
+});

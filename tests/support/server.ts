@@ -1,0 +1,211 @@
+// A real Splitfield server for tests: the built app under `next start`, on a free local port, with its own
+// temporary storage and database, prepared exactly as `npm start` prepares them. Plus a cookie-keeping client
+// that signs in through next-auth's credentials form.
+import { spawn } from 'node:child_process';
+import { existsSync, mkdtempSync, rmSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { createServer } from 'node:net';
+import os from 'node:os';
+import path from 'node:path';
+import { readConfig } from '@/lib/config';
+import type { DemoAccount } from '@/lib/seed';
+import { prepareStorage } from '@/scripts/prepare-storage';
+
+const repoRoot = path.resolve(__dirname, '..', '..');
+const READY_TIMEOUT_MS = 60_000;
+
+export interface TestServer {
+  baseUrl: string;
+  storageDir: string;
+  databasePath: string;
+  /** The demo accounts the first start made: the site admin and the two members. */
+  credentials: { admin: DemoAccount; members: DemoAccount[] };
+  /** What the server printed so far, for failure messages. */
+  output(): string;
+  stop(): Promise<void>;
+}
+
+export interface TestServerOptions {
+  /** The build to serve; defaults to $NEXT_DIST_DIR, else `.next` (what `npm run build` makes). */
+  distDir?: string;
+  env?: Record<string, string>;
+}
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const probe = createServer();
+    probe.once('error', reject);
+    probe.listen(0, '127.0.0.1', () => {
+      const address = probe.address();
+      probe.close(() => (typeof address === 'object' && address ? resolve(address.port) : reject(new Error('no port'))));
+    });
+  });
+}
+
+async function waitUntilReady(baseUrl: string, exited: () => boolean, output: () => string): Promise<void> {
+  const deadline = Date.now() + READY_TIMEOUT_MS;
+  while (Date.now() < deadline) {
+    if (exited()) throw new Error(`The test server exited while starting:\n${output()}`);
+    try {
+      const response = await fetch(`${baseUrl}/api/auth/csrf`);
+      if (response.ok) return;
+    } catch {
+      // Not listening yet.
+    }
+    await new Promise((resolve) => setTimeout(resolve, 100));
+  }
+  throw new Error(`The test server did not answer within ${READY_TIMEOUT_MS} ms:\n${output()}`);
+}
+
+export async function startTestServer(options: TestServerOptions = {}): Promise<TestServer> {
+  const distDir = path.resolve(repoRoot, options.distDir ?? process.env.NEXT_DIST_DIR ?? '.next');
+  if (!existsSync(path.join(distDir, 'BUILD_ID'))) {
+    throw new Error(`No build in ${distDir}: run "npm run build" first (with the same NEXT_DIST_DIR).`);
+  }
+  const storageDir = mkdtempSync(path.join(os.tmpdir(), 'splitfield-test-'));
+  const config = readConfig({ SPLITFIELD_STORAGE: storageDir });
+  const prepared = await prepareStorage(config, {});
+  const accounts = prepared.demoAccounts ?? [];
+  const admin = accounts.find((account) => account.siteRole === 'admin');
+  if (!admin) throw new Error('The seed made no admin account.');
+
+  const port = await freePort();
+  const baseUrl = `http://127.0.0.1:${port}`;
+  const nextBin = createRequire(__filename).resolve('next/dist/bin/next');
+  const child = spawn(process.execPath, [nextBin, 'start', '-H', '127.0.0.1', '-p', String(port)], {
+    cwd: repoRoot,
+    env: {
+      ...process.env,
+      NEXT_TELEMETRY_DISABLED: '1',
+      NEXT_DIST_DIR: path.relative(repoRoot, distDir),
+      SPLITFIELD_STORAGE: storageDir,
+      SPLITFIELD_DB: config.databasePath,
+      NEXTAUTH_SECRET: prepared.secret,
+      NEXTAUTH_URL: baseUrl,
+      ...options.env,
+    },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
+  let printed = '';
+  child.stdout.on('data', (chunk) => (printed += chunk));
+  child.stderr.on('data', (chunk) => (printed += chunk));
+  let exited = false;
+  const exit = new Promise<void>((resolve) => child.once('exit', () => resolve()));
+  void exit.then(() => (exited = true));
+
+  const stop = async () => {
+    if (!exited) {
+      child.kill('SIGTERM');
+      const forced = setTimeout(() => child.kill('SIGKILL'), 10_000);
+      await exit;
+      clearTimeout(forced);
+    }
+    rmSync(storageDir, { recursive: true, force: true });
+  };
+  try {
+    await waitUntilReady(baseUrl, () => exited, () => printed);
+  } catch (error) {
+    await stop();
+    throw error;
+  }
+  return {
+    baseUrl,
+    storageDir,
+    databasePath: config.databasePath,
+    credentials: { admin, members: accounts.filter((account) => account !== admin) },
+    output: () => printed,
+    stop,
+  };
+}
+
+export interface ApiResponse<T = any> {
+  status: number;
+  headers: Headers;
+  /** The parsed JSON body; null when the body is empty or not JSON. */
+  body: T;
+  text: string;
+}
+
+/** A browser-like client: keeps the cookies the server sets and sends them back. */
+export class Client {
+  private readonly cookies = new Map<string, string>();
+
+  constructor(readonly baseUrl: string) {}
+
+  /** The cookies held, e.g. to hand a signed-in session to a browser context. */
+  cookieList(): { name: string; value: string }[] {
+    return [...this.cookies].map(([name, value]) => ({ name, value }));
+  }
+
+  /** Sends `body` as JSON, or `rawBody` as it is (with a JSON content type). */
+  async send(
+    method: string,
+    pathname: string,
+    options: { body?: unknown; rawBody?: string; form?: Record<string, string> } = {},
+  ): Promise<ApiResponse> {
+    const headers: Record<string, string> = {};
+    if (this.cookies.size > 0) headers.cookie = [...this.cookies].map(([name, value]) => `${name}=${value}`).join('; ');
+    let payload: string | undefined;
+    if (options.form) {
+      headers['content-type'] = 'application/x-www-form-urlencoded';
+      payload = new URLSearchParams(options.form).toString();
+    } else if (options.rawBody !== undefined || options.body !== undefined) {
+      headers['content-type'] = 'application/json';
+      payload = options.rawBody ?? JSON.stringify(options.body);
+    }
+    const response = await fetch(new URL(pathname, this.baseUrl), { method, headers, body: payload, redirect: 'manual' });
+    this.keepCookies(response.headers);
+    const text = await response.text();
+    let body = null;
+    try {
+      body = text ? JSON.parse(text) : null;
+    } catch {
+      // Not JSON (a page, a redirect): callers read `text`.
+    }
+    return { status: response.status, headers: response.headers, body, text };
+  }
+
+  get(pathname: string) {
+    return this.send('GET', pathname);
+  }
+  post(pathname: string, body?: unknown) {
+    return this.send('POST', pathname, { body });
+  }
+  patch(pathname: string, body?: unknown) {
+    return this.send('PATCH', pathname, { body });
+  }
+  delete(pathname: string) {
+    return this.send('DELETE', pathname);
+  }
+
+  private keepCookies(headers: Headers): void {
+    for (const line of headers.getSetCookie()) {
+      const [pair, ...attributes] = line.split(';');
+      const separator = pair.indexOf('=');
+      const name = pair.slice(0, separator).trim();
+      const value = pair.slice(separator + 1).trim();
+      const expired = attributes.some((attribute) => /^\s*max-age=0\s*$/i.test(attribute)) || value === '';
+      if (expired) this.cookies.delete(name);
+      else this.cookies.set(name, value);
+    }
+  }
+}
+
+/**
+ * Signs in with e-mail and password through next-auth's credentials form (csrf token included).
+ * Returns the response of the sign-in post; on success (status 200) the client holds the session cookie.
+ */
+export async function postSignIn(client: Client, email: string, password: string): Promise<ApiResponse> {
+  const csrf = await client.get('/api/auth/csrf');
+  return client.send('POST', '/api/auth/callback/credentials', {
+    form: { csrfToken: csrf.body.csrfToken, email, password, json: 'true', callbackUrl: client.baseUrl },
+  });
+}
+
+/** A client signed in as this user; throws when the server refuses. */
+export async function signIn(baseUrl: string, email: string, password: string): Promise<Client> {
+  const client = new Client(baseUrl);
+  const response = await postSignIn(client, email, password);
+  if (response.status !== 200) throw new Error(`Sign-in of ${email} failed: ${response.status} ${response.text}`);
+  return client;
+}
