@@ -40,8 +40,9 @@ async function answer(work: () => Promise<Response>): Promise<Response> {
     return await work();
   } catch (error) {
     if (error instanceof ApiError) return error.toResponse();
-    // Two requests raced past the explicit duplicate check; the unique index kept the data right.
-    if (error instanceof UniqueConstraintError) {
+    // Two requests raced past the explicit duplicate check; the unique index kept the data right. (SQLite
+    // reports other constraint failures with the same class, but without the offending fields.)
+    if (error instanceof UniqueConstraintError && error.errors.length > 0) {
       return conflict('conflict', 'This already exists; reload and try again.').toResponse();
     }
     console.error('[api] unexpected error', error);

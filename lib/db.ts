@@ -6,6 +6,12 @@ import { readConfig } from './config';
 export interface Database {
   sequelize: Sequelize;
   models: Models;
+  /**
+   * Runs `work` in one transaction that holds the write lock from its start. Every write goes through here:
+   * writes of one process take turns, because a writer waiting on SQLite's busy timeout blocks one of libuv's
+   * four threads, and a few of them at once would starve the writer they wait for.
+   */
+  write<T>(work: (transaction: Transaction) => Promise<T>): Promise<T>;
 }
 
 const CONNECTION_PRAGMAS = [
@@ -42,7 +48,13 @@ export function openDatabase(databasePath: string): Database {
     // IMMEDIATE takes the write lock at BEGIN, so two writers wait on busy_timeout instead of deadlocking.
     transactionType: Transaction.TYPES.IMMEDIATE,
   });
-  return { sequelize, models: defineModels(sequelize) };
+  let turn: Promise<unknown> = Promise.resolve();
+  const write = <T>(work: (transaction: Transaction) => Promise<T>): Promise<T> => {
+    const result = turn.then(() => sequelize.transaction(work));
+    turn = result.catch(() => undefined);
+    return result;
+  };
+  return { sequelize, models: defineModels(sequelize), write };
 }
 
 const processWideKey = Symbol.for('splitfield.database');

@@ -41,8 +41,8 @@ export function demoCredentialsText(accounts: DemoAccount[]): string {
  * database already had users, so it runs once however often the server starts.
  */
 export async function seedOnce(database: Database, storageDir: string): Promise<DemoAccount[] | null> {
-  const { sequelize, models } = database;
-  return sequelize.transaction(async (transaction) => {
+  const { models, write } = database;
+  return write(async (transaction) => {
     if ((await models.User.count({ transaction })) > 0) return null;
     const accounts = DEMO_PEOPLE.map((person) => ({ ...person, password: randomBytes(12).toString('base64url') }));
     const study = await models.Study.create(DEMO_STUDY, { transaction });

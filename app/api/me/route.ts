@@ -5,6 +5,7 @@ import { atLeastOneField, passwordSchema, userNameSchema } from '@/lib/api-schem
 import { readJsonBody } from '@/lib/api-validation';
 import { userView } from '@/lib/api-views';
 import { hashPassword, passwordMatches } from '@/lib/auth-password';
+import { db } from '@/lib/db';
 
 export const dynamic = 'force-dynamic';
 export const runtime = 'nodejs';
@@ -31,6 +32,6 @@ export const PATCH = signedInRoute({}, async ({ request, user }) => {
     user.passwordHash = await hashPassword(change.newPassword);
   }
   if (change.name !== undefined) user.name = change.name;
-  await user.save();
+  await db().write((transaction) => user.save({ transaction }));
   return json({ user: userView(user) });
 });

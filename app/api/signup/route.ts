@@ -23,14 +23,13 @@ export const GET = publicRoute(async () => json({ openSignup: await openSignup()
 export const POST = publicRoute(async (request) => {
   const input = await readJsonBody(request, signupSchema);
   if (!(await openSignup())) throw forbidden('Sign-up is closed on this server; ask an admin for an account.');
-  const { User } = db().models;
-  if (await User.findOne({ where: { email: input.email } })) {
-    throw conflict('email_taken', `An account with the e-mail ${input.email} already exists.`);
-  }
-  const user = await User.create({
-    name: input.name,
-    email: input.email,
-    passwordHash: await hashPassword(input.password),
+  const passwordHash = await hashPassword(input.password);
+  const { models, write } = db();
+  const user = await write(async (transaction) => {
+    if (await models.User.findOne({ where: { email: input.email }, transaction })) {
+      throw conflict('email_taken', `An account with the e-mail ${input.email} already exists.`);
+    }
+    return models.User.create({ name: input.name, email: input.email, passwordHash }, { transaction });
   });
   return json({ user: userView(user) }, 201);
 });

@@ -46,8 +46,8 @@ export const GET = signedInRoute({}, async ({ user }) => {
 
 export const POST = signedInRoute({}, async ({ request, user }) => {
   const input = await readJsonBody(request, newStudySchema);
-  const { sequelize, models } = db();
-  const study = await sequelize.transaction(async (transaction) => {
+  const { models, write } = db();
+  const study = await write(async (transaction) => {
     const created = await models.Study.create(input, { transaction });
     await models.Membership.create({ studyId: created.id, userId: user.id, role: 'owner' }, { transaction });
     return created;

@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { json, signedInRoute } from '@/lib/api';
 import { readJsonBody } from '@/lib/api-validation';
 import { siteSettings } from '@/lib/api-settings';
+import { db } from '@/lib/db';
 
 export const dynamic = 'force-dynamic';
 export const runtime = 'nodejs';
@@ -18,6 +19,6 @@ export const GET = signedInRoute({ adminOnly: true }, async () => {
 export const PATCH = signedInRoute({ adminOnly: true }, async ({ request }) => {
   const change = await readJsonBody(request, settingsSchema);
   const settings = await siteSettings();
-  await settings.update(change);
+  await db().write((transaction) => settings.update(change, { transaction }));
   return json({ openSignup: settings.openSignup });
 });

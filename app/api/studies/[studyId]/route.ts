@@ -5,6 +5,7 @@ import { studyEntries, studyMembers } from '@/lib/api-studies';
 import { readJsonBody } from '@/lib/api-validation';
 import { studyView } from '@/lib/api-views';
 import { studyAccess } from '@/lib/authz';
+import { db } from '@/lib/db';
 
 export const dynamic = 'force-dynamic';
 export const runtime = 'nodejs';
@@ -25,13 +26,13 @@ export const GET = signedInRoute({ params }, async ({ params, user }) => {
 export const PATCH = signedInRoute({ params }, async ({ request, params, user }) => {
   const { study } = await studyAccess(user, params.studyId, 'editor');
   const change = await readJsonBody(request, studyChangeSchema);
-  await study.update(change);
+  await db().write((transaction) => study.update(change, { transaction }));
   return json({ study: studyView(study) });
 });
 
 /** Deletes the study with its members and entries (the foreign keys cascade). */
 export const DELETE = signedInRoute({ params }, async ({ params, user }) => {
   const { study } = await studyAccess(user, params.studyId, 'owner');
-  await study.destroy();
+  await db().write((transaction) => study.destroy({ transaction }));
   return noContent();
 });

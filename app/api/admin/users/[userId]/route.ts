@@ -31,7 +31,7 @@ export const PATCH = signedInRoute(
       // Ends the sessions issued before, so enabling the account again does not bring them back.
       user.sessionVersion += 1;
     }
-    await user.save();
+    await db().write((transaction) => user.save({ transaction }));
     return json({ user: adminUserView(user) });
   },
 );

@@ -27,8 +27,8 @@ export const GET = signedInRoute({ params }, async ({ params, user }) => {
 export const POST = signedInRoute({ params }, async ({ request, params, user }) => {
   const { study } = await studyAccess(user, params.studyId, 'editor');
   const input = await readJsonBody(request, newEntrySchema);
-  const { sequelize, models } = db();
-  const entry = await sequelize.transaction(async (transaction) => {
+  const { models, write } = db();
+  const entry = await write(async (transaction) => {
     const position = await models.Entry.count({ where: { studyId: study.id }, transaction });
     const created = await models.Entry.create(
       { ...input, studyId: study.id, position, createdById: user.id, updatedById: user.id },

@@ -18,8 +18,8 @@ export const POST = signedInRoute(
   async ({ request, params, user }) => {
     const { study } = await studyAccess(user, params.studyId, 'owner');
     const input = await readJsonBody(request, newMemberSchema);
-    const { sequelize, models } = db();
-    const member = await sequelize.transaction(async (transaction) => {
+    const { models, write } = db();
+    const member = await write(async (transaction) => {
       const invited = await models.User.findOne({ where: { email: input.email }, transaction });
       if (!invited) throw notFound(`No user with the e-mail ${input.email}; they need an account first.`);
       const existing = await models.Membership.findOne({

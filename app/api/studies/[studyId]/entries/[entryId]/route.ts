@@ -33,7 +33,7 @@ async function studyEntry(studyId: number, entryId: number, transaction: Transac
 export const PATCH = signedInRoute({ params }, async ({ request, params, user }) => {
   const { study } = await studyAccess(user, params.studyId, 'editor');
   const { position, ...content } = await readJsonBody(request, entryChangeSchema);
-  const updated = await db().sequelize.transaction(async (transaction) => {
+  const updated = await db().write(async (transaction) => {
     const entry = await studyEntry(study.id, params.entryId, transaction);
     await entry.update({ ...content, updatedById: user.id }, { transaction });
     if (position !== undefined) {
@@ -49,7 +49,7 @@ export const PATCH = signedInRoute({ params }, async ({ request, params, user })
 /** Removes the entry and closes the gap it leaves in the list. */
 export const DELETE = signedInRoute({ params }, async ({ params, user }) => {
   const { study } = await studyAccess(user, params.studyId, 'editor');
-  await db().sequelize.transaction(async (transaction) => {
+  await db().write(async (transaction) => {
     const entry = await studyEntry(study.id, params.entryId, transaction);
     await entry.destroy({ transaction });
     await renumberEntries(study.id, await entryOrder(study.id, transaction), transaction);

@@ -44,7 +44,7 @@ async function changeableMembership(
 export const PATCH = signedInRoute({ params }, async ({ request, params, user }) => {
   const { study } = await studyAccess(user, params.studyId, 'owner');
   const { role } = await readJsonBody(request, roleChangeSchema);
-  const member = await db().sequelize.transaction(async (transaction) => {
+  const member = await db().write(async (transaction) => {
     const membership = await changeableMembership(study.id, params.userId, role, transaction);
     await membership.update({ role }, { transaction });
     await touchStudy(study.id, transaction);
@@ -55,7 +55,7 @@ export const PATCH = signedInRoute({ params }, async ({ request, params, user })
 
 export const DELETE = signedInRoute({ params }, async ({ params, user }) => {
   const { study } = await studyAccess(user, params.studyId, 'owner');
-  await db().sequelize.transaction(async (transaction) => {
+  await db().write(async (transaction) => {
     const membership = await changeableMembership(study.id, params.userId, null, transaction);
     await membership.destroy({ transaction });
     await touchStudy(study.id, transaction);
