@@ -68,3 +68,15 @@ export function field(data: FormData, name: string, trim = true): string {
   if (typeof value !== 'string') return '';
   return trim ? value.trim() : value;
 }
+
+/** Submit and Cancel side by side, for forms that open in place. */
+export function SubmitOrCancel({ label, pendingLabel, onCancel }: { label: string; pendingLabel?: string; onCancel: () => void }) {
+  return (
+    <div className="flex gap-2">
+      <SubmitButton pendingLabel={pendingLabel}>{label}</SubmitButton>
+      <Button variant="ghost" onClick={onCancel}>
+        Cancel
+      </Button>
+    </div>
+  );
+}

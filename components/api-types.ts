@@ -1,18 +1,18 @@
 // Shapes of the API responses the pages read (see the API contract of issue 2).
 
-export type SiteRole = 'admin' | 'member';
-export type StudyRole = 'owner' | 'editor' | 'commenter' | 'viewer';
-export const STUDY_ROLES: StudyRole[] = ['owner', 'editor', 'commenter', 'viewer'];
+import type { SiteRole, StudyRole } from '@/models/vocabulary';
+
+export type { SiteRole, StudyRole };
 
 export interface Me {
-  id: string;
+  id: number;
   name: string;
   email: string;
   siteRole: SiteRole;
 }
 
 export interface StudySummary {
-  id: string;
+  id: number;
   title: string;
   description: string | null;
   myRole: StudyRole | null;
@@ -21,32 +21,40 @@ export interface StudySummary {
   updatedAt: string;
 }
 
+export interface Author {
+  id: number;
+  name: string;
+}
+
 export interface Entry {
-  id: string;
+  id: number;
   kind: string;
   position: number;
-  title: string | null;
+  title: string;
   body: string;
-  createdBy: unknown;
+  /** null once the author's account is gone. */
+  createdBy: Author | null;
+  updatedBy: Author | null;
+  createdAt: string;
   updatedAt: string;
 }
 
 export interface Member {
-  userId: string;
+  userId: number;
   name: string;
   email: string;
   role: StudyRole;
 }
 
 export interface StudyDetail {
-  study: { id: string; title: string; description: string | null; createdAt: string; updatedAt: string };
+  study: { id: number; title: string; description: string | null; createdAt: string; updatedAt: string };
   myRole: StudyRole | null;
   entries: Entry[];
   members: Member[];
 }
 
 export interface AdminUser {
-  id: string;
+  id: number;
   name: string;
   email: string;
   siteRole: SiteRole;

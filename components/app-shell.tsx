@@ -32,18 +32,20 @@ function TopBar({ me }: { me: Me }) {
   );
 }
 
-/** Wide screens: a fixed column on the left. */
+/** Wide screens: a column on the left whose contents stay in view while the page scrolls. */
 function SideBar({ me }: { me: Me }) {
   return (
-    <aside className="sticky top-0 hidden h-screen w-60 shrink-0 flex-col border-r border-ink/10 bg-paper-raised px-3 py-5 md:flex">
-      <div className="px-2 pb-6">
-        <BrandMark />
-      </div>
-      <div className="flex-1">
-        <NavLinks me={me} />
-      </div>
-      <UserBox me={me} />
-    </aside>
+    <div className="hidden w-60 shrink-0 border-r border-ink/10 bg-paper-raised md:block">
+      <aside className="sticky top-0 flex h-screen flex-col px-3 py-5">
+        <div className="px-2 pb-6">
+          <BrandMark />
+        </div>
+        <div className="flex-1">
+          <NavLinks me={me} />
+        </div>
+        <UserBox me={me} />
+      </aside>
+    </div>
   );
 }
 

@@ -1,9 +1,14 @@
 import { useId, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes, type TextareaHTMLAttributes } from 'react';
 
-export const controlClass =
-  'block w-full rounded-md border border-ink/20 bg-paper-raised px-3 py-2 text-sm text-ink ' +
-  'placeholder:text-ink-faint focus:border-accent focus:outline-none focus:ring-2 focus:ring-accent/25 ' +
-  'disabled:bg-paper-sunk disabled:text-ink-soft';
+const controlLook =
+  'rounded-md border border-ink/20 bg-paper-raised text-sm text-ink placeholder:text-ink-faint ' +
+  'focus:border-accent focus:outline-none focus:ring-2 focus:ring-accent/25 disabled:bg-paper-sunk disabled:text-ink-soft';
+
+/** A full-width input, textarea or select. */
+export const controlClass = `${controlLook} block w-full px-3 py-2`;
+
+/** A small select that sits in a row of a list or table. */
+export const inlineSelectClass = `${controlLook} h-8 px-2`;
 
 interface LabelProps {
   label: string;

@@ -20,7 +20,7 @@ export function SignupSetting() {
 
   return (
     <Panel title="Sign-up" className="mb-6">
-      <label className="flex cursor-pointer items-start gap-3">
+      <label className="relative flex cursor-pointer items-start gap-3">
         <input
           type="checkbox"
           role="switch"

@@ -12,17 +12,17 @@ import { PageHeader } from '../page-header';
 import { SignupSetting } from './signup-setting';
 import { UserRow } from './user-row';
 
-const headCell = 'px-4 py-2.5 text-left text-xs font-medium uppercase tracking-wider text-ink-soft';
+const headCell = 'px-3 py-2.5 text-left text-xs font-medium uppercase tracking-wider text-ink-soft sm:px-4';
 
-function UserTable({ users, myId, onChanged }: { users: AdminUser[]; myId: string; onChanged: () => Promise<unknown> }) {
+function UserTable({ users, myId, onChanged }: { users: AdminUser[]; myId: number; onChanged: () => Promise<unknown> }) {
   return (
-    <div className="overflow-x-auto rounded-lg border border-ink/10 bg-paper-raised">
-      <table className="w-full min-w-[36rem] divide-y divide-ink/10">
+    <div className="relative overflow-x-auto rounded-lg border border-ink/10 bg-paper-raised">
+      <table className="w-full divide-y divide-ink/10">
         <thead className="bg-paper-sunk/60">
           <tr>
             <th className={headCell}>User</th>
             <th className={headCell}>Site role</th>
-            <th className={headCell}>Status</th>
+            <th className={`${headCell} hidden sm:table-cell`}>Status</th>
             <th className={`${headCell} hidden md:table-cell`}>Joined</th>
             <th className={headCell}>
               <span className="sr-only">Actions</span>
@@ -31,7 +31,7 @@ function UserTable({ users, myId, onChanged }: { users: AdminUser[]; myId: strin
         </thead>
         <tbody className="divide-y divide-ink/10">
           {users.map((user) => (
-            <UserRow key={user.id} user={user} isMe={String(user.id) === String(myId)} onChanged={onChanged} />
+            <UserRow key={user.id} user={user} isMe={user.id === myId} onChanged={onChanged} />
           ))}
         </tbody>
       </table>

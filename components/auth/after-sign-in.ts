@@ -12,12 +12,16 @@ export function safeReturnPath(callbackUrl: string | undefined): string {
   }
 }
 
+// next-auth reports a failed sign-in as a code; these are the ones the credentials check gives.
+const signInMessages: Record<string, string> = {
+  CredentialsSignin: 'Wrong email or password. Check both and try again.',
+  AccountDisabled: 'This account is disabled. Ask an admin of this server to enable it.',
+};
+
 /** Signs in with next-auth's credentials provider; throws an Error with a message fit to show. */
 export async function signInWithPassword(email: string, password: string): Promise<void> {
   const result = await signIn('credentials', { email, password, redirect: false });
   if (result?.ok && !result.error) return;
-  if (!result?.error || result.error === 'CredentialsSignin') {
-    throw new Error('Wrong email or password. Check both and try again.');
-  }
-  throw new Error(result.error);
+  const code = result?.error ?? 'CredentialsSignin';
+  throw new Error(signInMessages[code] ?? `Sign-in failed (${code}).`);
 }

@@ -3,7 +3,7 @@
 import { sendJson } from '@/lib/fetcher';
 import type { Member, StudyRole } from '../api-types';
 import { ConfirmButton } from '../confirm-button';
-import { controlClass } from '../fields';
+import { inlineSelectClass } from '../fields';
 import { Notice } from '../notice';
 import { RoleBadge } from '../role-badge';
 import { useAction } from '../use-action';
@@ -51,7 +51,7 @@ export function MemberRow({ studyId, member, isMe, canManage, onChanged }: Membe
             value={member.role}
             disabled={changeRole.pending}
             onChange={(event) => changeRole.run(event.target.value as StudyRole)}
-            className={`${controlClass} h-8 w-auto py-0`}
+            className={inlineSelectClass}
           >
             <RoleOptions />
           </select>

@@ -9,7 +9,7 @@ import { MemberRow } from './member-row';
 interface MembersPanelProps {
   studyId: string;
   members: Member[];
-  myId: string;
+  myId: number;
   canManage: boolean;
   onChanged: () => Promise<unknown>;
 }
@@ -24,7 +24,7 @@ export function MembersPanel({ studyId, members, myId, canManage, onChanged }: M
             key={member.userId}
             studyId={studyId}
             member={member}
-            isMe={String(member.userId) === String(myId)}
+            isMe={member.userId === myId}
             canManage={canManage}
             onChanged={onChanged}
           />

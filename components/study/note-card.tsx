@@ -42,7 +42,7 @@ export function NoteCard({ entry, actions }: { entry: Entry; actions?: NoteActio
   if (editing && actions) {
     return (
       <NoteEditor
-        initial={{ title: entry.title ?? '', body: entry.body }}
+        initial={{ title: entry.title, body: entry.body }}
         submitLabel="Save note"
         onSave={async (draft) => {
           await actions.save(draft);
@@ -55,23 +55,29 @@ export function NoteCard({ entry, actions }: { entry: Entry; actions?: NoteActio
 
   return (
     <article className="rounded-lg border border-ink/10 bg-paper-raised" aria-label={entry.title || 'Note'}>
-      <div className="px-5 pt-4 pb-5">
-        {entry.title && <h2 className="mb-2 text-lg font-semibold tracking-tight break-words">{entry.title}</h2>}
+      <header className="flex flex-wrap items-center gap-x-3 gap-y-1 border-b border-ink/10 px-5 py-3">
+        <span className="rounded bg-accent-soft/70 px-1.5 py-0.5 text-[0.65rem] font-semibold uppercase tracking-wider text-accent-strong">
+          Note
+        </span>
+        {entry.title && <h2 className="min-w-0 flex-1 font-semibold tracking-tight break-words">{entry.title}</h2>}
+        <span className="ml-auto text-xs text-ink-faint">
+          {formatDateTime(entry.updatedAt)}
+          {entry.updatedBy && ` · ${entry.updatedBy.name}`}
+        </span>
+      </header>
+      <div className="px-5 py-4">
         <MarkdownView source={entry.body} />
       </div>
-      <footer className="flex flex-wrap items-center gap-x-3 gap-y-2 border-t border-ink/10 px-5 py-2.5">
-        <span className="mr-auto text-xs text-ink-faint">Note · updated {formatDateTime(entry.updatedAt)}</span>
-        {actions && (
-          <div className="flex flex-wrap items-center gap-1.5">
-            <Button size="sm" variant="ghost" onClick={() => setEditing(true)}>
-              Edit
-            </Button>
-            <MoveButton label="Move up" glyph="↑" step={actions.moveUp} busy={move.pending} onMove={move.run} />
-            <MoveButton label="Move down" glyph="↓" step={actions.moveDown} busy={move.pending} onMove={move.run} />
-            <ConfirmButton label="Delete" question="Delete this note?" confirmLabel="Delete note" onConfirm={actions.remove} />
-          </div>
-        )}
-      </footer>
+      {actions && (
+        <footer className="flex flex-wrap items-center justify-end gap-1.5 border-t border-ink/10 px-5 py-2">
+          <Button size="sm" variant="ghost" onClick={() => setEditing(true)}>
+            Edit
+          </Button>
+          <MoveButton label="Move up" glyph="↑" step={actions.moveUp} busy={move.pending} onMove={move.run} />
+          <MoveButton label="Move down" glyph="↓" step={actions.moveDown} busy={move.pending} onMove={move.run} />
+          <ConfirmButton label="Delete" question="Delete this note?" confirmLabel="Delete note" onConfirm={actions.remove} />
+        </footer>
+      )}
       {move.error && (
         <div className="px-5 pb-3">
           <Notice tone="error">{move.error}</Notice>

@@ -1,7 +1,8 @@
 'use client';
 
 import { useId, useState } from 'react';
-import { ActionForm, field, SubmitButton } from '../action-form';
+import { ENTRY_TITLE_MAX, NOTE_BODY_MAX } from '@/models/vocabulary';
+import { ActionForm, field, SubmitOrCancel } from '../action-form';
 import { Button } from '../button';
 import { controlClass, TextField } from '../fields';
 import { MarkdownView } from '../markdown-view';
@@ -30,7 +31,7 @@ export function NoteEditor({ initial = { title: '', body: '' }, submitLabel, onS
       onSubmit={(data) => onSave({ title: field(data, 'title'), body })}
       className="space-y-3 rounded-lg border border-accent/40 bg-paper-raised p-4 shadow-sm"
     >
-      <TextField label="Title" name="title" defaultValue={initial.title} maxLength={200} placeholder="Optional" />
+      <TextField label="Title" name="title" defaultValue={initial.title} maxLength={ENTRY_TITLE_MAX} placeholder="Optional" />
       <div className="space-y-1.5">
         <div className="flex items-center justify-between">
           <label htmlFor={bodyId} className="text-sm font-medium">
@@ -51,6 +52,7 @@ export function NoteEditor({ initial = { title: '', body: '' }, submitLabel, onS
             value={body}
             onChange={(event) => setBody(event.target.value)}
             rows={8}
+            maxLength={NOTE_BODY_MAX}
             required
             className={`${controlClass} font-mono`}
             placeholder={'## Observations\nWrite in Markdown: headings, lists, links, tables, `code`.'}
@@ -58,12 +60,7 @@ export function NoteEditor({ initial = { title: '', body: '' }, submitLabel, onS
         )}
         <p className="text-xs text-ink-soft">Markdown. HTML tags are shown as text, never run.</p>
       </div>
-      <div className="flex gap-2">
-        <SubmitButton>{submitLabel}</SubmitButton>
-        <Button variant="ghost" onClick={onCancel}>
-          Cancel
-        </Button>
-      </div>
+      <SubmitOrCancel label={submitLabel} onCancel={onCancel} />
     </ActionForm>
   );
 }

@@ -1,6 +1,6 @@
-import { STUDY_ROLES } from '../api-types';
+import { STUDY_ROLES } from '@/models/vocabulary';
 
-/** The <option>s of a study-role select. */
+/** The <option>s of a study-role select, weakest role first. */
 export function RoleOptions() {
   return STUDY_ROLES.map((role) => (
     <option key={role} value={role}>

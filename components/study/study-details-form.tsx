@@ -1,9 +1,8 @@
 'use client';
 
 import { sendJson } from '@/lib/fetcher';
-import { ActionForm, field, SubmitButton } from '../action-form';
-import { Button } from '../button';
-import { TextArea, TextField } from '../fields';
+import { ActionForm, SubmitOrCancel } from '../action-form';
+import { readStudyFields, StudyFields } from '../studies/study-fields';
 
 interface StudyDetailsFormProps {
   studyId: string;
@@ -16,19 +15,13 @@ interface StudyDetailsFormProps {
 /** Renames a study and edits its description. */
 export function StudyDetailsForm({ studyId, title, description, onSaved, onCancel }: StudyDetailsFormProps) {
   async function submit(data: FormData) {
-    await sendJson('PATCH', `/api/studies/${studyId}`, { title: field(data, 'title'), description: field(data, 'description') });
+    await sendJson('PATCH', `/api/studies/${studyId}`, readStudyFields(data));
     await onSaved();
   }
   return (
     <ActionForm onSubmit={submit} aria-label="Study details" className="space-y-3 rounded-lg border border-accent/40 bg-paper-raised p-4">
-      <TextField label="Title" name="title" defaultValue={title} required maxLength={200} autoFocus />
-      <TextArea label="Description" name="description" defaultValue={description ?? ''} rows={2} />
-      <div className="flex gap-2">
-        <SubmitButton>Save</SubmitButton>
-        <Button variant="ghost" onClick={onCancel}>
-          Cancel
-        </Button>
-      </div>
+      <StudyFields title={title} description={description ?? ''} />
+      <SubmitOrCancel label="Save" onCancel={onCancel} />
     </ActionForm>
   );
 }

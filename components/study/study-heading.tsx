@@ -9,6 +9,7 @@ import { RoleBadge } from '../role-badge';
 import { StudyDetailsForm } from './study-details-form';
 
 interface StudyHeadingProps {
+  studyId: string;
   study: StudyDetail['study'];
   myRole: StudyRole | null;
   canEdit: boolean;
@@ -16,7 +17,7 @@ interface StudyHeadingProps {
 }
 
 /** Title, description and the reader's role; editors can rename the study here. */
-export function StudyHeading({ study, myRole, canEdit, onChanged }: StudyHeadingProps) {
+export function StudyHeading({ studyId, study, myRole, canEdit, onChanged }: StudyHeadingProps) {
   const [editing, setEditing] = useState(false);
 
   return (
@@ -26,7 +27,7 @@ export function StudyHeading({ study, myRole, canEdit, onChanged }: StudyHeading
       </Link>
       {editing ? (
         <StudyDetailsForm
-          studyId={study.id}
+          studyId={studyId}
           title={study.title}
           description={study.description}
           onSaved={async () => {

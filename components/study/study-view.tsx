@@ -39,7 +39,7 @@ export function StudyView({ studyId }: { studyId: string }) {
   return (
     <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_18rem]">
       <div className="min-w-0">
-        <StudyHeading study={data.study} myRole={data.myRole} canEdit={canEdit} onChanged={mutate} />
+        <StudyHeading studyId={studyId} study={data.study} myRole={data.myRole} canEdit={canEdit} onChanged={mutate} />
         <EntryList studyId={studyId} entries={data.entries} canEdit={canEdit} onChanged={mutate} />
       </div>
       <aside className="space-y-4">
