@@ -1,0 +1,53 @@
+// proxy.ts: pages need a session, the sign-in and sign-up pages do not, and API routes answer for themselves.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { Client, signIn, startTestServer, type TestServer } from '../support/server';
+
+let server: TestServer;
+
+beforeAll(async () => {
+  server = await startTestServer();
+});
+afterAll(() => server?.stop());
+
+describe('page access', () => {
+  it.each(['/', '/studies', '/studies/1', '/admin/users', '/profile'])(
+    'sends a visitor without a session from %s to the sign-in page, remembering where they were',
+    async (pathname) => {
+      const response = await new Client(server.baseUrl).get(`${pathname}?tab=notes`);
+      expect(response.status).toBe(307);
+      const location = new URL(response.headers.get('location')!, server.baseUrl);
+      expect(location.pathname).toBe('/sign-in');
+      expect(location.searchParams.get('callbackUrl')).toBe(`${pathname}?tab=notes`);
+    },
+  );
+
+  it.each(['/sign-in', '/sign-up'])('serves %s without a session', async (pathname) => {
+    const response = await new Client(server.baseUrl).get(pathname);
+    expect(response.status).toBe(200);
+    expect(response.headers.get('content-type')).toContain('text/html');
+  });
+
+  it('lets a signed-in member through to the pages', async () => {
+    const { admin } = server.credentials;
+    const client = await signIn(server.baseUrl, admin.email, admin.password);
+    const response = await client.get('/studies');
+    expect(response.status).toBe(200);
+  });
+
+  it('does not redirect API calls or files: they answer for themselves', async () => {
+    const api = await new Client(server.baseUrl).get('/api/studies');
+    expect(api.status).toBe(401);
+    expect(api.headers.get('content-type')).toContain('application/json');
+    expect(api.body.error.code).toBe('unauthenticated');
+    const file = await new Client(server.baseUrl).get('/no-such-file.png');
+    expect(file.status).toBe(404);
+  });
+
+  it('treats a forged session cookie as no session', async () => {
+    const response = await fetch(`${server.baseUrl}/studies`, {
+      redirect: 'manual',
+      headers: { cookie: 'next-auth.session-token=not-a-token' },
+    });
+    expect(response.status).toBe(307);
+  });
+});
