@@ -2,14 +2,18 @@ import Markdown, { type Components } from 'react-markdown';
 import remarkGfm from 'remark-gfm';
 
 // react-markdown builds React elements from the Markdown syntax tree and never injects HTML: raw HTML in the
-// source (a <script>, an onclick attribute) stays visible as plain text, and its default URL filter drops
-// javascript:, data: and other unsafe link targets. Links leave the app in a new tab without a referrer.
+// source (a <script>, an onclick attribute) stays visible as plain text, and its default URL filter empties
+// javascript:, data: and other unsafe link targets; such a link is shown as its plain text. Other links leave
+// the app in a new tab without a referrer.
 const components: Components = {
-  a: ({ href, children }) => (
-    <a href={href} target="_blank" rel="noopener noreferrer nofollow">
-      {children}
-    </a>
-  ),
+  a: ({ href, children }) =>
+    href ? (
+      <a href={href} target="_blank" rel="noopener noreferrer nofollow">
+        {children}
+      </a>
+    ) : (
+      <span title="Link removed: its address is not allowed">{children}</span>
+    ),
 };
 
 /** A Note's Markdown (with tables, task lists and strikethrough), rendered safely. */

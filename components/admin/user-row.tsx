@@ -8,7 +8,13 @@ import { formatDate } from '../format';
 import { Notice } from '../notice';
 import { useAction } from '../use-action';
 
-const cellClass = 'px-3 py-3 align-middle sm:px-4';
+/** Widths shared by the rows and the column captions above them, so the columns line up. */
+export const userColumns = {
+  status: 'w-24 shrink-0',
+  joined: 'hidden w-28 shrink-0 md:block',
+  role: 'w-28 shrink-0',
+  action: 'w-20 shrink-0 text-right',
+};
 
 function AccountStatus({ disabled }: { disabled: boolean }) {
   return (
@@ -25,7 +31,7 @@ interface UserRowProps {
   onChanged: () => Promise<unknown>;
 }
 
-/** One account: its site role and whether it may sign in. On narrow screens the status moves under the name. */
+/** One account: its site role and whether it may sign in. On narrow screens the controls wrap under the name. */
 export function UserRow({ user, isMe, onChanged }: UserRowProps) {
   const update = useAction(async (change: { siteRole?: SiteRole; disabled?: boolean }) => {
     await sendJson('PATCH', `/api/admin/users/${user.id}`, change);
@@ -33,35 +39,32 @@ export function UserRow({ user, isMe, onChanged }: UserRowProps) {
   });
 
   return (
-    <>
-      <tr className={user.disabled ? 'bg-paper-sunk/60' : ''}>
-        <td className={cellClass}>
-          <p className="font-medium break-words text-ink">
+    <li aria-label={user.name} className={`px-4 py-3 ${user.disabled ? 'bg-paper-sunk/60' : ''}`}>
+      <div className="flex flex-wrap items-center gap-x-4 gap-y-2">
+        <div className="min-w-0 flex-1 basis-56">
+          <p className="truncate font-medium text-ink">
             {user.name}
             {isMe && <span className="ml-1 font-normal text-ink-faint">(you)</span>}
           </p>
-          <p className="text-xs break-all text-ink-soft">{user.email}</p>
-          <div className="mt-1 sm:hidden">
-            <AccountStatus disabled={user.disabled} />
-          </div>
-        </td>
-        <td className={cellClass}>
-          <select
-            aria-label={`Site role of ${user.name}`}
-            value={user.siteRole}
-            disabled={update.pending}
-            onChange={(event) => update.run({ siteRole: event.target.value as SiteRole })}
-            className={inlineSelectClass}
-          >
-            <option value="member">Member</option>
-            <option value="admin">Admin</option>
-          </select>
-        </td>
-        <td className={`${cellClass} hidden sm:table-cell`}>
+          <p className="truncate text-xs text-ink-soft" title={user.email}>
+            {user.email}
+          </p>
+        </div>
+        <div className={userColumns.status}>
           <AccountStatus disabled={user.disabled} />
-        </td>
-        <td className={`${cellClass} hidden text-sm text-ink-soft md:table-cell`}>{formatDate(user.createdAt)}</td>
-        <td className={`${cellClass} text-right`}>
+        </div>
+        <div className={`${userColumns.joined} text-sm text-ink-soft`}>{formatDate(user.createdAt)}</div>
+        <select
+          aria-label={`Site role of ${user.name}`}
+          value={user.siteRole}
+          disabled={update.pending}
+          onChange={(event) => update.run({ siteRole: event.target.value as SiteRole })}
+          className={`${inlineSelectClass} ${userColumns.role}`}
+        >
+          <option value="member">Member</option>
+          <option value="admin">Admin</option>
+        </select>
+        <div className={userColumns.action}>
           <Button
             size="sm"
             variant={user.disabled ? 'secondary' : 'danger'}
@@ -71,15 +74,13 @@ export function UserRow({ user, isMe, onChanged }: UserRowProps) {
           >
             {user.disabled ? 'Enable' : 'Disable'}
           </Button>
-        </td>
-      </tr>
+        </div>
+      </div>
       {update.error && (
-        <tr>
-          <td colSpan={5} className="px-3 pb-3 sm:px-4">
-            <Notice tone="error">{update.error}</Notice>
-          </td>
-        </tr>
+        <div className="mt-2">
+          <Notice tone="error">{update.error}</Notice>
+        </div>
       )}
-    </>
+    </li>
   );
 }

@@ -10,31 +10,31 @@ import { LoadingBlock } from '../loading-block';
 import { Notice } from '../notice';
 import { PageHeader } from '../page-header';
 import { SignupSetting } from './signup-setting';
-import { UserRow } from './user-row';
+import { UserRow, userColumns } from './user-row';
 
-const headCell = 'px-3 py-2.5 text-left text-xs font-medium uppercase tracking-wider text-ink-soft sm:px-4';
-
-function UserTable({ users, myId, onChanged }: { users: AdminUser[]; myId: number; onChanged: () => Promise<unknown> }) {
+/** Captions over the columns of the wide layout; narrow screens wrap each row and do without them. */
+function UserListCaptions() {
+  const caption = 'text-xs font-medium uppercase tracking-wider text-ink-soft';
   return (
-    <div className="relative overflow-x-auto rounded-lg border border-ink/10 bg-paper-raised">
-      <table className="w-full divide-y divide-ink/10">
-        <thead className="bg-paper-sunk/60">
-          <tr>
-            <th className={headCell}>User</th>
-            <th className={headCell}>Site role</th>
-            <th className={`${headCell} hidden sm:table-cell`}>Status</th>
-            <th className={`${headCell} hidden md:table-cell`}>Joined</th>
-            <th className={headCell}>
-              <span className="sr-only">Actions</span>
-            </th>
-          </tr>
-        </thead>
-        <tbody className="divide-y divide-ink/10">
-          {users.map((user) => (
-            <UserRow key={user.id} user={user} isMe={user.id === myId} onChanged={onChanged} />
-          ))}
-        </tbody>
-      </table>
+    <div aria-hidden className={`hidden items-center gap-x-4 border-b border-ink/10 bg-paper-sunk/60 px-4 py-2.5 sm:flex ${caption}`}>
+      <span className="flex-1">Account</span>
+      <span className={userColumns.status}>Status</span>
+      <span className={userColumns.joined}>Joined</span>
+      <span className={userColumns.role}>Site role</span>
+      <span className={userColumns.action} />
+    </div>
+  );
+}
+
+function UserList({ users, myId, onChanged }: { users: AdminUser[]; myId: number; onChanged: () => Promise<unknown> }) {
+  return (
+    <div className="overflow-hidden rounded-lg border border-ink/10 bg-paper-raised">
+      <UserListCaptions />
+      <ul aria-label="Accounts" className="divide-y divide-ink/10">
+        {users.map((user) => (
+          <UserRow key={user.id} user={user} isMe={user.id === myId} onChanged={onChanged} />
+        ))}
+      </ul>
     </div>
   );
 }
@@ -55,7 +55,7 @@ export function UsersView() {
       <SignupSetting />
       {error && <Notice tone="error">{error.message}</Notice>}
       {!data && !error && <LoadingBlock label="Loading users…" />}
-      {data && <UserTable users={data.users} myId={me.id} onChanged={mutate} />}
+      {data && <UserList users={data.users} myId={me.id} onChanged={mutate} />}
     </>
   );
 }

@@ -60,7 +60,7 @@ export function NoteCard({ entry, actions }: { entry: Entry; actions?: NoteActio
           Note
         </span>
         {entry.title && <h2 className="min-w-0 flex-1 font-semibold tracking-tight break-words">{entry.title}</h2>}
-        <span className="ml-auto text-xs text-ink-faint">
+        <span className="w-full text-xs text-ink-faint sm:ml-auto sm:w-auto">
           {formatDateTime(entry.updatedAt)}
           {entry.updatedBy && ` · ${entry.updatedBy.name}`}
         </span>

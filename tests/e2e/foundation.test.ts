@@ -8,7 +8,8 @@ import { openBrowser, screenshot, signInThroughPage, type BrowserSession } from 
 const STUDY_TITLE = 'Soft wide-angle corner, two tunes';
 const NOTE_TITLE = 'First look';
 const SCRIPT_LINE = '<script>window.__ranScript = true</script>';
-// A heading, a list, and three attempts to run code: a script tag, an inline handler and a javascript: link.
+// A heading, a list, an ordinary link, and three attempts to run code: a script tag, an inline handler and a
+// javascript: link.
 const NOTE_BODY = [
   '## Findings',
   '',
@@ -18,7 +19,7 @@ const NOTE_BODY = [
   '',
   '<img src="x" onerror="window.__ranHandler = true">',
   '',
-  '[open me](javascript:window.__ranLink=true)',
+  '[open me](javascript:window.__ranLink=true) and [the binning note](https://example.org/binning)',
 ].join('\n');
 
 let server: TestServer;
@@ -107,7 +108,12 @@ describe('the foundation in a browser', () => {
       scriptLinks: [...element.querySelectorAll('a')].filter((a) => /^\s*javascript:/i.test(a.getAttribute('href') ?? '')).length,
     }));
     expect(injected).toEqual({ scripts: 0, images: 0, scriptLinks: 0 });
-    await card.getByRole('link', { name: 'open me' }).click();
+    // The javascript: link is left as plain text; the ordinary one works and opens apart from the app.
+    expect(await card.getByText('open me').isVisible()).toBe(true);
+    const links = card.getByRole('link');
+    expect(await links.count()).toBe(1);
+    expect(await links.getAttribute('href')).toBe('https://example.org/binning');
+    expect(await links.getAttribute('rel')).toContain('noopener');
     const ran = await page.evaluate(() => {
       const globals = window as unknown as Record<string, unknown>;
       return [globals.__ranScript, globals.__ranHandler, globals.__ranLink];
@@ -202,7 +208,7 @@ describe('the foundation in a browser', () => {
       await page.getByRole('link', { name: 'Users' }).click();
       await page.waitForURL(`${server.baseUrl}/admin/users`);
       for (const person of [account, ...server.credentials.members]) {
-        await page.getByRole('cell', { name: new RegExp(person.email) }).waitFor();
+        await page.getByRole('listitem', { name: person.name }).getByText(person.email).waitFor();
       }
       expect(await page.getByRole('switch', { name: /Open sign-up/ }).count()).toBe(1);
       await screenshot(page, 'admin-users-1280', 1280);
