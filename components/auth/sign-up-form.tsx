@@ -1,20 +1,33 @@
 'use client';
 
 import { useRouter } from 'next/navigation';
-import { sendJson } from '@/lib/fetcher';
+import useSWR from 'swr';
+import { sendJson, type ApiError } from '@/lib/fetcher';
+import { PASSWORD_MIN } from '@/models/vocabulary';
 import { ActionForm, field, SubmitButton } from '../action-form';
 import { TextField } from '../fields';
+import { LoadingBlock } from '../loading-block';
+import { Notice } from '../notice';
 import { signInWithPassword } from './after-sign-in';
 
+/** Creates an account and signs in with it; says so at once when this server does not take sign-ups. */
 export function SignUpForm() {
   const router = useRouter();
-  async function submit(data: FormData) {
-    const email = field(data, 'email');
-    const password = field(data, 'password', false);
-    await sendJson('POST', '/api/signup', { name: field(data, 'name'), email, password });
+  const { data, error } = useSWR<{ openSignup: boolean }, ApiError>('/api/signup');
+
+  async function submit(form: FormData) {
+    const email = field(form, 'email');
+    const password = field(form, 'password', false);
+    await sendJson('POST', '/api/signup', { name: field(form, 'name'), email, password });
     await signInWithPassword(email, password);
     router.replace('/studies');
     router.refresh();
+  }
+
+  if (error) return <Notice tone="error">{error.message}</Notice>;
+  if (!data) return <LoadingBlock />;
+  if (!data.openSignup) {
+    return <Notice>Sign-up is closed on this server. Ask one of its admins to open it.</Notice>;
   }
   return (
     <ActionForm onSubmit={submit} aria-label="Create account">
@@ -25,9 +38,9 @@ export function SignUpForm() {
         name="password"
         type="password"
         autoComplete="new-password"
-        minLength={8}
+        minLength={PASSWORD_MIN}
         required
-        hint="At least 8 characters."
+        hint={`At least ${PASSWORD_MIN} characters.`}
       />
       <SubmitButton pendingLabel="Creating account…">Create account</SubmitButton>
     </ActionForm>

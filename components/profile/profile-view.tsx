@@ -1,6 +1,7 @@
 'use client';
 
 import { sendJson } from '@/lib/fetcher';
+import { PASSWORD_MIN } from '@/models/vocabulary';
 import { ActionForm, field, SubmitButton } from '../action-form';
 import { TextField } from '../fields';
 import { useMe } from '../hooks/use-me';
@@ -46,8 +47,8 @@ export function ProfileView() {
         <Panel title="Password">
           <ActionForm onSubmit={changePassword} resetOnSuccess successMessage="Password changed." aria-label="Password">
             <TextField label="Current password" name="currentPassword" type="password" autoComplete="current-password" required />
-            <TextField label="New password" name="newPassword" type="password" autoComplete="new-password" minLength={8} required hint="At least 8 characters." />
-            <TextField label="New password again" name="confirmPassword" type="password" autoComplete="new-password" minLength={8} required />
+            <TextField label="New password" name="newPassword" type="password" autoComplete="new-password" minLength={PASSWORD_MIN} required hint={`At least ${PASSWORD_MIN} characters.`} />
+            <TextField label="New password again" name="confirmPassword" type="password" autoComplete="new-password" minLength={PASSWORD_MIN} required />
             <SubmitButton>Change password</SubmitButton>
           </ActionForm>
         </Panel>

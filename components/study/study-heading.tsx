@@ -50,7 +50,7 @@ export function StudyHeading({ studyId, study, myRole, canEdit, onChanged }: Stu
         </>
       )}
       <div className="flex flex-wrap items-center gap-x-3 gap-y-1 text-xs text-ink-faint">
-        {myRole && <RoleBadge role={myRole} prefix="You are" />}
+        {myRole ? <RoleBadge role={myRole} prefix="You are" /> : <span>Not a member: open through your site admin role.</span>}
         {!canEdit && <span>Read only: you can read this study but not change it.</span>}
         <span>Created {formatDate(study.createdAt)}</span>
       </div>

@@ -51,12 +51,17 @@ export async function openBrowser(width = 1280): Promise<BrowserSession> {
   };
 }
 
-/** Signs in through the sign-in page, as a person would, and waits for the studies list. */
-export async function signInThroughPage(page: Page, baseUrl: string, email: string, password: string): Promise<void> {
+/** Fills in and sends the sign-in form, as a person would; the outcome is for the caller to check. */
+export async function submitSignIn(page: Page, baseUrl: string, email: string, password: string): Promise<void> {
   await page.goto(`${baseUrl}/sign-in`);
   await page.getByLabel('Email').fill(email);
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
+}
+
+/** Signs in through the sign-in page and waits for the studies list. */
+export async function signInThroughPage(page: Page, baseUrl: string, email: string, password: string): Promise<void> {
+  await submitSignIn(page, baseUrl, email, password);
   await page.waitForURL(`${baseUrl}/studies`);
 }
 

@@ -3,7 +3,7 @@
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { startTestServer, type TestServer } from '../support/server';
-import { openBrowser, screenshot, signInThroughPage, type BrowserSession } from './browser';
+import { openBrowser, screenshot, signInThroughPage, submitSignIn, type BrowserSession } from './browser';
 
 const STUDY_TITLE = 'Soft wide-angle corner, two tunes';
 const NOTE_TITLE = 'First look';
@@ -36,6 +36,11 @@ function noteCard(page: Page) {
   return page.getByRole('article', { name: NOTE_TITLE });
 }
 
+/** The message under the sign-in form. */
+function signInAlert(page: Page) {
+  return page.getByRole('form', { name: 'Sign in' }).getByRole('alert');
+}
+
 /** Visible buttons with this exact name on the page. */
 function buttonCount(page: Page, name: string) {
   return page.getByRole('button', { name, exact: true }).count();
@@ -63,10 +68,8 @@ describe('the foundation in a browser', () => {
     const { page } = owner;
     await page.goto(`${server.baseUrl}/studies`);
     await page.waitForURL(/\/sign-in\?callbackUrl=/);
-    await page.getByLabel('Email').fill(demoAccount('owner').email);
-    await page.getByLabel('Password').fill('not-the-password');
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    const alert = page.getByRole('form', { name: 'Sign in' }).getByRole('alert');
+    await submitSignIn(page, server.baseUrl, demoAccount('owner').email, 'not-the-password');
+    const alert = signInAlert(page);
     await alert.waitFor();
     expect(await alert.textContent()).toContain('Wrong email or password');
     expect(new URL(page.url()).pathname).toBe('/sign-in');
@@ -182,6 +185,14 @@ describe('the foundation in a browser', () => {
       expect(await page.getByRole('combobox').count()).toBe(0);
       await screenshot(page, 'study-viewer-390', 390);
 
+      // At this width the side navigation folds into a menu under the top bar.
+      const mainNav = page.getByRole('navigation', { name: 'Main' });
+      expect(await mainNav.count()).toBe(0);
+      await page.getByRole('button', { name: 'Menu' }).click();
+      expect(await mainNav.getByRole('link', { name: 'Studies' }).isVisible()).toBe(true);
+      expect(await mainNav.getByRole('link', { name: 'Users' }).count()).toBe(0);
+      await screenshot(page, 'nav-menu-390', 390);
+
       // The API refuses the viewer too, whatever the page shows.
       const studyId = studyPath.split('/').pop();
       const statuses = await page.evaluate(async (id) => {
@@ -196,6 +207,40 @@ describe('the foundation in a browser', () => {
       expect(typeof statuses.message).toBe('string');
     } finally {
       await viewer.close();
+    }
+  });
+
+  it('says so when a study or a page does not exist', async () => {
+    const { page } = owner;
+    await page.goto(`${server.baseUrl}/studies/999999`);
+    await page.getByText('Study not found').waitFor();
+    expect(await page.getByText('No study with id 999999.').isVisible()).toBe(true);
+    const missing = await page.goto(`${server.baseUrl}/no-such-page`);
+    expect(missing?.status()).toBe(404);
+    expect(await page.getByRole('heading', { name: 'Page not found' }).isVisible()).toBe(true);
+  });
+
+  it('lets a newcomer sign up, showing the server\'s reason when it refuses', async () => {
+    const newcomer = await openBrowser(390);
+    try {
+      const { page } = newcomer;
+      await page.goto(`${server.baseUrl}/sign-up`);
+      const form = page.getByRole('form', { name: 'Create account' });
+      await form.getByLabel('Name').fill('Pia Newcomb');
+      await form.getByLabel('Email').fill(demoAccount('owner').email);
+      await form.getByLabel('Password').fill('a long enough password');
+      await form.getByRole('button', { name: 'Create account' }).click();
+      const alert = form.getByRole('alert');
+      await alert.waitFor();
+      expect(await alert.textContent()).toContain('already exists');
+
+      await form.getByLabel('Email').fill('pia@larkspur.test');
+      await form.getByRole('button', { name: 'Create account' }).click();
+      await page.waitForURL(`${server.baseUrl}/studies`);
+      await page.getByText('No studies yet').waitFor();
+      await screenshot(page, 'studies-empty-390', 390);
+    } finally {
+      await newcomer.close();
     }
   });
 
@@ -214,6 +259,37 @@ describe('the foundation in a browser', () => {
       await screenshot(page, 'admin-users-1280', 1280);
       await screenshot(page, 'admin-users-390', 390);
     } finally {
+      await admin.close();
+    }
+  });
+
+  it('lets the admin close sign-up and disable an account, and tells the people affected', async () => {
+    const admin = await openBrowser();
+    const visitor = await openBrowser(390);
+    try {
+      const { page } = admin;
+      const account = server.credentials.admin;
+      const disabled = demoAccount('commenter');
+      await signInThroughPage(page, server.baseUrl, account.email, account.password);
+      await page.goto(`${server.baseUrl}/admin/users`);
+
+      const openSignup = page.getByRole('switch', { name: /Open sign-up/ });
+      await openSignup.waitFor({ state: 'attached' });
+      await expect.poll(() => openSignup.isChecked()).toBe(true);
+      await openSignup.click({ force: true });
+      await expect.poll(() => openSignup.isChecked()).toBe(false);
+      await visitor.page.goto(`${server.baseUrl}/sign-up`);
+      await visitor.page.getByText('Sign-up is closed on this server').waitFor();
+
+      const row = page.getByRole('listitem', { name: disabled.name });
+      await row.getByRole('button', { name: `Disable ${disabled.name}` }).click();
+      await row.getByText('Disabled', { exact: true }).waitFor();
+      await submitSignIn(visitor.page, server.baseUrl, disabled.email, disabled.password);
+      const alert = signInAlert(visitor.page);
+      await alert.waitFor();
+      expect(await alert.textContent()).toContain('This account is disabled');
+    } finally {
+      await visitor.close();
       await admin.close();
     }
   });
