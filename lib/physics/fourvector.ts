@@ -20,10 +20,46 @@ export function rapidity(pz: number, E: number): number {
   return 0.5 * Math.log((E + pz) / (E - pz));
 }
 
-/** Azimuth atan2(py, px) mapped to [0, 2π). */
+/**
+ * Azimuth atan2(py, px) mapped to [0, 2π). Zero pt gives 0 (FastJet's convention; atan2(0, −0) would be π).
+ * The two checks are sequential on purpose: atan2 = −1e−17 becomes 2π − 1e−17, which rounds to exactly 2π,
+ * and must then wrap to 0 (as in FastJet's PseudoJet::_set_rap_phi).
+ */
 export function azimuth(px: number, py: number): number {
-  const phi = Math.atan2(py, px);
-  return phi < 0 ? phi + TWO_PI : phi >= TWO_PI ? phi - TWO_PI : phi;
+  if (px === 0 && py === 0) return 0;
+  let phi = Math.atan2(py, px);
+  if (phi < 0) phi += TWO_PI;
+  if (phi >= TWO_PI) phi -= TWO_PI;
+  return phi;
+}
+
+/** FastJet's cap for the rapidity of a zero-pt massless momentum (PseudoJet.hh, MaxRap). */
+export const FJ_MAX_RAP = 1e5;
+
+/**
+ * Rapidity computed exactly the way FastJet 3.4 does (PseudoJet::_set_rap_phi), which is the same quantity as
+ * `rapidity` but less sensitive to rounding when E ≈ |pz|: y = ½ ln((pt² + max(m², 0)) / (E + |pz|)²), sign of pz.
+ * The clustering uses this form so that distances agree with FastJet to the last bits.
+ */
+export function rapidityFJ(px: number, py: number, pz: number, E: number): number {
+  const kt2 = px * px + py * py;
+  const apz = Math.abs(pz);
+  if (E === apz && kt2 === 0) return pz >= 0 ? FJ_MAX_RAP + apz : -(FJ_MAX_RAP + apz);
+  const m2 = (E + pz) * (E - pz) - kt2;
+  const ePlus = E + apz;
+  const y = 0.5 * Math.log((kt2 + (m2 > 0 ? m2 : 0)) / (ePlus * ePlus));
+  return pz > 0 ? -y : y;
+}
+
+/** m² in FastJet's form (E+pz)(E−pz) − pt², which rounds differently from E² − p². */
+export function mass2FJ(px: number, py: number, pz: number, E: number): number {
+  return (E + pz) * (E - pz) - (px * px + py * py);
+}
+
+/** Signed mass from FastJet's m² (−sqrt(|m²|) when m² < 0, as `mass`). */
+export function massFJ(px: number, py: number, pz: number, E: number): number {
+  const m2 = (E + pz) * (E - pz) - (px * px + py * py);
+  return m2 >= 0 ? Math.sqrt(m2) : -Math.sqrt(-m2);
 }
 
 /** m = sqrt(E² − p²); a negative m² (rounding) is reported as −sqrt(|m²|). */

@@ -1,0 +1,1339 @@
+// Sequential-recombination jet finding with the generalised-kt distances (PHYSICS.md "Jet clustering"):
+//   d_ij = min(pt_i^{2p}, pt_j^{2p}) ΔR_ij² / R²,  d_iB = pt_i^{2p};  p = 1 kt, 0 Cambridge/Aachen, −1 anti-kt;
+// E-scheme recombination, inclusive jets.
+//
+// Sources: "The anti-kt jet clustering algorithm", JHEP 04 (2008) 063, arXiv:0802.1189; "Better jet clustering
+// algorithms", JHEP 08 (1997) 001, arXiv:hep-ph/9707323 and arXiv:hep-ph/9907280 (Cambridge/Aachen); the FastJet
+// user manual, Eur. Phys. J. C72 (2012) 1896, arXiv:1111.6097; and for the nearest-neighbour (NN) and tiling
+// strategies "Dispelling the N³ myth for the kt jet-finder", Phys. Lett. B641 (2006) 57, arXiv:hep-ph/0512210.
+//
+// The N³ textbook loop is replaced by nearest-neighbour bookkeeping (the "N2" idea of arXiv:hep-ph/0512210):
+// the smallest d_ij always involves a pair in which the jet with the smaller pt^{2p} has the other one as its
+// *geometric* nearest neighbour, so it is enough to keep, for every jet i, its geometric NN within R and
+//   diJ_i = ΔR²_{i,NN(i)} · min(pt_i^{2p}, pt_NN^{2p})   (or R² · pt_i^{2p} when i has no neighbour within R),
+// which is R² times min(d_iNN, d_iB). After each recombination only the jets whose NN was one of the two merged
+// ones, and the neighbours of the new jet, change.
+//
+// Two strategies:
+//  - 'plain': a line-by-line port of FastJet 3.4's N2Plain (ClusterSequence::_simple_N2_cluster), including its
+//    array compaction, so that even exact ties are resolved as FastJet resolves them when it uses N2Plain (which
+//    it does for small N, and for every reclustering of ≤ 30 constituents).
+//  - 'tiled': the (y, φ) plane is cut into tiles of size ≥ R (φ wraps around); a jet's NN can only be in its own
+//    or one of the 8 adjacent tiles, so NN searches cost O(local density) instead of O(N); the minimum diJ is
+//    kept in a tournament tree (O(log N) per change) instead of a linear scan. This is in the spirit of
+//    FastJet's N2Tiled / N2MinHeapTiled strategies (arXiv:1111.6097 §3 and appendix; arXiv:hep-ph/0512210).
+//    Like FastJet's tiled strategies, the merged jet takes the lower of the two slots and becomes parent2, the
+//    jet of the higher slot parent1. Ties between exactly equal distances (measure zero for real data) pick the
+//    lowest slot.
+// Both choose the same globally smallest distance at every step, so with distances computed bit-identically to
+// FastJet (same rapidity/azimuth formulas of the summed four-momentum, same ΔR² expression, same diJ product)
+// they produce FastJet's clustering sequence.
+//
+// Everything lives in typed arrays inside a reusable ClusterWorkspace: no allocation per step.
+
+import type { Algorithm } from './types';
+import { FJ_MAX_RAP, TWO_PI } from './fourvector';
+
+const PI = Math.PI;
+
+export type ClusterStrategy = 'auto' | 'plain' | 'tiled';
+
+/** Generalised-kt exponent p: 1 kt, 0 Cambridge/Aachen, −1 anti-kt. */
+export function algorithmExponent(a: Algorithm): number {
+  return a === 'kt' ? 1 : a === 'ca' ? 0 : -1;
+}
+
+/** Above this many particles 'auto' uses tiles (when R allows at least 3 tiles in φ). */
+export const TILED_MIN_PARTICLES = 64;
+
+/**
+ * Pseudojets (nodes of the clustering history) and the scratch arrays of the NN bookkeeping.
+ * Nodes 0..n−1 are the input particles, n.. the recombinations in the order they happened.
+ */
+export class ClusterWorkspace {
+  /** Capacity in input particles. */
+  cap = 0;
+  /** Number of input particles loaded. */
+  n = 0;
+  /** Number of nodes (particles + recombinations). */
+  nNodes = 0;
+
+  // Nodes (size 2·cap).
+  px = new Float64Array(0);
+  py = new Float64Array(0);
+  pz = new Float64Array(0);
+  E = new Float64Array(0);
+  /** pt² = px² + py². */
+  kt2 = new Float64Array(0);
+  /** Rapidity (FastJet's formula). */
+  rap = new Float64Array(0);
+  /** Azimuth in [0, 2π). */
+  phi = new Float64Array(0);
+  /** History: the two nodes merged into this one, −1 for input particles (parent1 = FastJet's parent1). */
+  parent1 = new Int32Array(0);
+  parent2 = new Int32Array(0);
+  /** Constituent lists (only filled when asked): first/last particle of a node, next particle, count. */
+  first = new Int32Array(0);
+  last = new Int32Array(0);
+  count = new Int32Array(0);
+  next = new Int32Array(0);
+
+  /** Inclusive jets (node indices) in the order they became jets. */
+  jets = new Int32Array(0);
+  nJets = 0;
+
+  // Brief-jet slots (size cap): the active jets of the NN bookkeeping.
+  sEta = new Float64Array(0);
+  sPhi = new Float64Array(0);
+  /** Momentum factor pt^{2p} (FastJet's jet_scale_for_algorithm). */
+  sMf = new Float64Array(0);
+  /** Squared distance to the NN (R² when none). */
+  sNND = new Float64Array(0);
+  /** NN slot, −1 when none within R. */
+  sNN = new Int32Array(0);
+  /** Node held by the slot. */
+  sNode = new Int32Array(0);
+  /** R² · min(d_iNN, d_iB); size ≥ next power of two of cap (tournament leaves). */
+  diJ = new Float64Array(0);
+
+  // Tiled strategy.
+  tree = new Int32Array(0);
+  sTile = new Int32Array(0);
+  sNext = new Int32Array(0);
+  sPrev = new Int32Array(0);
+  /** Reverse NN lists: first slot whose NN is this slot; links of a slot in its NN's list. */
+  rHead = new Int32Array(0);
+  rNext = new Int32Array(0);
+  rPrev = new Int32Array(0);
+  tmp = new Int32Array(0);
+  tileHead = new Int32Array(0);
+  /** Upper bound of the NN distances of the jets in each tile. */
+  tileMax = new Float64Array(0);
+  offY = new Int32Array(64);
+  offU = new Int32Array(64);
+  // Grid strategy of the C/A re-clustering.
+  sU = new Float64Array(0);
+  alive = new Uint8Array(0);
+  farPos = new Int32Array(0);
+  farList = new Int32Array(0);
+  nFar = 0;
+  gUMin = 0;
+  gWMin = 1;
+  gBuiltActive = 0;
+  gBest = -1;
+  // Grid geometry of the current tiled run.
+  gNY = 1;
+  gNPhi = 1;
+  gWY = 1;
+  gWPhi = 1;
+  gYMin = 0;
+  gR2 = 0;
+  gNOff = 0;
+  gP = 1;
+  /** Tiles are at least R/tileRings wide (tuning knob; see TILE_RINGS). */
+  tileRings = TILE_RINGS;
+
+  /** Pair distances evaluated so far (a cost measure for tests; never reset by the engine). */
+  ops = 0;
+
+  /** Makes room for n input particles (keeps the contents of nothing). */
+  ensure(n: number): void {
+    if (n <= this.cap) return;
+    const cap = Math.max(n, 2 * this.cap, 64);
+    const nodes = 2 * cap;
+    this.cap = cap;
+    this.px = new Float64Array(nodes);
+    this.py = new Float64Array(nodes);
+    this.pz = new Float64Array(nodes);
+    this.E = new Float64Array(nodes);
+    this.kt2 = new Float64Array(nodes);
+    this.rap = new Float64Array(nodes);
+    this.phi = new Float64Array(nodes);
+    this.parent1 = new Int32Array(nodes);
+    this.parent2 = new Int32Array(nodes);
+    this.first = new Int32Array(nodes);
+    this.last = new Int32Array(nodes);
+    this.count = new Int32Array(nodes);
+    this.next = new Int32Array(cap);
+    this.jets = new Int32Array(cap);
+    this.sEta = new Float64Array(cap);
+    this.sPhi = new Float64Array(cap);
+    this.sMf = new Float64Array(cap);
+    this.sNND = new Float64Array(cap);
+    this.sNN = new Int32Array(cap);
+    this.sNode = new Int32Array(cap);
+    let P = 1;
+    while (P < cap) P <<= 1;
+    this.diJ = new Float64Array(P);
+    this.tree = new Int32Array(2 * P);
+    this.sTile = new Int32Array(cap);
+    this.sNext = new Int32Array(cap);
+    this.sPrev = new Int32Array(cap);
+    this.rHead = new Int32Array(cap);
+    this.rNext = new Int32Array(cap);
+    this.rPrev = new Int32Array(cap);
+    this.tmp = new Int32Array(cap);
+    this.sU = new Float64Array(cap);
+    this.alive = new Uint8Array(cap);
+    this.farPos = new Int32Array(cap);
+    this.farList = new Int32Array(cap);
+  }
+}
+
+/** Computes pt², azimuth and rapidity of node k from its four-momentum, exactly as FastJet 3.4 does. */
+export function setKinematics(ws: ClusterWorkspace, k: number): void {
+  const x = ws.px[k], y = ws.py[k], z = ws.pz[k], e = ws.E[k];
+  const k2 = x * x + y * y;
+  ws.kt2[k] = k2;
+  let f = k2 === 0 ? 0 : Math.atan2(y, x);
+  if (f < 0) f += TWO_PI;
+  if (f >= TWO_PI) f -= TWO_PI;
+  ws.phi[k] = f;
+  const az = Math.abs(z);
+  if (e === az && k2 === 0) {
+    ws.rap[k] = z >= 0 ? FJ_MAX_RAP + az : -(FJ_MAX_RAP + az);
+  } else {
+    const m2 = (e + z) * (e - z) - k2;
+    const ep = e + az;
+    const r = 0.5 * Math.log((k2 + (m2 > 0 ? m2 : 0)) / (ep * ep));
+    ws.rap[k] = z > 0 ? -r : r;
+  }
+}
+
+/** Loads n particles (px, py, pz, E interleaved) as nodes 0..n−1. */
+export function loadParticles(ws: ClusterWorkspace, p: Float64Array, n: number): void {
+  ws.ensure(n);
+  const { px, py, pz, E, parent1, parent2, first, last, count, next } = ws;
+  for (let i = 0, at = 0; i < n; i++, at += 4) {
+    px[i] = p[at];
+    py[i] = p[at + 1];
+    pz[i] = p[at + 2];
+    E[i] = p[at + 3];
+    setKinematics(ws, i);
+    parent1[i] = -1;
+    parent2[i] = -1;
+    first[i] = i;
+    last[i] = i;
+    count[i] = 1;
+    next[i] = -1;
+  }
+  ws.n = n;
+  ws.nNodes = n;
+  ws.nJets = 0;
+}
+
+/**
+ * Loads the constituents of node `jet` of `src` (in FastJet's constituents() order: parent1's before parent2's)
+ * as the particles of `dst`, copying their kinematics. Needs src's constituent lists. Returns the count.
+ */
+export function loadConstituents(dst: ClusterWorkspace, src: ClusterWorkspace, jet: number): number {
+  const n = src.count[jet];
+  dst.ensure(n);
+  const { px, py, pz, E, kt2, rap, phi, parent1, parent2, first, last, count, next } = dst;
+  let c = src.first[jet];
+  for (let i = 0; i < n; i++) {
+    px[i] = src.px[c];
+    py[i] = src.py[c];
+    pz[i] = src.pz[c];
+    E[i] = src.E[c];
+    kt2[i] = src.kt2[c];
+    rap[i] = src.rap[c];
+    phi[i] = src.phi[c];
+    parent1[i] = -1;
+    parent2[i] = -1;
+    first[i] = i;
+    last[i] = i;
+    count[i] = 1;
+    next[i] = -1;
+    c = src.next[c];
+  }
+  dst.n = n;
+  dst.nNodes = n;
+  dst.nJets = 0;
+  return n;
+}
+
+/** E-scheme recombination of nodes i (parent1) and j (parent2) into a new node; returns its index. */
+function recombine(ws: ClusterWorkspace, i: number, j: number, track: boolean): number {
+  const k = ws.nNodes++;
+  ws.px[k] = ws.px[i] + ws.px[j];
+  ws.py[k] = ws.py[i] + ws.py[j];
+  ws.pz[k] = ws.pz[i] + ws.pz[j];
+  ws.E[k] = ws.E[i] + ws.E[j];
+  ws.parent1[k] = i;
+  ws.parent2[k] = j;
+  setKinematics(ws, k);
+  if (track) {
+    ws.next[ws.last[i]] = ws.first[j];
+    ws.first[k] = ws.first[i];
+    ws.last[k] = ws.last[j];
+    ws.count[k] = ws.count[i] + ws.count[j];
+  }
+  return k;
+}
+
+/** FastJet's jet_scale_for_algorithm: pt^{2p} with its safety limits. */
+function momentumFactor(kt2: number, p: number): number {
+  if (p === 0) return 1;
+  if (p > 0) return kt2;
+  return kt2 > 1e-300 ? 1 / kt2 : 1e300;
+}
+
+export interface ClusterOptions {
+  /** Generalised-kt exponent: 1 kt, 0 C/A, −1 anti-kt. */
+  p: number;
+  /** Jet radius; Infinity merges everything into one jet (d_iB never smallest). */
+  R: number;
+  strategy?: ClusterStrategy;
+  /** Keep constituent lists (first/next/count) for the jets. */
+  trackConstituents?: boolean;
+}
+
+/**
+ * Clusters the particles loaded in ws. Afterwards ws.jets[0..nJets) are the inclusive jets (nodes), and
+ * parent1/parent2 hold the history.
+ */
+export function cluster(ws: ClusterWorkspace, opts: ClusterOptions): void {
+  const R = opts.R;
+  const R2 = R * R;
+  const track = opts.trackConstituents === true;
+  ws.nNodes = ws.n;
+  ws.nJets = 0;
+  if (ws.n === 0) return;
+  const strategy = opts.strategy ?? 'auto';
+  if (R === Infinity && opts.p === 0 && ws.n > 1 && (strategy === 'tiled' || (strategy === 'auto' && ws.n >= GRID_MIN_PARTICLES))) {
+    if (clusterGridCA(ws, track)) return;
+  }
+  const tilesPossible = Number.isFinite(R2) && R > 0 && Math.floor(TWO_PI / (R * (1 + 1e-6))) >= 3;
+  const tiled = tilesPossible && (strategy === 'tiled' || (strategy === 'auto' && ws.n >= TILED_MIN_PARTICLES));
+  if (tiled) clusterTiled(ws, R, R2, opts.p, track);
+  else if (R === Infinity && opts.p === 0) clusterPlainCA(ws, track);
+  else clusterPlain(ws, R2, opts.p, track);
+}
+
+// ---------------------------------------------------------------------------------------------------------
+// N2Plain: port of FastJet 3.4 ClusterSequence::_simple_N2_cluster (ClusterSequence_N2.icc) with
+// _bj_set_jetinfo, _bj_dist, _bj_diJ, _bj_set_NN_nocross, _bj_set_NN_crosscheck (ClusterSequence.hh).
+
+function clusterPlain(ws: ClusterWorkspace, R2: number, p: number, track: boolean): void {
+  let n = ws.n;
+  let ops = (n * (n - 1)) / 2;
+  const { sEta, sPhi, sMf, sNND, sNN, sNode, diJ, rap, phi, kt2 } = ws;
+
+  for (let i = 0; i < n; i++) {
+    sEta[i] = rap[i];
+    sPhi[i] = phi[i];
+    sMf[i] = momentumFactor(kt2[i], p);
+    sNode[i] = i;
+    sNND[i] = R2;
+    sNN[i] = -1;
+  }
+  // _bj_set_NN_crosscheck(jetA, head, jetA) for every jetA after the first.
+  for (let a = 1; a < n; a++) {
+    const ea = sEta[a], fa = sPhi[a];
+    let best = R2, bi = -1;
+    for (let b = 0; b < a; b++) {
+      let dphi = Math.abs(fa - sPhi[b]);
+      const deta = ea - sEta[b];
+      if (dphi > PI) dphi = TWO_PI - dphi;
+      const dist = dphi * dphi + deta * deta;
+      if (dist < best) {
+        best = dist;
+        bi = b;
+      }
+      if (dist < sNND[b]) {
+        sNND[b] = dist;
+        sNN[b] = a;
+      }
+    }
+    sNN[a] = bi;
+    sNND[a] = best;
+  }
+  for (let i = 0; i < n; i++) {
+    const nn = sNN[i];
+    let mf = sMf[i];
+    if (nn >= 0 && sMf[nn] < mf) mf = sMf[nn];
+    diJ[i] = sNND[i] * mf;
+  }
+
+  while (n > 0) {
+    let m = 0;
+    let dmin = diJ[0];
+    for (let i = 1; i < n; i++) {
+      if (diJ[i] < dmin) {
+        dmin = diJ[i];
+        m = i;
+      }
+    }
+    let a = m;
+    let b = sNN[a];
+    if (b >= 0) {
+      if (a < b) {
+        const t = a;
+        a = b;
+        b = t;
+      }
+      const k = recombine(ws, sNode[a], sNode[b], track);
+      sEta[b] = rap[k];
+      sPhi[b] = phi[k];
+      sMf[b] = momentumFactor(kt2[k], p);
+      sNode[b] = k;
+      sNND[b] = R2;
+      sNN[b] = -1;
+    } else {
+      ws.jets[ws.nJets++] = sNode[a];
+    }
+
+    n--;
+    const tail = n;
+    sEta[a] = sEta[tail];
+    sPhi[a] = sPhi[tail];
+    sMf[a] = sMf[tail];
+    sNND[a] = sNND[tail];
+    sNN[a] = sNN[tail];
+    sNode[a] = sNode[tail];
+    diJ[a] = diJ[tail];
+
+    const hasB = b >= 0;
+    const eb = hasB ? sEta[b] : 0, fb = hasB ? sPhi[b] : 0;
+    ops += hasB ? 2 * n : n;
+    for (let i = 0; i < n; i++) {
+      const nn = sNN[i];
+      // (FastJet also re-searches jets without NN after a beam step; they can only find none again.)
+      if (nn === a || (hasB && nn === b)) {
+        const ei = sEta[i], fi = sPhi[i];
+        let best = R2, bi = -1;
+        ops += n;
+        for (let j = 0; j < n; j++) {
+          if (j === i) continue;
+          let dphi = Math.abs(fi - sPhi[j]);
+          const deta = ei - sEta[j];
+          if (dphi > PI) dphi = TWO_PI - dphi;
+          const dist = dphi * dphi + deta * deta;
+          if (dist < best) {
+            best = dist;
+            bi = j;
+          }
+        }
+        sNN[i] = bi;
+        sNND[i] = best;
+        let mf = sMf[i];
+        if (bi >= 0 && sMf[bi] < mf) mf = sMf[bi];
+        diJ[i] = best * mf;
+      }
+      if (hasB && i !== b) {
+        let dphi = Math.abs(sPhi[i] - fb);
+        const deta = sEta[i] - eb;
+        if (dphi > PI) dphi = TWO_PI - dphi;
+        const dist = dphi * dphi + deta * deta;
+        if (dist < sNND[i]) {
+          sNND[i] = dist;
+          sNN[i] = b;
+          let mf = sMf[i];
+          if (sMf[b] < mf) mf = sMf[b];
+          diJ[i] = dist * mf;
+        }
+        if (dist < sNND[b]) {
+          sNND[b] = dist;
+          sNN[b] = i;
+        }
+      }
+      if (sNN[i] === tail) sNN[i] = a;
+    }
+    if (hasB) {
+      const nn = sNN[b];
+      let mf = sMf[b];
+      if (nn >= 0 && sMf[nn] < mf) mf = sMf[nn];
+      diJ[b] = sNND[b] * mf;
+    }
+  }
+  ws.ops += ops;
+}
+
+/**
+ * clusterPlain specialised to Cambridge/Aachen with an infinite radius (the re-clustering of a jet into one
+ * tree): every momentum factor is 1, so diJ is the squared distance to the NN and no separate diJ table is
+ * needed; every jet but the last has an NN. Same operations, order and tie-breaking as clusterPlain.
+ */
+function clusterPlainCA(ws: ClusterWorkspace, track: boolean): void {
+  let n = ws.n;
+  const { sEta, sPhi, sNND, sNN, sNode, rap, phi } = ws;
+  let ops = (n * (n - 1)) / 2;
+  for (let i = 0; i < n; i++) {
+    sEta[i] = rap[i];
+    sPhi[i] = phi[i];
+    sNode[i] = i;
+  }
+  sNND[0] = Infinity;
+  sNN[0] = -1;
+  for (let a = 1; a < n; a++) {
+    const ea = sEta[a], fa = sPhi[a];
+    let best = Infinity, bi = -1;
+    for (let b = 0; b < a; b++) {
+      let dphi = Math.abs(fa - sPhi[b]);
+      const deta = ea - sEta[b];
+      if (dphi > PI) dphi = TWO_PI - dphi;
+      const dist = dphi * dphi + deta * deta;
+      if (dist < best) {
+        best = dist;
+        bi = b;
+      }
+      if (dist < sNND[b]) {
+        sNND[b] = dist;
+        sNN[b] = a;
+      }
+    }
+    sNN[a] = bi;
+    sNND[a] = best;
+  }
+
+  while (n > 1) {
+    let a = 0;
+    let dmin = sNND[0];
+    for (let i = 1; i < n; i++) {
+      const d = sNND[i];
+      if (d < dmin) {
+        dmin = d;
+        a = i;
+      }
+    }
+    let b = sNN[a];
+    if (a < b) {
+      const t = a;
+      a = b;
+      b = t;
+    }
+    const k = recombine(ws, sNode[a], sNode[b], track);
+    const eb = rap[k], fb = phi[k];
+    sEta[b] = eb;
+    sPhi[b] = fb;
+    sNode[b] = k;
+
+    n--;
+    const tail = n;
+    sEta[a] = sEta[tail];
+    sPhi[a] = sPhi[tail];
+    sNND[a] = sNND[tail];
+    sNN[a] = sNN[tail];
+    sNode[a] = sNode[tail];
+
+    // The new jet's NN is accumulated in locals (FastJet's loop updates it in place, to the same result).
+    let bBest = Infinity, bBi = -1;
+    ops += 2 * n;
+    for (let i = 0; i < n; i++) {
+      const nn = sNN[i];
+      if (i === b) {
+        // FastJet: jetB's own entry (NN none at this point) is only relabelled below.
+        continue;
+      }
+      const ei = sEta[i], fi = sPhi[i];
+      if (nn === a || nn === b) {
+        let best = Infinity, bi = -1;
+        ops += n;
+        for (let j = 0; j < i; j++) {
+          let dphi = Math.abs(fi - sPhi[j]);
+          const deta = ei - sEta[j];
+          if (dphi > PI) dphi = TWO_PI - dphi;
+          const dist = dphi * dphi + deta * deta;
+          if (dist < best) {
+            best = dist;
+            bi = j;
+          }
+        }
+        for (let j = i + 1; j < n; j++) {
+          let dphi = Math.abs(fi - sPhi[j]);
+          const deta = ei - sEta[j];
+          if (dphi > PI) dphi = TWO_PI - dphi;
+          const dist = dphi * dphi + deta * deta;
+          if (dist < best) {
+            best = dist;
+            bi = j;
+          }
+        }
+        sNN[i] = bi;
+        sNND[i] = best;
+      }
+      let dphi = Math.abs(fi - fb);
+      const deta = ei - eb;
+      if (dphi > PI) dphi = TWO_PI - dphi;
+      const dist = dphi * dphi + deta * deta;
+      if (dist < sNND[i]) {
+        sNND[i] = dist;
+        sNN[i] = b;
+      }
+      if (dist < bBest) {
+        bBest = dist;
+        bBi = i;
+      }
+      if (sNN[i] === tail) sNN[i] = a;
+    }
+    sNND[b] = bBest;
+    sNN[b] = bBi;
+  }
+  ws.jets[0] = sNode[0];
+  ws.nJets = 1;
+  ws.ops += ops;
+}
+
+// ---------------------------------------------------------------------------------------------------------
+// Tiled NN strategy.
+//
+// Tiles of side ≥ R/K (K = TILE_RINGS, or less when R is large) in (y, φ), φ periodic: a jet's neighbours
+// within R lie at most K tiles away, in the (2K+1)² block around its tile. Three devices keep the work per
+// step proportional to the local density rather than to the block population:
+//  - NN searches visit the block's tiles ring by ring and skip a tile when the lower bound of the distance from
+//    the jet to the tile's rectangle is not below the best distance found so far;
+//  - reverse-NN lists (for each jet, the jets that have it as NN) give the jets to re-search after a merge
+//    without scanning;
+//  - each tile keeps an upper bound of its jets' NN distances, so that the check "is the new jet closer than
+//    my current NN?" skips tiles that are too far from the new jet for any of their jets.
+// The smallest diJ is kept in a tournament tree. Slots: the merged jet takes the lower slot (parent2), the
+// higher slot (parent1) dies, as in FastJet's tiled strategies.
+
+/** Tiles are at least R/TILE_RINGS wide; NN searches look TILE_RINGS tiles away. */
+const TILE_RINGS = 2;
+/** Absolute margin (in y/φ units) that keeps tile distance bounds below the true distance despite rounding. */
+const BOUND_MARGIN = 1e-12;
+
+// The tiled strategy's helpers are module-level functions (closures re-created per call would defeat V8's
+// inlining); the grid geometry lives in the workspace (g* fields).
+
+function tileOf(ws: ClusterWorkspace, y: number, f: number): number {
+  const nY = ws.gNY, nPhi = ws.gNPhi;
+  let iy = nY === 1 ? 0 : Math.floor((y - ws.gYMin) / ws.gWY);
+  if (iy < 0) iy = 0;
+  else if (iy >= nY) iy = nY - 1;
+  let iphi = Math.floor(f / ws.gWPhi);
+  if (iphi < 0) iphi = 0;
+  else if (iphi >= nPhi) iphi = nPhi - 1;
+  return iy * nPhi + iphi;
+}
+
+function tileInsert(ws: ClusterWorkspace, s: number, t: number): void {
+  const sNext = ws.sNext, sPrev = ws.sPrev, tileHead = ws.tileHead;
+  ws.sTile[s] = t;
+  const h = tileHead[t];
+  sPrev[s] = -1;
+  sNext[s] = h;
+  if (h >= 0) sPrev[h] = s;
+  tileHead[t] = s;
+}
+
+function tileRemove(ws: ClusterWorkspace, s: number): void {
+  const sNext = ws.sNext, sPrev = ws.sPrev;
+  const pv = sPrev[s], nx = sNext[s];
+  if (pv >= 0) sNext[pv] = nx;
+  else ws.tileHead[ws.sTile[s]] = nx;
+  if (nx >= 0) sPrev[nx] = pv;
+}
+
+/** Removes slot i from its NN's reverse list (NN becomes none; the tile bound is left alone). */
+function unlinkNN(ws: ClusterWorkspace, i: number): void {
+  const old = ws.sNN[i];
+  if (old < 0) return;
+  const rNext = ws.rNext, rPrev = ws.rPrev;
+  const pv = rPrev[i], nx = rNext[i];
+  if (pv >= 0) rNext[pv] = nx;
+  else ws.rHead[old] = nx;
+  if (nx >= 0) rPrev[nx] = pv;
+  ws.sNN[i] = -1;
+}
+
+/** Sets the NN of slot i (j, squared distance d), keeping the reverse lists and the tile bound. */
+function setNN(ws: ClusterWorkspace, i: number, j: number, d: number): void {
+  const sNN = ws.sNN;
+  const old = sNN[i];
+  if (old !== j) {
+    const rHead = ws.rHead, rNext = ws.rNext, rPrev = ws.rPrev;
+    if (old >= 0) {
+      const pv = rPrev[i], nx = rNext[i];
+      if (pv >= 0) rNext[pv] = nx;
+      else rHead[old] = nx;
+      if (nx >= 0) rPrev[nx] = pv;
+    }
+    if (j >= 0) {
+      const h = rHead[j];
+      rPrev[i] = -1;
+      rNext[i] = h;
+      if (h >= 0) rPrev[h] = i;
+      rHead[j] = i;
+    }
+    sNN[i] = j;
+  }
+  ws.sNND[i] = d;
+  const t = ws.sTile[i];
+  if (d > ws.tileMax[t]) ws.tileMax[t] = d;
+}
+
+/** diJ of slot i from its NN (FastJet's _bj_diJ) and the tournament tree update. */
+function updateDiJ(ws: ClusterWorkspace, i: number): void {
+  const sMf = ws.sMf, diJ = ws.diJ, tree = ws.tree;
+  const nn = ws.sNN[i];
+  let mf = sMf[i];
+  if (nn >= 0 && sMf[nn] < mf) mf = sMf[nn];
+  diJ[i] = ws.sNND[i] * mf;
+  let t = (i + ws.gP) >> 1;
+  while (t >= 1) {
+    const l = tree[2 * t], r = tree[2 * t + 1];
+    tree[t] = diJ[r] < diJ[l] ? r : l;
+    t >>= 1;
+  }
+}
+
+/** Takes slot i out of the tournament (diJ = ∞). */
+function killSlot(ws: ClusterWorkspace, i: number): void {
+  const diJ = ws.diJ, tree = ws.tree;
+  diJ[i] = Infinity;
+  let t = (i + ws.gP) >> 1;
+  while (t >= 1) {
+    const l = tree[2 * t], r = tree[2 * t + 1];
+    tree[t] = diJ[r] < diJ[l] ? r : l;
+    t >>= 1;
+  }
+}
+
+/** Nearest neighbour of slot i within R: block search, tiles skipped by their distance lower bound. */
+function findNN(ws: ClusterWorkspace, i: number): void {
+  const sEta = ws.sEta, sPhi = ws.sPhi, sNext = ws.sNext, tileHead = ws.tileHead;
+  const offY = ws.offY, offU = ws.offU, nOff = ws.gNOff;
+  const nY = ws.gNY, nPhi = ws.gNPhi, wY = ws.gWY, wPhi = ws.gWPhi;
+  const y = sEta[i], f = sPhi[i];
+  const t = ws.sTile[i];
+  const iy = (t / nPhi) | 0;
+  const iu = t - iy * nPhi;
+  const yLo = ws.gYMin + iy * wY;
+  const dyLo = y - yLo - BOUND_MARGIN, dyHi = yLo + wY - y - BOUND_MARGIN;
+  const uLo = iu * wPhi;
+  const duLo = f - uLo - BOUND_MARGIN, duHi = uLo + wPhi - f - BOUND_MARGIN;
+  let best = ws.gR2, bi = -1;
+  let ops = 0;
+  // Lower bound of the distance to any tile of ring r ≥ 1: (r−1)·(smallest tile side) + distance to own edge.
+  let edge = dyLo < dyHi ? dyLo : dyHi;
+  if (duLo < edge) edge = duLo;
+  if (duHi < edge) edge = duHi;
+  if (edge < 0) edge = 0;
+  const wMin = wY < wPhi ? wY : wPhi;
+  let nextRing = 1;
+  for (let q = 0; q < nOff; q++) {
+    if (q === nextRing) {
+      // q = (2r−1)² is the first offset of ring r.
+      const r = (Math.sqrt(q) + 1) >> 1;
+      const rlb = (r - 1) * wMin + edge;
+      if (rlb * rlb >= best) break;
+      nextRing = (2 * r + 1) * (2 * r + 1);
+    }
+    const di = offY[q];
+    const row = iy + di;
+    if (row < 0 || row >= nY) continue;
+    const dj = offU[q];
+    let lbY = di > 0 ? (di - 1) * wY + dyHi : di < 0 ? (-di - 1) * wY + dyLo : 0;
+    let lbU = dj > 0 ? (dj - 1) * wPhi + duHi : dj < 0 ? (-dj - 1) * wPhi + duLo : 0;
+    if (lbY < 0) lbY = 0;
+    if (lbU < 0) lbU = 0;
+    if (lbY * lbY + lbU * lbU >= best) continue;
+    let col = iu + dj;
+    if (col < 0) col += nPhi;
+    else if (col >= nPhi) col -= nPhi;
+    for (let j = tileHead[row * nPhi + col]; j >= 0; j = sNext[j]) {
+      if (j === i) continue;
+      ops++;
+      let dphi = Math.abs(f - sPhi[j]);
+      const deta = y - sEta[j];
+      if (dphi > PI) dphi = TWO_PI - dphi;
+      const dist = dphi * dphi + deta * deta;
+      if (dist < best) {
+        best = dist;
+        bi = j;
+      }
+    }
+  }
+  ws.ops += ops;
+  setNN(ws, i, bi, best);
+}
+
+/**
+ * After the new jet has been put in slot b: finds its NN, and gives it as NN to the jets for which it is closer
+ * than their current NN (tiles whose bound says none of their jets can be are skipped).
+ */
+function scanNewJet(ws: ClusterWorkspace, b: number): void {
+  const sEta = ws.sEta, sPhi = ws.sPhi, sNND = ws.sNND, sNext = ws.sNext, tileHead = ws.tileHead, tileMax = ws.tileMax;
+  const offY = ws.offY, offU = ws.offU, nOff = ws.gNOff;
+  const nY = ws.gNY, nPhi = ws.gNPhi, wY = ws.gWY, wPhi = ws.gWPhi;
+  const y = sEta[b], f = sPhi[b];
+  const t = ws.sTile[b];
+  const iy = (t / nPhi) | 0;
+  const iu = t - iy * nPhi;
+  const yLo = ws.gYMin + iy * wY;
+  const dyLo = y - yLo - BOUND_MARGIN, dyHi = yLo + wY - y - BOUND_MARGIN;
+  const uLo = iu * wPhi;
+  const duLo = f - uLo - BOUND_MARGIN, duHi = uLo + wPhi - f - BOUND_MARGIN;
+  let best = ws.gR2, bi = -1;
+  let ops = 0;
+  for (let q = 0; q < nOff; q++) {
+    const di = offY[q];
+    const row = iy + di;
+    if (row < 0 || row >= nY) continue;
+    const dj = offU[q];
+    let col = iu + dj;
+    if (col < 0) col += nPhi;
+    else if (col >= nPhi) col -= nPhi;
+    const tt = row * nPhi + col;
+    let lbY = di > 0 ? (di - 1) * wY + dyHi : di < 0 ? (-di - 1) * wY + dyLo : 0;
+    let lbU = dj > 0 ? (dj - 1) * wPhi + duHi : dj < 0 ? (-dj - 1) * wPhi + duLo : 0;
+    if (lbY < 0) lbY = 0;
+    if (lbU < 0) lbU = 0;
+    const lb2 = lbY * lbY + lbU * lbU;
+    if (lb2 >= best && lb2 >= tileMax[tt]) continue;
+    let mx = 0;
+    for (let i = tileHead[tt]; i >= 0; i = sNext[i]) {
+      if (i === b) continue;
+      ops++;
+      let dphi = Math.abs(sPhi[i] - f);
+      const deta = sEta[i] - y;
+      if (dphi > PI) dphi = TWO_PI - dphi;
+      const dist = dphi * dphi + deta * deta;
+      if (dist < sNND[i]) {
+        setNN(ws, i, b, dist);
+        updateDiJ(ws, i);
+      }
+      if (dist < best) {
+        best = dist;
+        bi = i;
+      }
+      const d = sNND[i];
+      if (d > mx) mx = d;
+    }
+    // Every jet of the tile was seen: its bound becomes exact (b's own NN distance is added below).
+    tileMax[tt] = mx;
+  }
+  ws.ops += ops;
+  setNN(ws, b, bi, best);
+  updateDiJ(ws, b);
+}
+
+function clusterTiled(ws: ClusterWorkspace, R: number, R2: number, p: number, track: boolean): void {
+  const n = ws.n;
+  const { sEta, sPhi, sMf, sNND, sNN, sNode, diJ, tree, rap, phi, kt2, rHead, rNext, tmp } = ws;
+
+  // Geometry: K rings; nPhi ≥ 2K+1 so that the block's φ columns are distinct.
+  const side = R * (1 + 1e-6);
+  let K = ws.tileRings;
+  let nPhi = Math.floor((TWO_PI * K) / side);
+  while (K > 1 && nPhi < 2 * K + 1) {
+    K--;
+    nPhi = Math.floor((TWO_PI * K) / side);
+  }
+  let yMin = Infinity, yMax = -Infinity;
+  for (let i = 0; i < n; i++) {
+    const y = rap[i];
+    if (y < yMin) yMin = y;
+    if (y > yMax) yMax = y;
+  }
+  let nY = Math.floor(((yMax - yMin) * K) / side);
+  // Bound the tile count by the particle count (a far-out particle must not create a huge grid).
+  const maxY = Math.max(1, Math.floor((4 * n) / nPhi));
+  if (nY > maxY) nY = maxY;
+  if (nY < 1) nY = 1;
+  const nTiles = nY * nPhi;
+  if (ws.tileHead.length < nTiles) {
+    const c = Math.max(nTiles, 2 * ws.tileHead.length);
+    ws.tileHead = new Int32Array(c);
+    ws.tileMax = new Float64Array(c);
+  }
+  ws.tileHead.fill(-1, 0, nTiles);
+  ws.tileMax.fill(0, 0, nTiles);
+  ws.gNY = nY;
+  ws.gNPhi = nPhi;
+  ws.gWY = nY === 1 ? side / K : (yMax - yMin) / nY;
+  ws.gWPhi = TWO_PI / nPhi;
+  ws.gYMin = yMin;
+  ws.gR2 = R2;
+  // Block offsets ordered by ring (own tile first), so that searches shrink their radius early.
+  let nOff = 0;
+  for (let r = 0; r <= K; r++) {
+    for (let di = -r; di <= r; di++) {
+      for (let dj = -r; dj <= r; dj++) {
+        if (Math.max(Math.abs(di), Math.abs(dj)) !== r) continue;
+        ws.offY[nOff] = di;
+        ws.offU[nOff] = dj;
+        nOff++;
+      }
+    }
+  }
+  ws.gNOff = nOff;
+  let P = 1;
+  while (P < n) P <<= 1;
+  ws.gP = P;
+
+  for (let i = 0; i < n; i++) {
+    sEta[i] = rap[i];
+    sPhi[i] = phi[i];
+    sMf[i] = momentumFactor(kt2[i], p);
+    sNode[i] = i;
+    sNN[i] = -1;
+    sNND[i] = R2;
+    rHead[i] = -1;
+  }
+  for (let i = n - 1; i >= 0; i--) tileInsert(ws, i, tileOf(ws, sEta[i], sPhi[i]));
+  for (let i = 0; i < n; i++) findNN(ws, i);
+  for (let i = 0; i < n; i++) {
+    const nn = sNN[i];
+    let mf = sMf[i];
+    if (nn >= 0 && sMf[nn] < mf) mf = sMf[nn];
+    diJ[i] = sNND[i] * mf;
+  }
+  for (let i = n; i < P; i++) diJ[i] = Infinity;
+  for (let i = 0; i < P; i++) tree[P + i] = i;
+  for (let t = P - 1; t >= 1; t--) {
+    const l = tree[2 * t], r = tree[2 * t + 1];
+    tree[t] = diJ[r] < diJ[l] ? r : l;
+  }
+
+  let active = n;
+  while (active > 0) {
+    let a = tree[1];
+    let b = sNN[a];
+    if (b >= 0 && a < b) {
+      const t = a;
+      a = b;
+      b = t;
+    }
+    const hasB = b >= 0;
+    // Detach a and b from the NN graph; collect the jets that had either as NN.
+    unlinkNN(ws, a);
+    if (hasB) unlinkNN(ws, b);
+    let nt = 0;
+    for (let j = rHead[a]; j >= 0; j = rNext[j]) tmp[nt++] = j;
+    rHead[a] = -1;
+    if (hasB) {
+      for (let j = rHead[b]; j >= 0; j = rNext[j]) tmp[nt++] = j;
+      rHead[b] = -1;
+    }
+    for (let q = 0; q < nt; q++) sNN[tmp[q]] = -1;
+
+    tileRemove(ws, a);
+    killSlot(ws, a);
+    active--;
+    if (hasB) {
+      const k = recombine(ws, sNode[a], sNode[b], track);
+      tileRemove(ws, b);
+      sEta[b] = rap[k];
+      sPhi[b] = phi[k];
+      sMf[b] = momentumFactor(kt2[k], p);
+      sNode[b] = k;
+      sNND[b] = R2;
+      tileInsert(ws, b, tileOf(ws, sEta[b], sPhi[b]));
+    } else {
+      ws.jets[ws.nJets++] = sNode[a];
+    }
+
+    // Jets that lost their NN search again (they may find the new jet).
+    for (let q = 0; q < nt; q++) {
+      const i = tmp[q];
+      findNN(ws, i);
+      updateDiJ(ws, i);
+    }
+    if (hasB) scanNewJet(ws, b);
+  }
+}
+
+// ---------------------------------------------------------------------------------------------------------
+// Grid strategy for Cambridge/Aachen with an infinite radius (the re-clustering of a jet into one tree).
+//
+// With p = 0 all momentum factors are 1, so diJ = ΔR² to the NN and the clustering merges, at each step, the
+// geometrically closest pair. The jet's constituents occupy a compact (y, φ) region, tiled here by a grid in
+// (y, u = φ − φ_ref folded into (−π, π]) (valid because the region is narrower than π/2 in φ, so |Δu| is the
+// folded Δφ); tiles hold GRID_OCC jets on average and the grid is rebuilt, coarser, each time the number of jets
+// has fallen by GRID_REBUILD. NN searches go ring by ring and stop when the ring's distance lower bound exceeds
+// the best distance. A jet is "near" when its NN is closer than GRID_NEAR tile sides; the tiles keep an upper
+// bound of their near jets' NN distances, and the other ("far") jets are kept in a list, so that the jets for
+// which a new jet becomes the NN are found among the near tiles around it and in the far list.
+
+const GRID_OCC = 2;
+const GRID_NEAR = 1;
+const GRID_REBUILD = 4;
+/** Below this many particles the plain strategy is used (measured: the grid only pays off for large jets). */
+export const GRID_MIN_PARTICLES = 400;
+
+function foldU(phi: number, ref: number): number {
+  let d = phi - ref;
+  if (d > PI) d -= TWO_PI;
+  else if (d <= -PI) d += TWO_PI;
+  return d;
+}
+
+function gridTileOf(ws: ClusterWorkspace, y: number, u: number): number {
+  const nY = ws.gNY, nU = ws.gNPhi;
+  let iy = Math.floor((y - ws.gYMin) / ws.gWY);
+  if (!(iy >= 0)) iy = 0;
+  else if (iy >= nY) iy = nY - 1;
+  let iu = Math.floor((u - ws.gUMin) / ws.gWPhi);
+  if (!(iu >= 0)) iu = 0;
+  else if (iu >= nU) iu = nU - 1;
+  return iy * nU + iu;
+}
+
+function farAdd(ws: ClusterWorkspace, i: number): void {
+  ws.farPos[i] = ws.nFar;
+  ws.farList[ws.nFar++] = i;
+}
+
+function farRemove(ws: ClusterWorkspace, i: number): void {
+  const pos = ws.farPos[i];
+  const last = ws.farList[--ws.nFar];
+  ws.farList[pos] = last;
+  ws.farPos[last] = pos;
+  ws.farPos[i] = -1;
+}
+
+/** Sets the NN of slot i (grid strategy): reverse lists, near/far class, tile bound. */
+function gridSetNN(ws: ClusterWorkspace, i: number, j: number, d: number): void {
+  const sNN = ws.sNN;
+  const old = sNN[i];
+  if (old !== j) {
+    const rHead = ws.rHead, rNext = ws.rNext, rPrev = ws.rPrev;
+    if (old >= 0) {
+      const pv = rPrev[i], nx = rNext[i];
+      if (pv >= 0) rNext[pv] = nx;
+      else rHead[old] = nx;
+      if (nx >= 0) rPrev[nx] = pv;
+    }
+    if (j >= 0) {
+      const h = rHead[j];
+      rPrev[i] = -1;
+      rNext[i] = h;
+      if (h >= 0) rPrev[h] = i;
+      rHead[j] = i;
+    }
+    sNN[i] = j;
+  }
+  ws.sNND[i] = d;
+  if (d < ws.gR2) {
+    if (ws.farPos[i] >= 0) farRemove(ws, i);
+    const t = ws.sTile[i];
+    if (d > ws.tileMax[t]) ws.tileMax[t] = d;
+  } else if (ws.farPos[i] < 0) {
+    farAdd(ws, i);
+  }
+}
+
+/** Tournament update with key sNND (diJ of C/A). */
+function gridTreeUpdate(ws: ClusterWorkspace, i: number): void {
+  const key = ws.sNND, tree = ws.tree;
+  let t = (i + ws.gP) >> 1;
+  while (t >= 1) {
+    const l = tree[2 * t], r = tree[2 * t + 1];
+    tree[t] = key[r] < key[l] ? r : l;
+    t >>= 1;
+  }
+}
+
+/** (Re)builds the grid over the alive slots; the NN information is kept, the near/far classes recomputed. */
+function gridBuild(ws: ClusterWorkspace, n: number, active: number): void {
+  const { sEta, sU, alive, sNN, sNND, farPos } = ws;
+  let yMin = Infinity, yMax = -Infinity, uMin = Infinity, uMax = -Infinity;
+  for (let i = 0; i < n; i++) {
+    if (!alive[i]) continue;
+    const y = sEta[i], u = sU[i];
+    if (y < yMin) yMin = y;
+    if (y > yMax) yMax = y;
+    if (u < uMin) uMin = u;
+    if (u > uMax) uMax = u;
+  }
+  const T = Math.max(1, Math.floor(active / GRID_OCC));
+  const yR = yMax - yMin, uR = uMax - uMin;
+  let nY = 1, nU = 1;
+  if (yR > 0 && uR > 0) {
+    const w = Math.sqrt((yR * uR) / T);
+    nY = Math.min(T, Math.max(1, Math.round(yR / w)));
+    nU = Math.min(Math.max(1, Math.floor((2 * T) / nY)), Math.max(1, Math.round(uR / w)));
+  } else if (yR > 0) {
+    nY = T;
+  } else if (uR > 0) {
+    nU = T;
+  }
+  const nTiles = nY * nU;
+  if (ws.tileHead.length < nTiles) {
+    const c = Math.max(nTiles, 2 * ws.tileHead.length);
+    ws.tileHead = new Int32Array(c);
+    ws.tileMax = new Float64Array(c);
+  }
+  ws.tileHead.fill(-1, 0, nTiles);
+  ws.tileMax.fill(0, 0, nTiles);
+  ws.gNY = nY;
+  ws.gNPhi = nU;
+  ws.gYMin = yMin;
+  ws.gUMin = uMin;
+  ws.gWY = nY > 1 ? yR / nY : 1;
+  ws.gWPhi = nU > 1 ? uR / nU : 1;
+  const wMin = nY > 1 && nU > 1 ? Math.min(ws.gWY, ws.gWPhi) : nY > 1 ? ws.gWY : nU > 1 ? ws.gWPhi : Infinity;
+  ws.gWMin = wMin;
+  const rs = GRID_NEAR * wMin;
+  ws.gR2 = rs * rs;
+  ws.gBuiltActive = active;
+  ws.nFar = 0;
+  for (let i = n - 1; i >= 0; i--) {
+    if (!alive[i]) continue;
+    tileInsert(ws, i, gridTileOf(ws, sEta[i], sU[i]));
+    farPos[i] = -1;
+  }
+  for (let i = 0; i < n; i++) {
+    if (!alive[i]) continue;
+    const d = sNND[i];
+    if (sNN[i] >= 0 && d < ws.gR2) {
+      const t = ws.sTile[i];
+      if (d > ws.tileMax[t]) ws.tileMax[t] = d;
+    } else {
+      farAdd(ws, i);
+    }
+  }
+}
+
+/**
+ * Ring search around slot i for jets closer than `best` (squared); with `reverse`, also gives i as NN to the
+ * near jets for which it is closer than their NN (rings ≤ GRID_NEAR, tiles pruned by their bound).
+ * Returns the best distance; the best slot is left in ws.gBest.
+ */
+function gridSearch(ws: ClusterWorkspace, i: number, best: number, bi: number, reverse: boolean): number {
+  const { sEta, sPhi, sU, sNND, sNext, tileHead, tileMax, farPos } = ws;
+  const nY = ws.gNY, nU = ws.gNPhi, wY = ws.gWY, wU = ws.gWPhi, wMin = ws.gWMin;
+  const y = sEta[i], f = sPhi[i], u = sU[i];
+  const t = ws.sTile[i];
+  const iy = (t / nU) | 0;
+  const iu = t - iy * nU;
+  const yLo = ws.gYMin + iy * wY;
+  const dyLo = y - yLo - BOUND_MARGIN, dyHi = yLo + wY - y - BOUND_MARGIN;
+  const uLo = ws.gUMin + iu * wU;
+  const duLo = u - uLo - BOUND_MARGIN, duHi = uLo + wU - u - BOUND_MARGIN;
+  let edge = Infinity;
+  if (nY > 1) edge = dyLo < dyHi ? dyLo : dyHi;
+  if (nU > 1) {
+    if (duLo < edge) edge = duLo;
+    if (duHi < edge) edge = duHi;
+  }
+  if (edge < 0) edge = 0;
+  const maxR = nY > nU ? nY : nU;
+  let ops = 0;
+  for (let r = 0; r < maxR; r++) {
+    if (r > 0) {
+      const rlb = (r - 1) * wMin + edge;
+      const rlb2 = rlb * rlb;
+      if (rlb2 >= best && (!reverse || r > GRID_NEAR)) break;
+    }
+    const rev = reverse && r <= GRID_NEAR;
+    const r0 = iy - r < 0 ? 0 : iy - r, r1 = iy + r >= nY ? nY - 1 : iy + r;
+    for (let row = r0; row <= r1; row++) {
+      const di = row - iy;
+      const fullRow = di === -r || di === r;
+      const c0 = iu - r < 0 ? 0 : iu - r, c1 = iu + r >= nU ? nU - 1 : iu + r;
+      let lbY = di > 0 ? (di - 1) * wY + dyHi : di < 0 ? (-di - 1) * wY + dyLo : 0;
+      if (lbY < 0) lbY = 0;
+      const lbY2 = lbY * lbY;
+      for (let col = c0; col <= c1; col++) {
+        const dj = col - iu;
+        if (!fullRow && dj !== -r && dj !== r) {
+          // Interior of the ring: jump to its right edge.
+          if (dj < r) col = iu + r - 1;
+          continue;
+        }
+        let lbU = dj > 0 ? (dj - 1) * wU + duHi : dj < 0 ? (-dj - 1) * wU + duLo : 0;
+        if (lbU < 0) lbU = 0;
+        const lb2 = lbY2 + lbU * lbU;
+        const tt = row * nU + col;
+        if (lb2 >= best && (!rev || lb2 >= tileMax[tt])) continue;
+        if (rev) {
+          let mx = 0;
+          for (let j = tileHead[tt]; j >= 0; j = sNext[j]) {
+            if (j === i) continue;
+            ops++;
+            let dphi = Math.abs(sPhi[j] - f);
+            const deta = sEta[j] - y;
+            if (dphi > PI) dphi = TWO_PI - dphi;
+            const dist = dphi * dphi + deta * deta;
+            if (dist < sNND[j]) {
+              gridSetNN(ws, j, i, dist);
+              gridTreeUpdate(ws, j);
+            }
+            if (dist < best) {
+              best = dist;
+              bi = j;
+            }
+            if (farPos[j] < 0) {
+              const d = sNND[j];
+              if (d > mx) mx = d;
+            }
+          }
+          tileMax[tt] = mx;
+        } else {
+          for (let j = tileHead[tt]; j >= 0; j = sNext[j]) {
+            if (j === i) continue;
+            ops++;
+            let dphi = Math.abs(f - sPhi[j]);
+            const deta = y - sEta[j];
+            if (dphi > PI) dphi = TWO_PI - dphi;
+            const dist = dphi * dphi + deta * deta;
+            if (dist < best) {
+              best = dist;
+              bi = j;
+            }
+          }
+        }
+      }
+    }
+  }
+  ws.ops += ops;
+  ws.gBest = bi;
+  return best;
+}
+
+/**
+ * C/A with an infinite radius on the particles loaded in ws, grid strategy. Returns false (having done nothing)
+ * when the particles are spread over π/2 or more in φ (the plain strategy must then be used).
+ */
+function clusterGridCA(ws: ClusterWorkspace, track: boolean): boolean {
+  const n = ws.n;
+  const { sEta, sPhi, sU, sNND, sNN, sNode, tree, rap, phi, rHead, rNext, tmp, alive } = ws;
+  const ref = phi[0];
+  let uMin = Infinity, uMax = -Infinity;
+  for (let i = 0; i < n; i++) {
+    const u = foldU(phi[i], ref);
+    if (u < uMin) uMin = u;
+    if (u > uMax) uMax = u;
+    sU[i] = u;
+  }
+  if (!(uMax - uMin < PI / 2)) return false;
+  for (let i = 0; i < n; i++) {
+    sEta[i] = rap[i];
+    sPhi[i] = phi[i];
+    sNode[i] = i;
+    sNN[i] = -1;
+    sNND[i] = Infinity;
+    rHead[i] = -1;
+    alive[i] = 1;
+  }
+  gridBuild(ws, n, n);
+  for (let i = 0; i < n; i++) {
+    const best = gridSearch(ws, i, Infinity, -1, false);
+    gridSetNN(ws, i, ws.gBest, best);
+  }
+  let P = 1;
+  while (P < n) P <<= 1;
+  ws.gP = P;
+  for (let i = n; i < P; i++) sNND[i] = Infinity;
+  for (let i = 0; i < P; i++) tree[P + i] = i;
+  for (let t = P - 1; t >= 1; t--) {
+    const l = tree[2 * t], r = tree[2 * t + 1];
+    tree[t] = sNND[r] < sNND[l] ? r : l;
+  }
+
+  let active = n;
+  let last = 0;
+  while (active > 1) {
+    let a = tree[1];
+    let b = sNN[a];
+    if (a < b) {
+      const t = a;
+      a = b;
+      b = t;
+    }
+    unlinkNN(ws, a);
+    unlinkNN(ws, b);
+    let nt = 0;
+    for (let j = rHead[a]; j >= 0; j = rNext[j]) tmp[nt++] = j;
+    rHead[a] = -1;
+    for (let j = rHead[b]; j >= 0; j = rNext[j]) tmp[nt++] = j;
+    rHead[b] = -1;
+    for (let q = 0; q < nt; q++) sNN[tmp[q]] = -1;
+
+    if (ws.farPos[a] >= 0) farRemove(ws, a);
+    if (ws.farPos[b] >= 0) farRemove(ws, b);
+    tileRemove(ws, a);
+    tileRemove(ws, b);
+    alive[a] = 0;
+    sNND[a] = Infinity;
+    gridTreeUpdate(ws, a);
+    const k = recombine(ws, sNode[a], sNode[b], track);
+    sEta[b] = rap[k];
+    sPhi[b] = phi[k];
+    sU[b] = foldU(phi[k], ref);
+    sNode[b] = k;
+    sNND[b] = Infinity;
+    last = b;
+    active--;
+    if (active === 1) break;
+    if (active * GRID_REBUILD <= ws.gBuiltActive && active >= GRID_OCC * 4) {
+      gridBuild(ws, n, active);
+    } else {
+      tileInsert(ws, b, gridTileOf(ws, sEta[b], sU[b]));
+      farAdd(ws, b);
+    }
+    for (let q = 0; q < nt; q++) {
+      const i = tmp[q];
+      const best = gridSearch(ws, i, Infinity, -1, false);
+      gridSetNN(ws, i, ws.gBest, best);
+      gridTreeUpdate(ws, i);
+    }
+    // The new jet: near jets around it and the far list may take it as NN; its own NN.
+    let best = gridSearch(ws, b, Infinity, -1, true);
+    let bi = ws.gBest;
+    const farList = ws.farList;
+    for (let q = ws.nFar - 1; q >= 0; q--) {
+      const j = farList[q];
+      if (j === b) continue;
+      let dphi = Math.abs(sPhi[j] - sPhi[b]);
+      const deta = sEta[j] - sEta[b];
+      if (dphi > PI) dphi = TWO_PI - dphi;
+      const dist = dphi * dphi + deta * deta;
+      if (dist < sNND[j]) {
+        gridSetNN(ws, j, b, dist);
+        gridTreeUpdate(ws, j);
+      }
+      if (dist < best) {
+        best = dist;
+        bi = j;
+      }
+    }
+    ws.ops += ws.nFar;
+    gridSetNN(ws, b, bi, best);
+    gridTreeUpdate(ws, b);
+  }
+  ws.jets[0] = sNode[last];
+  ws.nJets = 1;
+  return true;
+}
+
+// ---------------------------------------------------------------------------------------------------------
+// Convenience (tests, tools): not the hot path.
+
+export interface FoundJet {
+  px: number;
+  py: number;
+  pz: number;
+  E: number;
+  pt: number;
+  y: number;
+  phi: number;
+  /** Number of constituents. */
+  n: number;
+  /** Constituent particle indices (input order numbers), in FastJet's constituents() order. */
+  constituents: number[];
+}
+
+/** Inclusive jets of particles p (px,py,pz,E interleaved), in the order the algorithm found them. */
+export function findJets(p: Float64Array, algorithm: Algorithm, R: number, strategy: ClusterStrategy = 'auto'): FoundJet[] {
+  const ws = new ClusterWorkspace();
+  loadParticles(ws, p, p.length / 4);
+  cluster(ws, { p: algorithmExponent(algorithm), R, strategy, trackConstituents: true });
+  const out: FoundJet[] = [];
+  for (let j = 0; j < ws.nJets; j++) {
+    const k = ws.jets[j];
+    const constituents: number[] = [];
+    for (let c = ws.first[k]; c >= 0; c = ws.next[c]) constituents.push(c);
+    out.push({
+      px: ws.px[k], py: ws.py[k], pz: ws.pz[k], E: ws.E[k],
+      pt: Math.sqrt(ws.kt2[k]), y: ws.rap[k], phi: ws.phi[k],
+      n: ws.count[k], constituents,
+    });
+  }
+  return out;
+}

@@ -1,0 +1,119 @@
+// The engine's hot path: one record's particles → selected jets → C/A tree → splittings and observables.
+// (PHYSICS.md "Jet clustering", "Declustering and the emission plane", "Derived jet observables".)
+//
+// Scratch memory is module-level and only grows, so processing a stream of records allocates nothing but the
+// results themselves (one Float64Array per jet for its splittings, one for the full tree when asked).
+
+import { ClusterWorkspace, algorithmExponent, cluster, loadConstituents, loadParticles } from './cluster';
+import { declusterAll, declusterPrimary, reclusterCA } from './decluster';
+import { primaryMultiplicity, softDrop } from './observables';
+import type { JetResult, ProcessSettings, RecordResult } from './types';
+import { SPLIT_STRIDE } from './types';
+
+const finder = new ClusterWorkspace();
+const recl = new ClusterWorkspace();
+let splitBuf = new Float64Array(256 * SPLIT_STRIDE);
+let stack = new Int32Array(512);
+let candNode = new Int32Array(64);
+let candKt2 = new Float64Array(64);
+
+function ensureScratch(n: number): void {
+  if (splitBuf.length < n * SPLIT_STRIDE) splitBuf = new Float64Array(Math.max(n, 2 * (splitBuf.length / SPLIT_STRIDE)) * SPLIT_STRIDE);
+  if (stack.length < 2 * (n + 1)) stack = new Int32Array(Math.max(2 * (n + 1), 2 * stack.length));
+}
+
+/**
+ * Declusters the C/A tree in `recl` rooted at `root` and fills a JetResult with the given jet kinematics.
+ */
+function jetFromTree(root: number, nConst: number, pt: number, y: number, phi: number, m: number, s: ProcessSettings): JetResult {
+  ensureScratch(nConst);
+  const np = declusterPrimary(recl, root, splitBuf, 0);
+  const primary = splitBuf.slice(0, np * SPLIT_STRIDE);
+  let all: Float64Array | null = null;
+  if (s.fullTree) {
+    const na = declusterAll(recl, root, splitBuf, 0, stack);
+    all = splitBuf.slice(0, na * SPLIT_STRIDE);
+  }
+  return {
+    pt, y, phi, m, n: nConst,
+    primary,
+    all,
+    softDrop: softDrop(primary, np, s.softDrop),
+    multiplicity: primaryMultiplicity(primary, np, s.multiplicityKtCut),
+  };
+}
+
+function signedMass(ws: ClusterWorkspace, k: number): number {
+  const px = ws.px[k], py = ws.py[k], pz = ws.pz[k], e = ws.E[k];
+  const m2 = (e + pz) * (e - pz) - (px * px + py * py);
+  return m2 >= 0 ? Math.sqrt(m2) : -Math.sqrt(-m2);
+}
+
+/**
+ * Processes one record. `p` holds px, py, pz, E interleaved (GeV, already validated by the reader).
+ * content 'events': jets are found with s.jet, then cut in this order: pt > ptMin, |y| < yMax, at most maxJets
+ * leading jets (rejections are counted by the first cut that fails); the kept jets are sorted by pt, descending
+ * (ties keep the order in which the algorithm produced them). content 'jets': the record is one jet (the C/A
+ * tree of all its particles; its four-momentum is the root's), the pt and |y| cuts still apply.
+ * Each kept jet is re-clustered with C/A, declustered (primary sequence, and the full tree if s.fullTree), and
+ * gets its SoftDrop and primary multiplicity.
+ */
+export function processParticles(p: Float64Array, s: ProcessSettings): RecordResult {
+  const n = p.length >> 2;
+  const jets: JetResult[] = [];
+  const rejected = { pt: 0, y: 0, rank: 0 };
+  if (n === 0) return { jets, rejected };
+  const { ptMin, yMax } = s.jet;
+  const maxJets = s.jet.maxJets == null ? Infinity : s.jet.maxJets;
+
+  if (s.content === 'jets') {
+    loadParticles(recl, p, n);
+    const root = reclusterCA(recl);
+    const pt = Math.sqrt(recl.kt2[root]);
+    const y = recl.rap[root];
+    if (!(pt > ptMin)) rejected.pt++;
+    else if (!(Math.abs(y) < yMax)) rejected.y++;
+    else if (maxJets < 1) rejected.rank++;
+    else jets.push(jetFromTree(root, n, pt, y, recl.phi[root], signedMass(recl, root), s));
+    return { jets, rejected };
+  }
+
+  loadParticles(finder, p, n);
+  cluster(finder, { p: algorithmExponent(s.jet.algorithm), R: s.jet.R, trackConstituents: true });
+  const nj = finder.nJets;
+  if (candNode.length < nj) {
+    candNode = new Int32Array(Math.max(nj, 2 * candNode.length));
+    candKt2 = new Float64Array(candNode.length);
+  }
+  // Cuts pt, |y|; insertion into a list sorted by pt² descending (stable for equal pt).
+  let nc = 0;
+  for (let j = 0; j < nj; j++) {
+    const k = finder.jets[j];
+    const k2 = finder.kt2[k];
+    if (!(Math.sqrt(k2) > ptMin)) {
+      rejected.pt++;
+      continue;
+    }
+    if (!(Math.abs(finder.rap[k]) < yMax)) {
+      rejected.y++;
+      continue;
+    }
+    let i = nc++;
+    while (i > 0 && candKt2[i - 1] < k2) {
+      candKt2[i] = candKt2[i - 1];
+      candNode[i] = candNode[i - 1];
+      i--;
+    }
+    candKt2[i] = k2;
+    candNode[i] = k;
+  }
+  const keep = nc < maxJets ? nc : maxJets;
+  rejected.rank = nc - keep;
+  for (let i = 0; i < keep; i++) {
+    const k = candNode[i];
+    const nConst = loadConstituents(recl, finder, k);
+    const root = reclusterCA(recl);
+    jets.push(jetFromTree(root, nConst, Math.sqrt(finder.kt2[k]), finder.rap[k], finder.phi[k], signedMass(finder, k), s));
+  }
+  return { jets, rejected };
+}

@@ -1,0 +1,205 @@
+// Seeded pseudo-random test inputs for the tests and the benchmark (not physics simulation: plausible shapes
+// with collimated sprays, soft background, optional masses, and awkward placements such as φ ≈ 0 ≈ 2π).
+//
+// The generator is mulberry32 (Tommy Ettinger, 2017, public domain; a 32-bit state, period 2^32, passes
+// gjrand/PractRand to a few GB): small, fast and reproducible across platforms because it only uses 32-bit
+// integer arithmetic (Math.imul) and one division by 2^32.
+
+import { TWO_PI, fromPtYPhiM } from './fourvector';
+
+export class Rng {
+  private s: number;
+  constructor(seed: number) {
+    this.s = seed >>> 0;
+  }
+  /** Uniform in [0, 1) (32-bit resolution). mulberry32. */
+  next(): number {
+    this.s = (this.s + 0x6d2b79f5) >>> 0;
+    let t = this.s;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  }
+  uniform(a: number, b: number): number {
+    return a + (b - a) * this.next();
+  }
+  /** Integer in [a, b]. */
+  int(a: number, b: number): number {
+    return a + Math.floor(this.next() * (b - a + 1));
+  }
+  /** Standard normal (Box–Muller). */
+  normal(): number {
+    const u = 1 - this.next(); // (0, 1]
+    const v = this.next();
+    return Math.sqrt(-2 * Math.log(u)) * Math.cos(TWO_PI * v);
+  }
+  /** Exponential with the given mean. */
+  exponential(mean: number): number {
+    return -mean * Math.log(1 - this.next());
+  }
+}
+
+function rngOf(seed: number | Rng): Rng {
+  return typeof seed === 'number' ? new Rng(seed) : seed;
+}
+
+/** Hadron-like masses (GeV) used when particles are massive: π±, K±, p, and a few heavier "clusters". */
+const MASSES = [0.13957, 0.13957, 0.13957, 0.493677, 0.938272, 1.5, 3.0];
+
+export interface SprayOptions {
+  /** Number of particles. */
+  n: number;
+  /** Total pt (GeV) of the spray (approximately: particles are massive or not). */
+  pt: number;
+  /** Axis rapidity and azimuth. */
+  y: number;
+  phi: number;
+  /** Angular scale of the spray (distance of a typical particle from the axis). Default 0.15. */
+  spread?: number;
+  /** Fraction of massive particles (0..1). Default 0. */
+  massiveFraction?: number;
+}
+
+/**
+ * Writes a collimated spray of particles at out[4·at..]: angles from the axis are |gaussian|·spread with a
+ * tail (hard-collinear core plus wider soft radiation), momentum fractions from a steeply falling distribution.
+ */
+function spray(rng: Rng, o: SprayOptions, out: Float64Array, at: number): void {
+  const spread = o.spread ?? 0.15;
+  const mf = o.massiveFraction ?? 0;
+  const n = o.n;
+  // Momentum fractions: x ∝ exp(−4u)·(a few hard ones), normalised.
+  const xs = new Float64Array(n);
+  let sum = 0;
+  for (let i = 0; i < n; i++) {
+    const x = i < 2 ? rng.uniform(0.3, 1) : Math.exp(-6 * rng.next()) * rng.uniform(0.05, 1);
+    xs[i] = x;
+    sum += x;
+  }
+  for (let i = 0; i < n; i++) {
+    const ptI = (o.pt * xs[i]) / sum;
+    // Softer particles go wider.
+    const r = Math.abs(rng.normal()) * spread * (0.3 + 1.5 * Math.sqrt(1 - xs[i] / (xs[i] + 0.2)));
+    const th = rng.uniform(0, TWO_PI);
+    const y = o.y + r * Math.cos(th);
+    let phi = o.phi + r * Math.sin(th);
+    phi -= TWO_PI * Math.floor(phi / TWO_PI);
+    const m = rng.next() < mf ? MASSES[rng.int(0, MASSES.length - 1)] : 0;
+    fromPtYPhiM(ptI, y, phi, m, out, 4 * (at + i));
+  }
+}
+
+export interface EventOptions {
+  /** Total number of particles (jets + background). */
+  nParticles: number;
+  /** Number of jets (collimated sprays). Default 3. */
+  nJets?: number;
+  /** Fraction of the particles that belong to the sprays. Default 0.5. */
+  jetFraction?: number;
+  /** Spray pt range (GeV). Default [40, 400]. */
+  jetPt?: [number, number];
+  /** Spray axes have |y| below this. Default 2.2. */
+  jetYMax?: number;
+  /** Angular scale of the sprays. Default 0.15. */
+  spread?: number;
+  /** Background particles are uniform in |y| < this. Default 4. */
+  backgroundYMax?: number;
+  /** Mean background pt (GeV; exponential above 0.2). Default 1. */
+  backgroundPt?: number;
+  /** Fraction of massive particles. Default 0. */
+  massiveFraction?: number;
+  /** Place the spray axes close to φ = 0 ≡ 2π, so jets straddle the wrap. Default false. */
+  nearPhiWrap?: boolean;
+}
+
+/** One event of N particles: a few collimated sprays plus soft uniform background. px,py,pz,E interleaved. */
+export function generateEvent(seed: number | Rng, o: EventOptions): Float64Array {
+  const rng = rngOf(seed);
+  const N = o.nParticles;
+  const nJets = Math.max(0, Math.min(o.nJets ?? 3, N));
+  const [ptLo, ptHi] = o.jetPt ?? [40, 400];
+  const jetYMax = o.jetYMax ?? 2.2;
+  const bgY = o.backgroundYMax ?? 4;
+  const bgPt = o.backgroundPt ?? 1;
+  const mf = o.massiveFraction ?? 0;
+  const out = new Float64Array(4 * N);
+  const nInJets = nJets === 0 ? 0 : Math.max(nJets, Math.round(N * (o.jetFraction ?? 0.5)));
+  let at = 0;
+  for (let j = 0; j < nJets; j++) {
+    const nj = Math.floor(nInJets / nJets) + (j < nInJets % nJets ? 1 : 0);
+    const phi = o.nearPhiWrap ? (rng.uniform(-0.15, 0.15) + TWO_PI) % TWO_PI : rng.uniform(0, TWO_PI);
+    spray(rng, {
+      n: nj,
+      pt: ptLo * Math.pow(ptHi / ptLo, rng.next()),
+      y: rng.uniform(-jetYMax, jetYMax),
+      phi,
+      spread: o.spread,
+      massiveFraction: mf,
+    }, out, at);
+    at += nj;
+  }
+  for (; at < N; at++) {
+    const m = rng.next() < mf ? MASSES[rng.int(0, MASSES.length - 1)] : 0;
+    fromPtYPhiM(0.2 + rng.exponential(bgPt), rng.uniform(-bgY, bgY), rng.uniform(0, TWO_PI), m, out, 4 * at);
+  }
+  // Shuffle so that jets' particles are not contiguous (Fisher–Yates on particles).
+  for (let i = N - 1; i > 0; i--) {
+    const k = rng.int(0, i);
+    for (let c = 0; c < 4; c++) {
+      const t = out[4 * i + c];
+      out[4 * i + c] = out[4 * k + c];
+      out[4 * k + c] = t;
+    }
+  }
+  return out;
+}
+
+export interface JetOptions {
+  /** Number of constituents. */
+  nConstituents: number;
+  /** Jet pt (GeV). Default: uniform in [100, 1000]. */
+  pt?: number;
+  /** Axis; defaults: y uniform in ±2, φ uniform (or near 0 with nearPhiWrap). */
+  y?: number;
+  phi?: number;
+  spread?: number;
+  massiveFraction?: number;
+  nearPhiWrap?: boolean;
+}
+
+/** One pre-clustered jet: a spray of nConstituents particles. px,py,pz,E interleaved. */
+export function generateJet(seed: number | Rng, o: JetOptions): Float64Array {
+  const rng = rngOf(seed);
+  const n = o.nConstituents;
+  const out = new Float64Array(4 * n);
+  const phi = o.phi ?? (o.nearPhiWrap ? (rng.uniform(-0.1, 0.1) + TWO_PI) % TWO_PI : rng.uniform(0, TWO_PI));
+  spray(rng, {
+    n,
+    pt: o.pt ?? rng.uniform(100, 1000),
+    y: o.y ?? rng.uniform(-2, 2),
+    phi,
+    spread: o.spread ?? 0.12,
+    massiveFraction: o.massiveFraction,
+  }, out, 0);
+  return out;
+}
+
+/** `count` events from one seed. */
+export function generateEvents(seed: number, count: number, o: EventOptions): Float64Array[] {
+  const rng = new Rng(seed);
+  const out: Float64Array[] = [];
+  for (let i = 0; i < count; i++) out.push(generateEvent(rng, o));
+  return out;
+}
+
+/** `count` jets from one seed; the constituent count varies by ±spreadN around nConstituents (default ±20%). */
+export function generateJets(seed: number, count: number, o: JetOptions & { spreadN?: number }): Float64Array[] {
+  const rng = new Rng(seed);
+  const out: Float64Array[] = [];
+  const dn = o.spreadN ?? Math.round(0.2 * o.nConstituents);
+  for (let i = 0; i < count; i++) {
+    const n = Math.max(1, o.nConstituents + rng.int(-dn, dn));
+    out.push(generateJet(rng, { ...o, nConstituents: n }));
+  }
+  return out;
+}
