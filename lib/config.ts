@@ -30,9 +30,10 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
   const values = parsed.data;
   // The ignore comments stop the bundler from tracing the whole project: these paths are only known at run time.
   const storageDir = path.resolve(/*turbopackIgnore: true*/ values.SPLITFIELD_STORAGE ?? 'storage');
+  const databasePath = values.SPLITFIELD_DB ?? path.join(storageDir, 'splitfield.sqlite');
   return {
     storageDir,
-    databasePath: path.resolve(/*turbopackIgnore: true*/ values.SPLITFIELD_DB ?? path.join(storageDir, 'splitfield.sqlite')),
+    databasePath: path.resolve(/*turbopackIgnore: true*/ databasePath),
     host: values.HOST ?? '127.0.0.1',
     port: values.PORT ?? 3000,
   };

@@ -1,12 +1,6 @@
-import {
-  DataTypes,
-  Model,
-  type CreationOptional,
-  type InferAttributes,
-  type InferCreationAttributes,
-  type NonAttribute,
-  type Sequelize,
-} from 'sequelize';
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from 'sequelize';
+import type { NonAttribute, Sequelize } from 'sequelize';
+import { idColumn, tableOptions, timestampColumns } from './columns';
 import type { User } from './user';
 import { ENTRY_KINDS, type EntryKind } from './vocabulary';
 
@@ -31,23 +25,18 @@ export function defineEntry(sequelize: Sequelize) {
   }
   return Entry.init(
     {
-      id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
+      ...idColumn,
       studyId: { type: DataTypes.INTEGER, allowNull: false },
-      kind: {
-        type: DataTypes.STRING,
-        allowNull: false,
-        validate: { isIn: [[...ENTRY_KINDS]] },
-      },
+      kind: { type: DataTypes.STRING, allowNull: false, validate: { isIn: [[...ENTRY_KINDS]] } },
       position: { type: DataTypes.INTEGER, allowNull: false },
       title: { type: DataTypes.STRING, allowNull: false, defaultValue: '' },
       body: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
       settings: { type: DataTypes.JSON, allowNull: false, defaultValue: {} },
       createdById: { type: DataTypes.INTEGER, allowNull: true },
       updatedById: { type: DataTypes.INTEGER, allowNull: true },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      ...timestampColumns,
     },
-    { sequelize, tableName: 'entries', underscored: true },
+    tableOptions(sequelize, 'entries'),
   );
 }
 

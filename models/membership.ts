@@ -1,12 +1,6 @@
-import {
-  DataTypes,
-  Model,
-  type CreationOptional,
-  type InferAttributes,
-  type InferCreationAttributes,
-  type NonAttribute,
-  type Sequelize,
-} from 'sequelize';
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from 'sequelize';
+import type { NonAttribute, Sequelize } from 'sequelize';
+import { idColumn, tableOptions, timestampColumns } from './columns';
 import type { User } from './user';
 import { STUDY_ROLES, type StudyRole } from './vocabulary';
 
@@ -22,18 +16,13 @@ export function defineMembership(sequelize: Sequelize) {
   }
   return Membership.init(
     {
-      id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
+      ...idColumn,
       studyId: { type: DataTypes.INTEGER, allowNull: false },
       userId: { type: DataTypes.INTEGER, allowNull: false },
-      role: {
-        type: DataTypes.STRING,
-        allowNull: false,
-        validate: { isIn: [[...STUDY_ROLES]] },
-      },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      role: { type: DataTypes.STRING, allowNull: false, validate: { isIn: [[...STUDY_ROLES]] } },
+      ...timestampColumns,
     },
-    { sequelize, tableName: 'memberships', underscored: true },
+    tableOptions(sequelize, 'memberships'),
   );
 }
 

@@ -1,11 +1,6 @@
-import {
-  DataTypes,
-  Model,
-  type CreationOptional,
-  type InferAttributes,
-  type InferCreationAttributes,
-  type Sequelize,
-} from 'sequelize';
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from 'sequelize';
+import type { Sequelize } from 'sequelize';
+import { tableOptions, timestampColumns } from './columns';
 
 export const SITE_SETTINGS_ID = 1;
 
@@ -21,10 +16,9 @@ export function defineSiteSetting(sequelize: Sequelize) {
     {
       id: { type: DataTypes.INTEGER, primaryKey: true },
       openSignup: { type: DataTypes.BOOLEAN, allowNull: false },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      ...timestampColumns,
     },
-    { sequelize, tableName: 'site_settings', underscored: true },
+    tableOptions(sequelize, 'site_settings'),
   );
 }
 

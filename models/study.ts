@@ -1,11 +1,6 @@
-import {
-  DataTypes,
-  Model,
-  type CreationOptional,
-  type InferAttributes,
-  type InferCreationAttributes,
-  type Sequelize,
-} from 'sequelize';
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from 'sequelize';
+import type { Sequelize } from 'sequelize';
+import { idColumn, tableOptions, timestampColumns } from './columns';
 
 export function defineStudy(sequelize: Sequelize) {
   class Study extends Model<InferAttributes<Study>, InferCreationAttributes<Study>> {
@@ -17,13 +12,12 @@ export function defineStudy(sequelize: Sequelize) {
   }
   return Study.init(
     {
-      id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
+      ...idColumn,
       title: { type: DataTypes.STRING, allowNull: false },
       description: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      ...timestampColumns,
     },
-    { sequelize, tableName: 'studies', underscored: true },
+    tableOptions(sequelize, 'studies'),
   );
 }
 

@@ -1,11 +1,6 @@
-import {
-  DataTypes,
-  Model,
-  type CreationOptional,
-  type InferAttributes,
-  type InferCreationAttributes,
-  type Sequelize,
-} from 'sequelize';
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from 'sequelize';
+import type { Sequelize } from 'sequelize';
+import { idColumn, tableOptions, timestampColumns } from './columns';
 import { SITE_ROLES, type SiteRole } from './vocabulary';
 
 export function defineUser(sequelize: Sequelize) {
@@ -24,7 +19,7 @@ export function defineUser(sequelize: Sequelize) {
   }
   return User.init(
     {
-      id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
+      ...idColumn,
       email: { type: DataTypes.STRING, allowNull: false, unique: true },
       name: { type: DataTypes.STRING, allowNull: false },
       passwordHash: { type: DataTypes.STRING, allowNull: false },
@@ -36,10 +31,9 @@ export function defineUser(sequelize: Sequelize) {
       },
       disabled: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
       sessionVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      ...timestampColumns,
     },
-    { sequelize, tableName: 'users', underscored: true },
+    tableOptions(sequelize, 'users'),
   );
 }
 

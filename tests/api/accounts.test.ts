@@ -1,12 +1,12 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { Client, postSignIn, signIn, startTestServer, type TestServer } from '../support/server';
+import { Client, postSignIn, signIn, type TestServer } from '../support/server';
+import { serverWithAdmin } from './fixtures';
 
 let server: TestServer;
 let admin: Client;
 
 beforeAll(async () => {
-  server = await startTestServer();
-  admin = await signIn(server.baseUrl, server.credentials.admin.email, server.credentials.admin.password);
+  ({ server, admin } = await serverWithAdmin());
 });
 afterAll(() => server?.stop());
 

@@ -2,8 +2,8 @@
 // A route file under app/api whose route or method is missing here fails the coverage test, so new routes
 // have to be added to this table.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { Client, signIn, startTestServer, type TestServer } from '../support/server';
-import { addMember, newAccount, newNote, newPerson, newStudy, type Person } from './fixtures';
+import { Client, type TestServer } from '../support/server';
+import { addMember, newAccount, newNote, newPerson, newStudy, serverWithAdmin, type Person } from './fixtures';
 import { apiRouteMethods } from './route-inventory';
 
 const ACTORS = ['anonymous', 'nonMember', 'viewer', 'commenter', 'editor', 'owner', 'admin'] as const;
@@ -38,6 +38,9 @@ function statuses(...codes: number[]): Record<Actor, number> {
   return Object.fromEntries(ACTORS.map((actor, i) => [actor, codes[i]])) as Record<Actor, number>;
 }
 
+const admin = (world: World) => world.clients.admin;
+const inStudy = (world: World, rest = '') => `/api/studies/${world.studyId}${rest}`;
+
 async function freshStudy(world: World): Promise<number> {
   const owner = world.people.owner;
   const study = await newStudy(owner.client, 'Throwaway study');
@@ -47,24 +50,26 @@ async function freshStudy(world: World): Promise<number> {
   return study;
 }
 
-async function freshMember(world: World): Promise<number> {
-  const account = await newAccount(world.server, 'target');
-  await addMember(world.people.owner.client, world.studyId, account.email, 'viewer');
-  return account.id;
-}
-
 async function memberRole(world: World, userId: number): Promise<string | undefined> {
   const detail = await world.people.owner.client.get(`/api/studies/${world.studyId}`);
   return detail.body.members.find((member: { userId: number }) => member.userId === userId)?.role;
+}
+
+/** A call on a new viewer of the matrix study, who must still be a viewer when the call is refused. */
+async function onFreshMember(world: World, body?: unknown): Promise<Call> {
+  const account = await newAccount(world.server, 'target');
+  await addMember(world.people.owner.client, world.studyId, account.email, 'viewer');
+  return {
+    path: inStudy(world, `/members/${account.id}`),
+    body,
+    unchanged: async () => expect(await memberRole(world, account.id)).toBe('viewer'),
+  };
 }
 
 async function entryBodies(world: World): Promise<string[]> {
   const list = await world.people.owner.client.get(`/api/studies/${world.studyId}/entries`);
   return list.body.entries.map((entry: { body: string }) => entry.body);
 }
-
-const admin = (world: World) => world.clients.admin;
-const inStudy = (world: World, rest = '') => `/api/studies/${world.studyId}${rest}`;
 
 //                                                    anon nonMem viewer comm  editor owner admin
 const ROWS: Row[] = [
@@ -202,26 +207,13 @@ const ROWS: Row[] = [
   {
     method: 'PATCH',
     route: '/api/studies/[studyId]/members/[userId]',
-    call: async (world) => {
-      const member = await freshMember(world);
-      return {
-        path: inStudy(world, `/members/${member}`),
-        body: { role: 'commenter' },
-        unchanged: async () => expect(await memberRole(world, member)).toBe('viewer'),
-      };
-    },
+    call: (world) => onFreshMember(world, { role: 'commenter' }),
     expected: statuses(401, 404, 403, 403, 403, 200, 200),
   },
   {
     method: 'DELETE',
     route: '/api/studies/[studyId]/members/[userId]',
-    call: async (world) => {
-      const member = await freshMember(world);
-      return {
-        path: inStudy(world, `/members/${member}`),
-        unchanged: async () => expect(await memberRole(world, member)).toBe('viewer'),
-      };
-    },
+    call: (world) => onFreshMember(world),
     expected: statuses(401, 404, 403, 403, 403, 204, 204),
   },
   {
@@ -271,7 +263,7 @@ const ROWS: Row[] = [
 let world: World;
 
 beforeAll(async () => {
-  const server = await startTestServer();
+  const { server, admin: adminClient } = await serverWithAdmin();
   const people = {
     owner: await newPerson(server, 'owner'),
     viewer: await newPerson(server, 'viewer'),
@@ -279,7 +271,6 @@ beforeAll(async () => {
     editor: await newPerson(server, 'editor'),
   };
   const outsider = await newPerson(server, 'non-member');
-  const adminClient = await signIn(server.baseUrl, server.credentials.admin.email, server.credentials.admin.password);
   const studyId = await newStudy(people.owner.client, 'Matrix study');
   for (const role of ['viewer', 'commenter', 'editor'] as const) {
     await addMember(people.owner.client, studyId, people[role].email, role);

@@ -1,7 +1,7 @@
 // People and studies made through the API itself, for the API tests.
 import { expect } from 'vitest';
 import type { StudyRole } from '@/models/vocabulary';
-import { Client, signIn, type TestServer } from '../support/server';
+import { Client, signIn, startTestServer, type TestServer } from '../support/server';
 
 export interface Person {
   id: number;
@@ -10,6 +10,13 @@ export interface Person {
   password: string;
   /** Signed in as this person. */
   client: Client;
+}
+
+/** A fresh server and its demo admin, signed in. */
+export async function serverWithAdmin(): Promise<{ server: TestServer; admin: Client }> {
+  const server = await startTestServer();
+  const { email, password } = server.credentials.admin;
+  return { server, admin: await signIn(server.baseUrl, email, password) };
 }
 
 let made = 0;

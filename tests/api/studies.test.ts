@@ -1,15 +1,14 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { STUDY_TITLE_MAX } from '@/models/vocabulary';
-import { Client, signIn, startTestServer, type TestServer } from '../support/server';
-import { addMember, newNote, newPerson, newStudy, type Person } from './fixtures';
+import type { Client, TestServer } from '../support/server';
+import { addMember, newNote, newPerson, newStudy, serverWithAdmin, type Person } from './fixtures';
 
 let server: TestServer;
 let admin: Client;
 let owner: Person;
 
 beforeAll(async () => {
-  server = await startTestServer();
-  admin = await signIn(server.baseUrl, server.credentials.admin.email, server.credentials.admin.password);
+  ({ server, admin } = await serverWithAdmin());
   owner = await newPerson(server, 'owner');
 });
 afterAll(() => server?.stop());
