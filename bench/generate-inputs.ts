@@ -1,0 +1,56 @@
+// Writes a benchmark input file in the splitfield-particles format (JSON Lines, streamed, full double precision)
+// from the seeded generators of lib/physics/test-events.ts.
+//   node bench/out/generate-inputs.cjs --kind jets|events --count N --n PARTICLES --seed S --out FILE
+import { createWriteStream } from 'node:fs';
+import { once } from 'node:events';
+import { parseArgs } from 'node:util';
+import { Rng, generateEvent, generateJet } from '../lib/physics/test-events';
+
+async function main(): Promise<void> {
+  const { values: v } = parseArgs({
+    options: {
+      kind: { type: 'string' },
+      count: { type: 'string' },
+      n: { type: 'string' },
+      seed: { type: 'string', default: '1' },
+      out: { type: 'string' },
+    },
+  });
+  const kind = v.kind === 'events' ? 'events' : 'jets';
+  const count = Number(v.count);
+  const n = Number(v.n);
+  if (!v.out || !(count > 0) || !(n > 0)) throw new Error('usage: --kind jets|events --count N --n PARTICLES --out FILE');
+  const out = createWriteStream(v.out);
+  const header = {
+    format: 'splitfield-particles',
+    version: 1,
+    content: kind,
+    momentum: 'px,py,pz,E',
+    energyUnit: 'GeV',
+    sample: { name: `bench-${kind}-${n}`, description: `benchmark input: ${count} ${kind} of about ${n} particles (seed ${v.seed})` },
+  };
+  let buf = JSON.stringify(header) + '\n';
+  const rng = new Rng(Number(v.seed));
+  for (let i = 0; i < count; i++) {
+    // ±20% particle counts around n
+    const ni = Math.max(2, n + rng.int(-Math.round(0.2 * n), Math.round(0.2 * n)));
+    const p = kind === 'jets' ? generateJet(rng, { nConstituents: ni, massiveFraction: 0.3 }) : generateEvent(rng, { nParticles: ni, nJets: 4, massiveFraction: 0.3 });
+    let s = `{"id":${i},"particles":[`;
+    for (let k = 0; k < p.length; k += 4) {
+      if (k) s += ',';
+      s += '[' + p[k] + ',' + p[k + 1] + ',' + p[k + 2] + ',' + p[k + 3] + ']';
+    }
+    buf += s + ']}\n';
+    if (buf.length > 1 << 20) {
+      if (!out.write(buf)) await once(out, 'drain');
+      buf = '';
+    }
+  }
+  out.end(buf);
+  await once(out, 'finish');
+}
+
+main().catch((e) => {
+  process.stderr.write(`generate-inputs: ${e?.stack ?? e}\n`);
+  process.exit(1);
+});

@@ -1,0 +1,153 @@
+// Packing of record batches and their results into a few typed arrays, so that they cross to and from the
+// worker threads by transfer (no copy, no per-object cloning).
+
+import type { JetResult, ProcessSettings, RecordResult } from '../physics/types';
+import type { PlainIngestError } from './errors';
+import type { RecordContext } from './record';
+import type { RecordMeta } from './sink';
+import type { ParticleRecord } from './types';
+
+/** Records already parsed (in the main thread), particles back to back. */
+export interface PackedTask {
+  kind: 'packed';
+  settings: ProcessSettings;
+  /** All records' particles back to back (4 doubles a particle). */
+  particles: Float64Array;
+  /** Start of record i's particles in `particles` (in doubles); offsets[n] = particles.length. */
+  offsets: Float64Array;
+}
+
+/** Unparsed records (JSON Lines records or HepMC3 event blocks): the worker parses, validates and processes them. */
+export interface LinesTask {
+  kind: 'lines';
+  format: 'jsonl' | 'hepmc3';
+  settings: ProcessSettings;
+  lines: string[];
+  lineNos: Float64Array;
+  context: RecordContext;
+  /** Go on after a bad record (report it in `problems`), else stop at the first. */
+  skipBad: boolean;
+}
+
+export type WorkerTask = PackedTask | LinesTask;
+
+/** Scalars a jet: pt, y, phi, m, n, mg, zg, Rg, multiplicity, primary length, all length (−1: null). */
+export const JET_SCALARS = 11;
+
+export interface WorkerResult {
+  /** Per processed record: number of jets, rejected pt, rejected y, rejected rank. */
+  perRecord: Int32Array;
+  jets: Float64Array;
+  primary: Float64Array;
+  all: Float64Array;
+  /** Lines tasks: the processed (good) records' id, weight, line and particle count. */
+  meta: { ids: (string | number)[]; weights: Float64Array; lines: Float64Array; nParticles: Float64Array } | null;
+  /** Lines tasks: bad records, in order; `before` = number of good records that precede it in the batch. */
+  problems: { before: number; error: PlainIngestError }[];
+  /** A record whose processing threw: its index among the processed records, and the message. */
+  error: { index: number; message: string } | null;
+}
+
+export function packTask(records: ParticleRecord[], settings: ProcessSettings): PackedTask {
+  let n = 0;
+  for (const r of records) n += r.particles.length;
+  const particles = new Float64Array(n);
+  const offsets = new Float64Array(records.length + 1);
+  let at = 0;
+  for (let i = 0; i < records.length; i++) {
+    offsets[i] = at;
+    particles.set(records[i].particles, at);
+    at += records[i].particles.length;
+  }
+  offsets[records.length] = at;
+  return { kind: 'packed', settings, particles, offsets };
+}
+
+export function packResults(results: RecordResult[], error: WorkerResult['error'] = null): WorkerResult {
+  let nJets = 0, nPrim = 0, nAll = 0;
+  for (const r of results) {
+    for (const j of r.jets) {
+      nJets++;
+      nPrim += j.primary.length;
+      if (j.all) nAll += j.all.length;
+    }
+  }
+  const perRecord = new Int32Array(4 * results.length);
+  const jets = new Float64Array(JET_SCALARS * nJets);
+  const primary = new Float64Array(nPrim);
+  const all = new Float64Array(nAll);
+  let jx = 0, px = 0, ax = 0;
+  for (let i = 0; i < results.length; i++) {
+    const r = results[i];
+    perRecord[4 * i] = r.jets.length;
+    perRecord[4 * i + 1] = r.rejected.pt;
+    perRecord[4 * i + 2] = r.rejected.y;
+    perRecord[4 * i + 3] = r.rejected.rank;
+    for (const j of r.jets) {
+      jets[jx] = j.pt;
+      jets[jx + 1] = j.y;
+      jets[jx + 2] = j.phi;
+      jets[jx + 3] = j.m;
+      jets[jx + 4] = j.n;
+      jets[jx + 5] = j.softDrop.mg;
+      jets[jx + 6] = j.softDrop.zg;
+      jets[jx + 7] = j.softDrop.Rg;
+      jets[jx + 8] = j.multiplicity;
+      jets[jx + 9] = j.primary.length;
+      jets[jx + 10] = j.all ? j.all.length : -1;
+      jx += JET_SCALARS;
+      primary.set(j.primary, px);
+      px += j.primary.length;
+      if (j.all) {
+        all.set(j.all, ax);
+        ax += j.all.length;
+      }
+    }
+  }
+  return { perRecord, jets, primary, all, meta: null, problems: [], error };
+}
+
+export function unpackResults(w: WorkerResult, nRecords: number): RecordResult[] {
+  const out: RecordResult[] = new Array(nRecords);
+  const { perRecord, jets, primary, all } = w;
+  let jx = 0, px = 0, ax = 0;
+  for (let i = 0; i < nRecords; i++) {
+    const nj = perRecord[4 * i];
+    const list: JetResult[] = new Array(nj);
+    for (let k = 0; k < nj; k++) {
+      const np = jets[jx + 9];
+      const na = jets[jx + 10];
+      list[k] = {
+        pt: jets[jx],
+        y: jets[jx + 1],
+        phi: jets[jx + 2],
+        m: jets[jx + 3],
+        n: jets[jx + 4],
+        softDrop: { mg: jets[jx + 5], zg: jets[jx + 6], Rg: jets[jx + 7] },
+        multiplicity: jets[jx + 8],
+        primary: primary.subarray(px, px + np),
+        all: na < 0 ? null : all.subarray(ax, ax + na),
+      };
+      px += np;
+      if (na > 0) ax += na;
+      jx += JET_SCALARS;
+    }
+    out[i] = { jets: list, rejected: { pt: perRecord[4 * i + 1], y: perRecord[4 * i + 2], rank: perRecord[4 * i + 3] } };
+  }
+  return out;
+}
+
+/** The record metadata of a lines task's result. */
+export function unpackMeta(w: WorkerResult): RecordMeta[] {
+  const m = w.meta!;
+  const out: RecordMeta[] = new Array(m.ids.length);
+  for (let i = 0; i < out.length; i++) out[i] = { line: m.lines[i], id: m.ids[i], weight: m.weights[i], nParticles: m.nParticles[i] };
+  return out;
+}
+
+/** Buffers of a result that can be transferred. */
+export function resultBuffers(r: WorkerResult): ArrayBuffer[] {
+  const b = [r.perRecord.buffer, r.jets.buffer, r.primary.buffer, r.all.buffer] as ArrayBuffer[];
+  if (r.meta) b.push(r.meta.weights.buffer as ArrayBuffer, r.meta.lines.buffer as ArrayBuffer, r.meta.nParticles.buffer as ArrayBuffer);
+  return b;
+}

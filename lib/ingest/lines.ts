@@ -1,0 +1,268 @@
+// Fast line source over a byte stream: plain or gzip (detected by the magic bytes 1f 8b), any size,
+// bounded memory. Lines are handed out in arrays per decoded chunk so that the hot loop stays synchronous.
+// Line numbers are 1-based and count every line of the (decompressed) text, blank ones included.
+
+import { createReadStream, promises as fsp } from 'node:fs';
+import { Readable, pipeline } from 'node:stream';
+import { StringDecoder } from 'node:string_decoder';
+import zlib from 'node:zlib';
+import { IngestError } from './errors';
+
+/** Longest single line accepted (and the size limit of the one-document form). */
+export const DEFAULT_MAX_LINE_BYTES = 256 * 1024 * 1024;
+
+export interface LineSourceOptions {
+  /** Size of the raw input in bytes when known (progress). */
+  bytesTotal?: number | null;
+  /** Longest line accepted, in characters (default 256 MiB). */
+  maxLineLength?: number;
+  /** Name used in messages (file name). */
+  name?: string;
+}
+
+/** 268435456 → "256 MB", 2000 → "2 kB". */
+export function sizeText(bytes: number): string {
+  return bytes >= 1048576 ? `${Math.round(bytes / 1048576)} MB` : `${Math.max(1, Math.round(bytes / 1024))} kB`;
+}
+
+function describeZlibError(e: NodeJS.ErrnoException): 'truncated' | 'corrupt' | null {
+  const code = String(e.code ?? '');
+  if (code === 'Z_BUF_ERROR' || /unexpected end of file/i.test(e.message)) return 'truncated';
+  if (code.startsWith('Z_') || code.startsWith('ERR_ZLIB') || typeof e.errno === 'number' && /zlib|header check|invalid (block|distance|code|stored)|incorrect/i.test(e.message)) return 'corrupt';
+  return null;
+}
+
+export class LineSource {
+  /** Number of the last line taken (0 before the first). */
+  lineNo = 0;
+  /** Raw bytes read from the input (compressed bytes for gzip input). */
+  bytesRead = 0;
+  readonly bytesTotal: number | null;
+  gzip = false;
+  readonly name: string;
+
+  private buf: string[] = [];
+  private pos = 0;
+  private restParts: string[] = [];
+  private restLen = 0;
+  private ended = false;
+  private started = false;
+  private iter: AsyncIterator<Buffer> | null = null;
+  private decoder = new StringDecoder('utf8');
+  private readonly maxLine: number;
+  /** Lines produced so far by the splitter (>= lineNo). */
+  private produced = 0;
+  private sawAnyByte = false;
+  private bomChecked = false;
+
+  constructor(private readonly input: Readable, opts: LineSourceOptions = {}) {
+    this.bytesTotal = opts.bytesTotal ?? null;
+    this.maxLine = opts.maxLineLength ?? DEFAULT_MAX_LINE_BYTES;
+    this.name = opts.name ?? 'input';
+  }
+
+  /** True when the input had no bytes at all (known once the end is reached). */
+  get empty(): boolean {
+    return this.ended && !this.sawAnyByte;
+  }
+
+  /** Takes the next buffered line (sync), or undefined when the buffer is empty: then call fill(). */
+  take(): string | undefined {
+    if (this.pos < this.buf.length) {
+      this.lineNo++;
+      return this.buf[this.pos++];
+    }
+    return undefined;
+  }
+
+  /** Puts the last taken line back. */
+  untake(): void {
+    this.pos--;
+    this.lineNo--;
+  }
+
+  /** Next line, waiting for input as needed; null at the end. */
+  async readLine(): Promise<string | null> {
+    for (;;) {
+      const l = this.take();
+      if (l !== undefined) return l;
+      if (!(await this.fill())) return null;
+    }
+  }
+
+  /** Loads more lines. Returns false at the end of the input. */
+  async fill(): Promise<boolean> {
+    if (this.pos < this.buf.length) return true;
+    this.buf = [];
+    this.pos = 0;
+    while (!this.ended) {
+      const chunk = await this.nextChunk();
+      if (chunk === null) {
+        const last = this.restParts.join('') + this.decoder.end();
+        this.restParts = [];
+        this.restLen = 0;
+        this.ended = true;
+        if (last.length > 0) {
+          this.buf.push(last.charCodeAt(last.length - 1) === 13 ? last.slice(0, -1) : last);
+          this.produced++;
+        }
+        break;
+      }
+      let d = this.decoder.write(chunk);
+      if (!this.bomChecked && d.length > 0) {
+        this.bomChecked = true;
+        if (d.charCodeAt(0) === 0xfeff) d = d.slice(1);
+      }
+      this.split(d);
+      if (this.buf.length > 0) break;
+    }
+    return this.buf.length > 0;
+  }
+
+  private split(d: string): void {
+    let i = d.indexOf('\n');
+    if (i === -1) {
+      if (d.length) {
+        this.restParts.push(d);
+        this.restLen += d.length;
+        if (this.restLen > this.maxLine) {
+          const size = sizeText(this.maxLine);
+          throw new IngestError(
+            `the line is longer than ${size}: the one-document form (a single JSON object with "records") is accepted only up to ${size}; ` +
+              'write larger samples as JSON Lines (the header on line 1, then one record a line)',
+            { line: this.produced + 1, code: 'size' },
+          );
+        }
+      }
+      return;
+    }
+    const out = this.buf;
+    let start = 0;
+    if (this.restLen > 0 || this.restParts.length) {
+      this.restParts.push(d.slice(0, i));
+      let line = this.restParts.join('');
+      this.restParts = [];
+      this.restLen = 0;
+      if (line.charCodeAt(line.length - 1) === 13) line = line.slice(0, -1);
+      out.push(line);
+      start = i + 1;
+      i = d.indexOf('\n', start);
+    }
+    while (i !== -1) {
+      const end = i > start && d.charCodeAt(i - 1) === 13 ? i - 1 : i;
+      out.push(d.slice(start, end));
+      start = i + 1;
+      i = d.indexOf('\n', start);
+    }
+    this.produced += out.length;
+    if (start < d.length) {
+      this.restParts.push(d.slice(start));
+      this.restLen = d.length - start;
+    }
+  }
+
+  private async start(): Promise<void> {
+    this.started = true;
+    const raw = this.input[Symbol.asyncIterator]() as AsyncIterator<Buffer>;
+    // Peek at the first bytes (at least 2) to detect gzip.
+    const head: Buffer[] = [];
+    let headLen = 0;
+    let rawDone = false;
+    while (headLen < 2) {
+      const r = await this.wrapIo(() => raw.next());
+      if (r.done) {
+        rawDone = true;
+        break;
+      }
+      const b = typeof r.value === 'string' ? Buffer.from(r.value) : r.value;
+      head.push(b);
+      headLen += b.length;
+      this.bytesRead += b.length;
+    }
+    const first = head.length === 1 ? head[0] : Buffer.concat(head);
+    if (first.length > 0) this.sawAnyByte = true;
+    const self = this;
+    async function* rawRest(): AsyncGenerator<Buffer> {
+      if (first.length) yield first;
+      if (rawDone) return;
+      for (;;) {
+        const r = await raw.next();
+        if (r.done) return;
+        const b = typeof r.value === 'string' ? Buffer.from(r.value) : r.value;
+        self.bytesRead += b.length;
+        yield b;
+      }
+    }
+    if (first.length >= 2 && first[0] === 0x1f && first[1] === 0x8b) {
+      this.gzip = true;
+      const gz = zlib.createGunzip({ chunkSize: 256 * 1024 });
+      pipeline(Readable.from(rawRest(), { objectMode: false }), gz, () => {});
+      this.iter = gz[Symbol.asyncIterator]() as AsyncIterator<Buffer>;
+    } else {
+      const gen = rawRest();
+      this.iter = gen;
+    }
+  }
+
+  private async wrapIo<T>(f: () => Promise<T>): Promise<T> {
+    try {
+      return await f();
+    } catch (e) {
+      throw this.translate(e);
+    }
+  }
+
+  private translate(e: unknown): Error {
+    if (e instanceof IngestError) return e;
+    const err = e as NodeJS.ErrnoException;
+    const kind = this.gzip ? describeZlibError(err) : null;
+    const last = this.produced;
+    if (kind === 'truncated') {
+      const tail = last > 0 ? `the last complete line is line ${last}` : 'not even line 1 is complete';
+      return new IngestError(`the file ends inside the gzip stream (truncated file); ${tail}`, { line: last + 1, code: 'gzip', cause: e });
+    }
+    if (kind === 'corrupt') {
+      return new IngestError(`gzip data is corrupt (${err.message}); the last complete line is line ${last}`, {
+        line: last + 1,
+        code: 'gzip',
+        cause: e,
+      });
+    }
+    return new IngestError(`cannot read ${this.name}: ${err?.message ?? String(e)}`, { code: 'io', cause: e });
+  }
+
+  private async nextChunk(): Promise<Buffer | null> {
+    if (!this.started) await this.start();
+    try {
+      const r = await this.iter!.next();
+      if (r.done) return null;
+      this.sawAnyByte = true;
+      return r.value;
+    } catch (e) {
+      throw this.translate(e);
+    }
+  }
+
+  /** Stops reading and releases the file. */
+  close(): void {
+    this.ended = true;
+    this.input.destroy();
+  }
+}
+
+/** Opens a file as a LineSource (size known for progress). */
+export async function openLineSource(path: string, opts: Omit<LineSourceOptions, 'bytesTotal' | 'name'> = {}): Promise<LineSource> {
+  let size: number;
+  try {
+    const st = await fsp.stat(path);
+    if (st.isDirectory()) throw new IngestError(`cannot read ${path}: it is a directory`, { code: 'io' });
+    size = st.size;
+  } catch (e) {
+    if (e instanceof IngestError) throw e;
+    const err = e as NodeJS.ErrnoException;
+    const why = err.code === 'ENOENT' ? 'no such file' : err.message;
+    throw new IngestError(`cannot read ${path}: ${why}`, { code: 'io', cause: e });
+  }
+  const stream = createReadStream(path, { highWaterMark: 1024 * 1024 });
+  return new LineSource(stream, { ...opts, bytesTotal: size, name: path });
+}

@@ -1,0 +1,190 @@
+// Streaming reader of splitfield-particles files (DESIGN.md): JSON Lines (plain or gzip) with a header line,
+// or the same content as one JSON document {header fields..., "records":[...]} up to a size limit.
+
+import { IngestError } from './errors';
+import { validateParticlesHeader, type IngestHeader } from './header';
+import { jsonErrorOffset, lineAndColumn } from './json-locate';
+import { DEFAULT_MAX_LINE_BYTES, sizeText, type LineSource } from './lines';
+import { parseRecordLine, parseRecordObject, type RecordContext } from './record';
+import { BaseReader } from './reader-base';
+import type { ParticleReader, ParticleRecord, RawLineBatch, RawLineSource, ReaderOptions } from './types';
+
+function isBlank(s: string): boolean {
+  if (s.length === 0) return true;
+  const c = s.charCodeAt(0);
+  if (c > 32) return false;
+  return s.trim().length === 0;
+}
+
+function jsonErrorPosition(msg: string): number | null {
+  const m = /at position (\d+)/.exec(msg);
+  return m ? Number(m[1]) : null;
+}
+
+class JsonLinesReader extends BaseReader implements RawLineSource {
+  readonly kind = 'jsonl' as const;
+  readonly context: RecordContext;
+  constructor(header: IngestHeader, src: LineSource, opts: ReaderOptions, private readonly headerLine: number) {
+    super(header, src, opts);
+    this.context = { momentum: header.momentum, energyUnit: header.energyUnit, where: 'line' };
+  }
+
+  get raw(): RawLineSource {
+    return this;
+  }
+  get skipBad(): boolean {
+    return !!this.opts.skipBad;
+  }
+
+  async *rawBatches(maxChars = 1 << 20, maxRecords = 2048): AsyncGenerator<RawLineBatch> {
+    const src = this.src;
+    let lines: string[] = [];
+    let nos: number[] = [];
+    let chars = 0;
+    const flush = (): RawLineBatch => {
+      const b = { lines, lineNos: Float64Array.from(nos) };
+      lines = [];
+      nos = [];
+      chars = 0;
+      return b;
+    };
+    for (;;) {
+      const line = src.take();
+      if (line === undefined) {
+        if (!(await src.fill())) break;
+        continue;
+      }
+      if (isBlank(line)) continue;
+      lines.push(line);
+      nos.push(src.lineNo);
+      chars += line.length;
+      if (chars >= maxChars || lines.length >= maxRecords) yield flush();
+    }
+    if (lines.length) yield flush();
+  }
+  accepted(n: number): void {
+    this.count += n;
+  }
+  rejected(e: IngestError): void {
+    this.skip(e);
+  }
+  finish(): void {
+    this.requireRecords('record', `the file has a header (line ${this.headerLine}) but no records`, this.headerLine);
+  }
+
+  async *batches(maxParticles = 65536, maxRecords = 4096): AsyncGenerator<ParticleRecord[]> {
+    const src = this.src;
+    const ctx = this.context;
+    for (;;) {
+      const line = src.take();
+      if (line === undefined) {
+        const b = this.takeBatch();
+        if (b) yield b;
+        if (!(await src.fill())) break;
+        continue;
+      }
+      if (isBlank(line)) continue;
+      const full = this.add(() => parseRecordLine(line, src.lineNo, ctx), maxParticles, maxRecords);
+      if (full) yield full;
+    }
+    this.finish();
+  }
+}
+
+class DocumentReader extends BaseReader {
+  constructor(header: IngestHeader, src: LineSource, opts: ReaderOptions, private recs: unknown[] | null) {
+    super(header, src, opts);
+  }
+  async *batches(maxParticles = 65536, maxRecords = 4096): AsyncGenerator<ParticleRecord[]> {
+    const recs = this.recs;
+    if (!recs) throw new Error('the records of this reader were already read');
+    this.recs = null;
+    const ctx: RecordContext = { momentum: this.header.momentum, energyUnit: this.header.energyUnit, where: 'record' };
+    for (let i = 0; i < recs.length; i++) {
+      const obj = recs[i];
+      recs[i] = null; // release the parsed JSON as we go
+      const full = this.add(() => parseRecordObject(obj, i + 1, ctx), maxParticles, maxRecords);
+      if (full) yield full;
+    }
+    const b = this.takeBatch();
+    if (b) yield b;
+    this.requireRecords('record', 'the document has no records ("records" is empty)', 1);
+  }
+}
+
+/**
+ * Reads the header of a splitfield-particles input whose first non-blank line has just been taken from `src`
+ * (line number src.lineNo), and returns the reader of its records.
+ */
+export async function openParticlesFromLines(src: LineSource, firstLine: string, opts: ReaderOptions = {}): Promise<ParticleReader> {
+  const headerLine = src.lineNo;
+  let parsed: unknown;
+  let lineError: Error | null = null;
+  try {
+    parsed = JSON.parse(firstLine);
+  } catch (e) {
+    lineError = e as Error;
+  }
+
+  if (lineError) {
+    const pos = jsonErrorPosition(lineError.message);
+    const incomplete = /end of JSON input/i.test(lineError.message) || (pos !== null && pos >= firstLine.trimEnd().length);
+    if (!incomplete || firstLine.trim()[0] !== '{') {
+      throw new IngestError(`the header is not valid JSON: ${lineError.message}`, { line: headerLine, code: 'header' });
+    }
+    // A multi-line (pretty-printed) one-document file: read it whole, within the size limit.
+    const limit = opts.maxDocumentLength ?? DEFAULT_MAX_LINE_BYTES;
+    const parts: string[] = [firstLine];
+    let len = firstLine.length;
+    for (;;) {
+      const l = await src.readLine();
+      if (l === null) break;
+      parts.push(l);
+      len += l.length + 1;
+      if (len > limit) {
+        throw new IngestError(
+          `the one-document form (a single JSON object with "records") is accepted only up to ${sizeText(limit)}; ` +
+            'write larger samples as JSON Lines (the header on line 1, then one record a line)',
+          { line: headerLine, code: 'size' },
+        );
+      }
+    }
+    const text = parts.join('\n');
+    try {
+      parsed = JSON.parse(text);
+    } catch (e) {
+      const msg = (e as Error).message.replace(/\s+/g, ' ');
+      const at = jsonErrorOffset(text);
+      const { line, column } = lineAndColumn(text, at < 0 ? text.length : at, headerLine);
+      throw new IngestError(`not valid JSON (read as one JSON document), column ${column}: ${msg}`, { line, code: 'json' });
+    }
+    return makeDocumentReader(parsed, src, opts, headerLine);
+  }
+
+  if (parsed !== null && typeof parsed === 'object' && !Array.isArray(parsed) && 'records' in (parsed as object)) {
+    // One document on one line: nothing else may follow.
+    for (;;) {
+      const l = await src.readLine();
+      if (l === null) break;
+      if (!isBlank(l)) {
+        throw new IngestError('unexpected content after the one-document form (a header with "records" must be the whole file)', {
+          line: src.lineNo,
+          code: 'json',
+        });
+      }
+    }
+    return makeDocumentReader(parsed, src, opts, headerLine);
+  }
+
+  const h = validateParticlesHeader(parsed, headerLine);
+  return new JsonLinesReader({ ...h, layout: 'jsonl', gzip: src.gzip }, src, opts, headerLine);
+}
+
+function makeDocumentReader(doc: unknown, src: LineSource, opts: ReaderOptions, headerLine: number): ParticleReader {
+  const h = validateParticlesHeader(doc, headerLine);
+  const recs = (doc as Record<string, unknown>).records;
+  if (!Array.isArray(recs)) {
+    throw new IngestError('"records" must be an array of records', { line: headerLine, field: 'records', code: 'header' });
+  }
+  return new DocumentReader({ ...h, layout: 'document', gzip: src.gzip }, src, opts, recs);
+}

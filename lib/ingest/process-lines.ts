@@ -1,0 +1,54 @@
+// Parses, validates and processes a batch of unparsed records (JSON Lines records or HepMC3 event blocks): the
+// same code in this thread (threads = 1)
+// and in the worker threads, so that both give identical results and identical errors.
+
+import { processParticles } from '../physics/process';
+import type { ProcessSettings, RecordResult } from '../physics/types';
+import { IngestError } from './errors';
+import { parseHepMCEventInto } from './hepmc3-reader';
+import { ParticleScratch, parseRecordLineInto, type RecordContext } from './record';
+import type { RecordMeta } from './sink';
+
+export interface LineBatchOutcome {
+  /** The good records, in order, and their results. */
+  metas: RecordMeta[];
+  results: RecordResult[];
+  /** Bad records in order; `before` = number of good records that precede each. */
+  problems: { before: number; error: IngestError }[];
+  /** A record whose processing threw (index among the good records, whose meta is included); processing stopped there. */
+  error: { index: number; message: string } | null;
+}
+
+export function processLineBatch(
+  kind: 'jsonl' | 'hepmc3',
+  lines: string[],
+  lineNos: ArrayLike<number>,
+  context: RecordContext,
+  settings: ProcessSettings,
+  skipBad: boolean,
+  scratch: ParticleScratch,
+): LineBatchOutcome {
+  const metas: RecordMeta[] = [];
+  const results: RecordResult[] = [];
+  const problems: LineBatchOutcome['problems'] = [];
+  let error: LineBatchOutcome['error'] = null;
+  for (let i = 0; i < lines.length; i++) {
+    let rec;
+    try {
+      rec = kind === 'hepmc3' ? parseHepMCEventInto(lines[i], lineNos[i], scratch) : parseRecordLineInto(lines[i], lineNos[i], context, scratch);
+    } catch (e) {
+      if (!(e instanceof IngestError)) throw e;
+      problems.push({ before: results.length, error: e });
+      if (!skipBad || !e.recordLevel) break;
+      continue;
+    }
+    metas.push({ line: rec.line, id: rec.id, weight: rec.weight, nParticles: rec.n });
+    try {
+      results.push(processParticles(scratch.buf.subarray(0, 4 * rec.n), settings));
+    } catch (e) {
+      error = { index: results.length, message: e instanceof Error ? e.message : String(e) };
+      break;
+    }
+  }
+  return { metas, results, problems, error };
+}

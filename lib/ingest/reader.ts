@@ -1,0 +1,48 @@
+// Opens an input file (or stream) of particles and returns the reader for its format:
+// splitfield-particles (JSON Lines or one document) or HepMC3 ASCII, each plain or gzip-compressed.
+
+import type { Readable } from 'node:stream';
+import { IngestError } from './errors';
+import { openHepMC3FromLines } from './hepmc3-reader';
+import { LineSource, openLineSource, type LineSourceOptions } from './lines';
+import { openParticlesFromLines } from './particles-reader';
+import type { ParticleReader, ReaderOptions } from './types';
+
+export type { ParticleReader, ParticleRecord, ReaderOptions } from './types';
+
+async function openFromSource(src: LineSource, opts: ReaderOptions): Promise<ParticleReader> {
+  try {
+    let first: string | null;
+    do {
+      first = await src.readLine();
+    } while (first !== null && first.trim() === '');
+    if (first === null) {
+      const empty = src.lineNo === 0;
+      const what = empty ? 'the file is empty' : 'the file has only blank lines';
+      throw new IngestError(`${what}: a splitfield-particles file starts with its header line {"format":"splitfield-particles","version":1,...}`, {
+        line: empty ? 1 : src.lineNo,
+        code: 'empty',
+      });
+    }
+    if (first.startsWith('HepMC::')) return await openHepMC3FromLines(src, first, opts);
+    return await openParticlesFromLines(src, first, opts);
+  } catch (e) {
+    src.close();
+    throw e;
+  }
+}
+
+/** Opens a file by path: format and compression are detected from the content. */
+export async function openParticleFile(path: string, opts: ReaderOptions = {}): Promise<ParticleReader> {
+  const src = await openLineSource(path, { maxLineLength: opts.maxDocumentLength });
+  return openFromSource(src, opts);
+}
+
+/** Opens a byte stream (e.g. an upload): format and compression are detected from the content. */
+export async function openParticleStream(
+  stream: Readable,
+  opts: ReaderOptions & Pick<LineSourceOptions, 'bytesTotal' | 'name'> = {},
+): Promise<ParticleReader> {
+  const src = new LineSource(stream, { bytesTotal: opts.bytesTotal, name: opts.name, maxLineLength: opts.maxDocumentLength });
+  return openFromSource(src, opts);
+}

@@ -1,0 +1,50 @@
+// Worker-thread entry (piscina): parses (JSON Lines tasks) and processes a batch of records with the physics
+// engine and sends the packed results back by transfer. Bundled to dist/engine/worker.js by
+// scripts/build-engine.mjs.
+
+import { move, transferableSymbol, valueSymbol } from 'piscina';
+import { processParticles } from '../physics/process';
+import type { RecordResult } from '../physics/types';
+import { packResults, resultBuffers, type LinesTask, type PackedTask, type WorkerResult, type WorkerTask } from './codec';
+import { processLineBatch } from './process-lines';
+import { ParticleScratch } from './record';
+
+const scratch = new ParticleScratch();
+
+function processPacked(task: PackedTask): WorkerResult {
+  const { particles, offsets, settings } = task;
+  const n = offsets.length - 1;
+  const results: RecordResult[] = [];
+  for (let i = 0; i < n; i++) {
+    try {
+      results.push(processParticles(particles.subarray(offsets[i], offsets[i + 1]), settings));
+    } catch (e) {
+      return packResults(results, { index: i, message: e instanceof Error ? e.message : String(e) });
+    }
+  }
+  return packResults(results);
+}
+
+function processLines(task: LinesTask): WorkerResult {
+  const o = processLineBatch(task.format, task.lines, task.lineNos, task.context, task.settings, task.skipBad, scratch);
+  const r = packResults(o.results, o.error);
+  const m = o.metas;
+  r.meta = {
+    ids: m.map((x) => x.id),
+    weights: Float64Array.from(m, (x) => x.weight),
+    lines: Float64Array.from(m, (x) => x.line),
+    nParticles: Float64Array.from(m, (x) => x.nParticles),
+  };
+  r.problems = o.problems.map((p) => ({ before: p.before, error: p.error.toPlain() }));
+  return r;
+}
+
+export function processTask(task: WorkerTask): WorkerResult {
+  return task.kind === 'lines' ? processLines(task) : processPacked(task);
+}
+
+export default function run(task: WorkerTask): unknown {
+  const r = processTask(task);
+  const movable = { [transferableSymbol]: resultBuffers(r), [valueSymbol]: r };
+  return move(movable as unknown as ArrayBuffer);
+}
