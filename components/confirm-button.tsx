@@ -36,9 +36,9 @@ export function ConfirmButton({ label, question, confirmLabel, onConfirm, size =
         Cancel
       </Button>
       {error && (
-        <div className="basis-full">
-          <Notice tone="error">{error}</Notice>
-        </div>
+        <Notice tone="error" className="basis-full">
+          {error}
+        </Notice>
       )}
     </div>
   );

@@ -9,11 +9,11 @@ const tones: Record<Tone, string> = {
 };
 
 /** A short message box; errors are announced to screen readers. */
-export function Notice({ tone = 'info', children }: { tone?: Tone; children: ReactNode }) {
+export function Notice({ tone = 'info', className = '', children }: { tone?: Tone; className?: string; children: ReactNode }) {
   return (
     <div
       role={tone === 'error' ? 'alert' : 'status'}
-      className={`rounded-md border px-3 py-2 text-sm ${tones[tone]}`}
+      className={`rounded-md border px-3 py-2 text-sm ${tones[tone]} ${className}`}
     >
       {children}
     </div>

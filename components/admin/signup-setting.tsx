@@ -43,9 +43,9 @@ export function SignupSetting() {
         </span>
       </label>
       {(error || toggle.error) && (
-        <div className="mt-3">
-          <Notice tone="error">{error?.message ?? toggle.error}</Notice>
-        </div>
+        <Notice tone="error" className="mt-3">
+          {error?.message ?? toggle.error}
+        </Notice>
       )}
     </Panel>
   );

@@ -6,6 +6,7 @@ import { Button } from '../button';
 import { inlineSelectClass } from '../fields';
 import { formatDate } from '../format';
 import { Notice } from '../notice';
+import { PersonLabel } from '../person-label';
 import { useAction } from '../use-action';
 
 /** Widths shared by the rows and the column captions above them, so the columns line up. */
@@ -41,15 +42,7 @@ export function UserRow({ user, isMe, onChanged }: UserRowProps) {
   return (
     <li aria-label={user.name} className={`px-4 py-3 ${user.disabled ? 'bg-paper-sunk/60' : ''}`}>
       <div className="flex flex-wrap items-center gap-x-4 gap-y-2">
-        <div className="min-w-0 flex-1 basis-56">
-          <p className="truncate font-medium text-ink">
-            {user.name}
-            {isMe && <span className="ml-1 font-normal text-ink-faint">(you)</span>}
-          </p>
-          <p className="truncate text-xs text-ink-soft" title={user.email}>
-            {user.email}
-          </p>
-        </div>
+        <PersonLabel name={user.name} email={user.email} isMe={isMe} className="flex-1 basis-56" />
         <div className={userColumns.status}>
           <AccountStatus disabled={user.disabled} />
         </div>
@@ -77,9 +70,9 @@ export function UserRow({ user, isMe, onChanged }: UserRowProps) {
         </div>
       </div>
       {update.error && (
-        <div className="mt-2">
-          <Notice tone="error">{update.error}</Notice>
-        </div>
+        <Notice tone="error" className="mt-2">
+          {update.error}
+        </Notice>
       )}
     </li>
   );

@@ -23,7 +23,8 @@ export function StudiesView() {
         title="Studies"
         lead="Shared analysis documents you are a member of."
         actions={
-          !creating && (
+          !creating &&
+          data?.studies.length !== 0 && (
             <Button variant="primary" onClick={openForm}>
               New study
             </Button>

@@ -5,6 +5,7 @@ import type { Member, StudyRole } from '../api-types';
 import { ConfirmButton } from '../confirm-button';
 import { inlineSelectClass } from '../fields';
 import { Notice } from '../notice';
+import { PersonLabel } from '../person-label';
 import { RoleBadge } from '../role-badge';
 import { useAction } from '../use-action';
 import { RoleOptions } from './role-options';
@@ -33,15 +34,7 @@ export function MemberRow({ studyId, member, isMe, canManage, onChanged }: Membe
   return (
     <li className="space-y-2 py-3">
       <div className="flex items-start justify-between gap-2">
-        <div className="min-w-0">
-          <p className="truncate text-sm font-medium" title={member.name}>
-            {member.name}
-            {isMe && <span className="ml-1 font-normal text-ink-faint">(you)</span>}
-          </p>
-          <p className="truncate text-xs text-ink-soft" title={member.email}>
-            {member.email}
-          </p>
-        </div>
+        <PersonLabel name={member.name} email={member.email} isMe={isMe} className="text-sm" />
         {!canManage && <RoleBadge role={member.role} />}
       </div>
       {canManage && (

@@ -79,9 +79,9 @@ export function NoteCard({ entry, actions }: { entry: Entry; actions?: NoteActio
         </footer>
       )}
       {move.error && (
-        <div className="px-5 pb-3">
-          <Notice tone="error">{move.error}</Notice>
-        </div>
+        <Notice tone="error" className="mx-5 mb-3">
+          {move.error}
+        </Notice>
       )}
     </article>
   );

@@ -210,6 +210,27 @@ describe('the foundation in a browser', () => {
     }
   });
 
+  it('changes the display name, and says why a password change fails', async () => {
+    const { page } = owner;
+    await page.setViewportSize({ width: 1280, height: 900 });
+    await page.goto(`${server.baseUrl}/profile`);
+    const nameForm = page.getByRole('form', { name: 'Name' });
+    await nameForm.getByLabel('Display name').fill('Tamsin Quell-Arden');
+    await nameForm.getByRole('button', { name: 'Save name' }).click();
+    await nameForm.getByText('Name saved.').waitFor();
+    await page.getByRole('complementary').getByText('Tamsin Quell-Arden').waitFor();
+
+    const passwordForm = page.getByRole('form', { name: 'Password' });
+    await passwordForm.getByLabel('Current password').fill('not-my-password');
+    await passwordForm.getByLabel('New password', { exact: true }).fill('another long password');
+    await passwordForm.getByLabel('New password again').fill('another long password');
+    await passwordForm.getByRole('button', { name: 'Change password' }).click();
+    const alert = passwordForm.getByRole('alert');
+    await alert.waitFor();
+    expect(await alert.textContent()).toContain('current password is wrong');
+    await screenshot(page, 'profile-1280', 1280);
+  });
+
   it('says so when a study or a page does not exist', async () => {
     const { page } = owner;
     await page.goto(`${server.baseUrl}/studies/999999`);
