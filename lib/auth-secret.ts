@@ -1,7 +1,7 @@
 import { randomBytes } from 'node:crypto';
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
-import { readConfig } from './config';
+import { readConfig, type Environment } from './config';
 
 // The key that signs and encrypts session tokens. It lives in storage/ (never in the repository) unless the
 // environment gives one, so restarts keep people signed in and each installation has its own.
@@ -13,7 +13,7 @@ function storedSecret(storageDir: string): string | undefined {
 }
 
 /** The environment's secret, else the one in storage/, else a new one written there (readable by the owner only). */
-export function ensureAuthSecret(storageDir: string, env: NodeJS.ProcessEnv = process.env): string {
+export function ensureAuthSecret(storageDir: string, env: Environment = process.env): string {
   const existing = env.NEXTAUTH_SECRET || storedSecret(storageDir);
   if (existing) return existing;
   const secret = randomBytes(32).toString('base64url');

@@ -2,6 +2,9 @@ import path from 'node:path';
 import { z } from 'zod';
 
 /** Where the server keeps its files and listens; read from the environment, with defaults for a local run. */
+/** Environment variables by name; process.env or a test's own. */
+export type Environment = Record<string, string | undefined>;
+
 export interface ServerConfig {
   storageDir: string;
   databasePath: string;
@@ -21,7 +24,7 @@ const environmentSchema = z.object({
     .optional(),
 });
 
-export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
+export function readConfig(env: Environment = process.env): ServerConfig {
   const parsed = environmentSchema.safeParse(env);
   if (!parsed.success) {
     const problems = parsed.error.issues.map((issue) => `${issue.path.join('.')} ${issue.message}`);

@@ -3,7 +3,7 @@
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { ensureAuthSecret } from '../lib/auth-secret';
-import type { ServerConfig } from '../lib/config';
+import type { Environment, ServerConfig } from '../lib/config';
 import { openDatabase } from '../lib/db';
 import { seedOnce, type DemoAccount } from '../lib/seed';
 import { migrateUp } from '../models/migrate';
@@ -17,7 +17,7 @@ export interface PreparedStorage {
 
 export async function prepareStorage(
   config: ServerConfig,
-  env: NodeJS.ProcessEnv = process.env,
+  env: Environment = process.env,
 ): Promise<PreparedStorage> {
   mkdirSync(config.storageDir, { recursive: true });
   mkdirSync(path.dirname(config.databasePath), { recursive: true });
