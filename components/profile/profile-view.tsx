@@ -37,7 +37,7 @@ export function ProfileView() {
           </span>
         }
       />
-      <div className="grid max-w-3xl gap-6 md:grid-cols-2">
+      <div className="grid max-w-3xl items-start gap-6 md:grid-cols-2">
         <Panel title="Name">
           <ActionForm onSubmit={saveName} successMessage="Name saved." aria-label="Name">
             <TextField label="Display name" name="name" defaultValue={me.name} required autoComplete="name" hint="Shown to the members of your studies." />

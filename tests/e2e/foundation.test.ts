@@ -98,6 +98,12 @@ describe('the foundation in a browser', () => {
     await page.getByRole('button', { name: 'Add note' }).click();
     await page.getByLabel('Title').fill(NOTE_TITLE);
     await page.getByLabel('Text').fill(NOTE_BODY);
+    // The preview renders the Markdown before it is saved.
+    await page.getByRole('button', { name: 'Preview' }).click();
+    const editor = page.getByRole('form', { name: 'Add note' });
+    await editor.getByRole('heading', { name: 'Findings' }).waitFor();
+    await screenshot(page, 'note-editor-preview-1280', 1280);
+    await page.getByRole('button', { name: 'Back to writing' }).click();
     await page.getByRole('button', { name: 'Add note' }).click();
 
     const card = noteCard(page);
@@ -239,6 +245,7 @@ describe('the foundation in a browser', () => {
     const missing = await page.goto(`${server.baseUrl}/no-such-page`);
     expect(missing?.status()).toBe(404);
     expect(await page.getByRole('heading', { name: 'Page not found' }).isVisible()).toBe(true);
+    await screenshot(page, 'not-found-390', 390);
   });
 
   it('lets a newcomer sign up, showing the server\'s reason when it refuses', async () => {
