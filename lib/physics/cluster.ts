@@ -135,6 +135,11 @@ export class ClusterWorkspace {
 
   /** Pair distances evaluated so far (a cost measure for tests; never reset by the engine). */
   ops = 0;
+  /**
+   * Tests only: after every step of the tiled and grid strategies, check by brute force that every active
+   * jet's NN distance is the true one and that the tile bounds hold (throws on the first violation).
+   */
+  verify = false;
 
   /** Makes room for n input particles (keeps the contents of nothing). */
   ensure(n: number): void {
@@ -811,6 +816,31 @@ function scanNewJet(ws: ClusterWorkspace, b: number): void {
   updateDiJ(ws, b);
 }
 
+/**
+ * Brute-force check of the NN bookkeeping (tests: ws.verify). `alive(i)` tells the active slots; `R2` is the
+ * NN range (Infinity for the C/A grid); `grid` selects the grid strategy's near/far rules.
+ */
+function verifyState(ws: ClusterWorkspace, n: number, isAlive: (i: number) => boolean, R2: number, grid: boolean): void {
+  const { sEta, sPhi, sNND, sNN, sTile, tileMax } = ws;
+  for (let i = 0; i < n; i++) {
+    if (!isAlive(i)) continue;
+    let best = R2;
+    for (let j = 0; j < n; j++) {
+      if (j === i || !isAlive(j)) continue;
+      let dphi = Math.abs(sPhi[i] - sPhi[j]);
+      const deta = sEta[i] - sEta[j];
+      if (dphi > PI) dphi = TWO_PI - dphi;
+      const dist = dphi * dphi + deta * deta;
+      if (dist < best) best = dist;
+    }
+    if (sNND[i] !== best) throw new Error(`NN check: slot ${i} has NN distance ${sNND[i]} (NN ${sNN[i]}), true ${best}`);
+    if (sNN[i] >= 0 && !isAlive(sNN[i])) throw new Error(`NN check: slot ${i} has a dead NN ${sNN[i]}`);
+    const near = grid ? sNND[i] < ws.gR2 : true;
+    if (near && sNND[i] > tileMax[sTile[i]]) throw new Error(`NN check: tile ${sTile[i]} bound ${tileMax[sTile[i]]} < NN distance ${sNND[i]} of slot ${i}`);
+    if (grid && !near && ws.farPos[i] < 0) throw new Error(`NN check: slot ${i} is far but not in the far list`);
+  }
+}
+
 function clusterTiled(ws: ClusterWorkspace, R: number, R2: number, p: number, track: boolean): void {
   const n = ws.n;
   const { sEta, sPhi, sMf, sNND, sNN, sNode, diJ, tree, rap, phi, kt2, rHead, rNext, tmp } = ws;
@@ -934,6 +964,7 @@ function clusterTiled(ws: ClusterWorkspace, R: number, R2: number, p: number, tr
       updateDiJ(ws, i);
     }
     if (hasB) scanNewJet(ws, b);
+    if (ws.verify) verifyState(ws, n, (i) => ws.diJ[i] !== Infinity, R2, false);
   }
 }
 
@@ -1296,6 +1327,7 @@ function clusterGridCA(ws: ClusterWorkspace, track: boolean): boolean {
     ws.ops += ws.nFar;
     gridSetNN(ws, b, bi, best);
     gridTreeUpdate(ws, b);
+    if (ws.verify) verifyState(ws, n, (i) => alive[i] === 1, Infinity, true);
   }
   ws.jets[0] = sNode[last];
   ws.nJets = 1;

@@ -1,0 +1,111 @@
+// Jet finding + C/A declustering of whole events, checked against FastJet.
+// Reference: FastJet 3.4.0 (Debian libfastjet-dev), through tests/reference/fastjet-ref.cc (FastJet's own
+// JetDefinition/ClusterSequence for jet finding, FastJet's C/A re-clustering and has_parents for declustering).
+// Definitions: PHYSICS.md (anti-kt arXiv:0802.1189; C/A arXiv:hep-ph/9707323, hep-ph/9907280; FastJet manual
+// arXiv:1111.6097; emission plane arXiv:1807.04758; SoftDrop arXiv:1402.2657).
+
+import { beforeAll, describe, expect, it } from 'vitest';
+import { TILED_MIN_PARTICLES } from '../../lib/physics/cluster';
+import { TWO_PI } from '../../lib/physics/fourvector';
+import { generateEvents } from '../../lib/physics/test-events';
+import { crossCheck } from './compare';
+import { ensureFastjetRef } from './fastjet';
+
+beforeAll(() => {
+  ensureFastjetRef();
+});
+
+function expectAgreement(c: ReturnType<typeof crossCheck>, minJets: number): void {
+  expect(c.mismatches, c.mismatches.join('\n')).toEqual([]);
+  expect(c.jets).toBeGreaterThanOrEqual(minJets);
+}
+
+describe('anti-kt events vs FastJet (Reference: FastJet 3.4.0 (Debian libfastjet-dev))', () => {
+  for (const R of [0.4, 0.8, 1.0]) {
+    for (const seed of [101, 202, 303]) {
+      it(`R = ${R}, seed ${seed}: jets, cuts, primary and full-tree splittings`, () => {
+        const events = generateEvents(seed, 12, { nParticles: 300 });
+        const c = crossCheck('events', events, { algorithm: 'antikt', R, all: true });
+        expectAgreement(c, 20);
+        expect(c.splittings).toBeGreaterThan(500);
+      });
+    }
+  }
+});
+
+describe('kt and Cambridge/Aachen jet finding vs FastJet (Reference: FastJet 3.4.0 (Debian libfastjet-dev))', () => {
+  for (const algorithm of ['kt', 'ca'] as const) {
+    for (const R of [0.4, 0.8, 1.0]) {
+      it(`${algorithm}, R = ${R}`, () => {
+        const events = generateEvents(R * 1000 + (algorithm === 'kt' ? 1 : 2), 10, { nParticles: 250 });
+        const c = crossCheck('events', events, { algorithm, R, ptMin: 10, all: true });
+        expectAgreement(c, 20);
+      });
+    }
+  }
+});
+
+describe('awkward event configurations vs FastJet (Reference: FastJet 3.4.0 (Debian libfastjet-dev))', () => {
+  it('jets straddling φ = 0 ≡ 2π', () => {
+    const events = generateEvents(404, 15, { nParticles: 200, nearPhiWrap: true });
+    const c = crossCheck('events', events, { algorithm: 'antikt', R: 0.4, all: true });
+    expectAgreement(c, 15);
+    // The sample really has jets on both sides of the cut.
+    const phis = c.ours.flatMap((r) => r.jets.map((j) => j.phi));
+    expect(phis.some((f) => f < 0.3)).toBe(true);
+    expect(phis.some((f) => f > TWO_PI - 0.3)).toBe(true);
+    for (const f of phis) {
+      expect(f).toBeGreaterThanOrEqual(0);
+      expect(f).toBeLessThan(TWO_PI);
+    }
+  });
+
+  it('massive particles', () => {
+    const events = generateEvents(505, 12, { nParticles: 300, massiveFraction: 0.6 });
+    const c = crossCheck('events', events, { algorithm: 'antikt', R: 0.8, all: true });
+    expectAgreement(c, 12);
+  });
+
+  it('one-particle jets (no cuts: isolated soft particles are jets)', () => {
+    const events = generateEvents(606, 6, { nParticles: 150, backgroundYMax: 4 });
+    const c = crossCheck('events', events, { algorithm: 'antikt', R: 0.4, ptMin: 0, yMax: 5, all: true });
+    expectAgreement(c, 100);
+    const single = c.ours.flatMap((r) => r.jets).filter((j) => j.n === 1);
+    expect(single.length).toBeGreaterThan(20);
+    for (const j of single) {
+      expect(j.primary.length).toBe(0);
+      expect(Number.isNaN(j.softDrop.mg)).toBe(true);
+    }
+  });
+
+  it('cuts in order pt, |y|, rank, and SoftDrop with β > 0', () => {
+    const events = generateEvents(707, 15, { nParticles: 300, jetYMax: 3 });
+    const c = crossCheck('events', events, {
+      algorithm: 'antikt', R: 0.6, ptMin: 40, yMax: 1.5, maxJets: 1, zCut: 0.2, beta: 1.5, R0: 0.8, ktCut: 2, all: true,
+    });
+    expectAgreement(c, 8);
+    const rej = c.ours.reduce((a, r) => ({ pt: a.pt + r.rejected.pt, y: a.y + r.rejected.y, rank: a.rank + r.rejected.rank }), { pt: 0, y: 0, rank: 0 });
+    expect(rej.pt).toBeGreaterThan(0);
+    expect(rej.y).toBeGreaterThan(0);
+    expect(rej.rank).toBeGreaterThan(0);
+  });
+});
+
+describe('large events (tiled strategies on both sides) vs FastJet (Reference: FastJet 3.4.0 (Debian libfastjet-dev))', () => {
+  const cases = [
+    { algorithm: 'antikt' as const, R: 0.4, N: 2000 },
+    { algorithm: 'antikt' as const, R: 0.4, N: 5000 },
+    { algorithm: 'kt' as const, R: 0.6, N: 2000 },
+    { algorithm: 'ca' as const, R: 1.0, N: 2000 },
+  ];
+  for (const { algorithm, R, N } of cases) {
+    it(`${algorithm}, R = ${R}, ${N} particles`, () => {
+      expect(N).toBeGreaterThan(TILED_MIN_PARTICLES);
+      const events = generateEvents(N + R * 10, 3, { nParticles: N, nJets: 6, jetFraction: 0.4 });
+      const c = crossCheck('events', events, { algorithm, R, ptMin: 15, all: true });
+      expectAgreement(c, 6);
+      // FastJet also used one of its tiled strategies (N2Tiled, N2MinHeapTiled, N2MHTLazy9, ...).
+      for (const r of c.ref.records) expect(r.strategy).toMatch(/Tiled|Lazy/);
+    });
+  }
+});
