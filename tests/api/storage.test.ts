@@ -8,6 +8,7 @@ import { afterEach, describe, expect, it } from 'vitest';
 import { readConfig } from '@/lib/config';
 import { openDatabase } from '@/lib/db';
 import { DEMO_CREDENTIALS_FILE } from '@/lib/seed';
+import { schemaMigrations } from '@/models/migrations';
 import { prepareStorage } from '@/scripts/prepare-storage';
 
 const folders: string[] = [];
@@ -34,7 +35,7 @@ describe('preparing storage', () => {
   it('migrates, seeds once and keeps the same secret across starts', async () => {
     const config = freshConfig();
     const first = await prepareStorage(config, {});
-    expect(first.appliedMigrations).toEqual(['0001-foundation']);
+    expect(first.appliedMigrations).toEqual(schemaMigrations.map((migration) => migration.name));
     expect(first.demoAccounts?.map((account) => account.siteRole).sort()).toEqual(['admin', 'member', 'member']);
     expect(new Set(first.demoAccounts?.map((account) => account.studyRole)).size).toBe(3);
 
