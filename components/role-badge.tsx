@@ -7,7 +7,8 @@ const studyRoles: Record<StudyRole, { style: string; meaning: string }> = {
   viewer: { style: 'bg-paper-sunk text-ink-soft border-ink/15', meaning: 'Reads the study; cannot edit it' },
 };
 
-const pill = 'inline-flex items-center rounded-full border px-2 py-0.5 text-xs font-medium capitalize whitespace-nowrap';
+/** The shape of every small status pill (roles, sample states). */
+export const pill = 'inline-flex items-center rounded-full border px-2 py-0.5 text-xs font-medium capitalize whitespace-nowrap';
 
 /** A study role as a small coloured pill; the tooltip says what the role may do. */
 export function RoleBadge({ role, prefix }: { role: StudyRole; prefix?: string }) {

@@ -4,12 +4,15 @@ import { signOut } from 'next-auth/react';
 import { useRouter } from 'next/navigation';
 import type { Me } from './api-types';
 import { Button } from './button';
+import { useForgetData } from './hooks/use-forget-data';
 import { SiteRoleBadge } from './role-badge';
 
 export function SignOutButton() {
   const router = useRouter();
+  const forgetData = useForgetData();
   async function handleSignOut() {
     await signOut({ redirect: false });
+    await forgetData();
     router.replace('/sign-in');
     router.refresh();
   }

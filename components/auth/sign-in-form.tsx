@@ -3,12 +3,15 @@
 import { useRouter } from 'next/navigation';
 import { ActionForm, field, SubmitButton } from '../action-form';
 import { TextField } from '../fields';
+import { useForgetData } from '../hooks/use-forget-data';
 import { safeReturnPath, signInWithPassword } from './after-sign-in';
 
 export function SignInForm({ callbackUrl }: { callbackUrl?: string }) {
   const router = useRouter();
+  const forgetData = useForgetData();
   async function submit(data: FormData) {
     await signInWithPassword(field(data, 'email'), field(data, 'password', false));
+    await forgetData();
     router.replace(safeReturnPath(callbackUrl));
     router.refresh();
   }

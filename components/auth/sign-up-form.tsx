@@ -6,6 +6,7 @@ import { sendJson, type ApiError } from '@/lib/fetcher';
 import { PASSWORD_MIN } from '@/models/vocabulary';
 import { ActionForm, field, SubmitButton } from '../action-form';
 import { TextField } from '../fields';
+import { useForgetData } from '../hooks/use-forget-data';
 import { LoadingBlock } from '../loading-block';
 import { Notice } from '../notice';
 import { signInWithPassword } from './after-sign-in';
@@ -13,6 +14,7 @@ import { signInWithPassword } from './after-sign-in';
 /** Creates an account and signs in with it; says so at once when this server does not take sign-ups. */
 export function SignUpForm() {
   const router = useRouter();
+  const forgetData = useForgetData();
   const { data, error } = useSWR<{ openSignup: boolean }, ApiError>('/api/signup');
 
   async function submit(form: FormData) {
@@ -20,6 +22,7 @@ export function SignUpForm() {
     const password = field(form, 'password', false);
     await sendJson('POST', '/api/signup', { name: field(form, 'name'), email, password });
     await signInWithPassword(email, password);
+    await forgetData();
     router.replace('/studies');
     router.refresh();
   }

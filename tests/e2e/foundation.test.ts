@@ -321,4 +321,14 @@ describe('the foundation in a browser', () => {
       await admin.close();
     }
   });
+
+  it('signs out, after which pages ask for a sign-in again', async () => {
+    const { page } = owner;
+    await page.setViewportSize({ width: 1280, height: 900 });
+    await page.goto(`${server.baseUrl}/studies`);
+    await page.getByRole('button', { name: 'Sign out' }).click();
+    await page.waitForURL(`${server.baseUrl}/sign-in`);
+    await page.goto(`${server.baseUrl}/studies`);
+    await page.waitForURL(/\/sign-in\?callbackUrl=%2Fstudies/);
+  });
 });
