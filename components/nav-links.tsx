@@ -12,6 +12,7 @@ interface NavItem {
 
 const items: NavItem[] = [
   { href: '/studies', label: 'Studies' },
+  { href: '/samples', label: 'Samples' },
   { href: '/profile', label: 'Profile' },
   { href: '/admin/users', label: 'Users', adminOnly: true },
 ];

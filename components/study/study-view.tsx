@@ -9,6 +9,7 @@ import { EmptyState } from '../empty-state';
 import { useMe } from '../hooks/use-me';
 import { LoadingBlock } from '../loading-block';
 import { Panel } from '../panel';
+import { StudySamplesPanel } from '../samples/study-samples-panel';
 import { EntryList } from './entry-list';
 import { MembersPanel } from './members-panel';
 import { studyPermissions } from './permissions';
@@ -43,6 +44,7 @@ export function StudyView({ studyId }: { studyId: string }) {
         <EntryList studyId={studyId} entries={data.entries} canEdit={canEdit} onChanged={mutate} />
       </div>
       <aside className="space-y-4">
+        <StudySamplesPanel studyId={studyId} canEdit={canEdit} />
         <MembersPanel studyId={studyId} members={data.members} myId={me.id} canManage={canManage} onChanged={mutate} />
         {canManage && (
           <Panel title="Delete study" lead="Removes the study and all its entries for every member." danger>

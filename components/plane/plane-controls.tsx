@@ -1,0 +1,42 @@
+import type { HorizontalCoordinate } from '../samples/sample-types';
+import { inlineSelectClass } from '../fields';
+import { BIN_SIZES, HORIZONTAL_LABELS, type PlaneView } from './plane-view-settings';
+
+/** Two or more mutually exclusive choices as a row of pressed/unpressed buttons. */
+function ChoiceButtons<T extends string>({ label, value, options, onChange }: { label: string; value: T; options: [T, string][]; onChange: (next: T) => void }) {
+  return (
+    <div role="group" aria-label={label} className="inline-flex overflow-hidden rounded-md border border-ink/15">
+      {options.map(([option, text]) => (
+        <button
+          key={option}
+          type="button"
+          aria-pressed={value === option}
+          onClick={() => onChange(option)}
+          className={`h-8 px-3 text-sm font-medium ${value === option ? 'bg-accent text-white' : 'bg-paper-raised text-ink-soft hover:bg-paper-sunk hover:text-ink'}`}
+        >
+          {text}
+        </button>
+      ))}
+    </div>
+  );
+}
+
+/** The horizontal coordinate and the bin size of the plane. */
+export function PlaneControls({ view, onChange }: { view: PlaneView; onChange: (next: PlaneView) => void }) {
+  const horizontalOptions = Object.entries(HORIZONTAL_LABELS) as [HorizontalCoordinate, string][];
+  return (
+    <div className="flex flex-wrap items-center gap-3">
+      <ChoiceButtons label="Horizontal axis" value={view.horizontal} options={horizontalOptions} onChange={(horizontal) => onChange({ ...view, horizontal })} />
+      <label className="flex items-center gap-2 text-sm text-ink-soft">
+        Bin size
+        <select className={inlineSelectClass} value={view.binSize} onChange={(event) => onChange({ ...view, binSize: Number(event.target.value) })}>
+          {BIN_SIZES.map((size) => (
+            <option key={size} value={size}>
+              {size}
+            </option>
+          ))}
+        </select>
+      </label>
+    </div>
+  );
+}

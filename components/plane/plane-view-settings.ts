@@ -1,0 +1,52 @@
+// What part of the primary plane the first look shows, and how coarsely.
+
+import type { HorizontalCoordinate } from '../samples/sample-types';
+
+export const HORIZONTAL_LABELS: Record<HorizontalCoordinate, string> = {
+  lnInvDelta: 'ln(1/Δ)',
+  lnRoverDelta: 'ln(R/Δ)',
+};
+
+export const VERTICAL_LABEL = 'ln(k_t / GeV)';
+export const DENSITY_LABEL = 'emissions per jet per unit area';
+
+/** Width of the server's fine bins in both coordinates (lib/physics/density.ts); coarse bins merge whole fine ones. */
+const FINE_BIN = 0.05;
+
+/** Square bin sizes offered; each divides the ranges below into whole bins. */
+export const BIN_SIZES = [0.1, 0.2, 0.25, 0.5] as const;
+export const DEFAULT_BIN_SIZE = 0.25;
+
+// Ranges on fine-bin edges, 6 wide horizontally and 9 vertically (kt from 50 MeV to 400 GeV): they hold the
+// splittings of jets with R up to about 1 and pt up to a few TeV. ln(R/Δ) starts a little below 0 because C/A
+// splittings can open slightly wider than R.
+const RANGES: Record<HorizontalCoordinate, { x: [number, number]; y: [number, number] }> = {
+  lnInvDelta: { x: [0, 6], y: [-3, 6] },
+  lnRoverDelta: { x: [-0.5, 5.5], y: [-3, 6] },
+};
+
+export interface PlaneView {
+  horizontal: HorizontalCoordinate;
+  binSize: number;
+}
+
+/** The plane request of the sample API for this view. */
+export function planeUrl(sampleId: number, view: PlaneView): string {
+  const { x, y } = RANGES[view.horizontal];
+  const merge = String(Math.round(view.binSize / FINE_BIN));
+  const query = new URLSearchParams({
+    horizontal: view.horizontal,
+    xmin: String(x[0]),
+    xmax: String(x[1]),
+    xmerge: merge,
+    ymin: String(y[0]),
+    ymax: String(y[1]),
+    ymerge: merge,
+  });
+  return `/api/samples/${sampleId}/plane?${query}`;
+}
+
+/** The horizontal coordinate a plane request asked for. */
+export function horizontalOf(url: string): HorizontalCoordinate {
+  return new URL(url, 'http://splitfield.invalid').searchParams.get('horizontal') === 'lnRoverDelta' ? 'lnRoverDelta' : 'lnInvDelta';
+}

@@ -1,0 +1,6 @@
+import type { SampleSummary } from './sample-types';
+
+/** Queued or running: the page keeps asking the server for news. */
+export function isProcessing(sample: Pick<SampleSummary, 'state'>): boolean {
+  return sample.state === 'queued' || sample.state === 'running';
+}

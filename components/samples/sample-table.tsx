@@ -1,0 +1,74 @@
+import Link from 'next/link';
+import { formatDate } from '../format';
+import { formatCount } from './numbers';
+import type { SampleSummary } from './sample-types';
+import { StateBadge } from './state-badge';
+import { cellClass, DataTable, headCellClass, numberCellClass, SortHeader, type SortOrder } from './table';
+
+export type SampleSortKey = 'name' | 'date' | 'jets' | 'state';
+
+export interface SampleSort {
+  key: SampleSortKey;
+  order: SortOrder;
+}
+
+/** What a sample is called and where it belongs, as the first cell of a row. */
+function SampleNameCell({ sample }: { sample: SampleSummary }) {
+  return (
+    <td className={`${cellClass} min-w-44`}>
+      <Link href={`/samples/${sample.id}`} className="font-medium break-words text-accent-strong hover:underline">
+        {sample.name}
+      </Link>
+      <p className="mt-0.5 flex flex-wrap gap-x-2 text-xs text-ink-soft">
+        {sample.label && <span className="font-mono">{sample.label}</span>}
+        {sample.tags.length > 0 && <span>{sample.tags.map((tag) => `#${tag}`).join(' ')}</span>}
+        <span className="md:hidden">{sample.studyTitle}</span>
+      </p>
+    </td>
+  );
+}
+
+interface SampleTableProps {
+  samples: SampleSummary[];
+  sort: SampleSort;
+  onSort: (key: SampleSortKey) => void;
+}
+
+/** Samples in rows, sortable by name, upload date, jets kept and state. */
+export function SampleTable({ samples, sort, onSort }: SampleTableProps) {
+  const header = (key: SampleSortKey, label: string, extra: { align?: 'right'; className?: string } = {}) => (
+    <SortHeader label={label} active={sort.key === key} order={sort.order} onSort={() => onSort(key)} {...extra} />
+  );
+  return (
+    <DataTable
+      label="Samples"
+      head={
+        <>
+          {header('name', 'Name')}
+          <th scope="col" className={`${headCellClass} hidden md:table-cell`}>
+            Study
+          </th>
+          {header('jets', 'Jets', { align: 'right' })}
+          {header('date', 'Uploaded')}
+          {header('state', 'State')}
+        </>
+      }
+    >
+      {samples.map((sample) => (
+        <tr key={sample.id} className="hover:bg-paper-sunk/40">
+          <SampleNameCell sample={sample} />
+          <td className={`${cellClass} hidden text-ink-soft md:table-cell`}>
+            <Link href={`/studies/${sample.studyId}`} className="hover:text-ink hover:underline">
+              {sample.studyTitle}
+            </Link>
+          </td>
+          <td className={numberCellClass}>{sample.counts ? formatCount(sample.counts.jets) : '–'}</td>
+          <td className={`${cellClass} whitespace-nowrap text-ink-soft`}>{formatDate(sample.createdAt)}</td>
+          <td className={cellClass}>
+            <StateBadge state={sample.state} />
+          </td>
+        </tr>
+      ))}
+    </DataTable>
+  );
+}

@@ -1,0 +1,98 @@
+'use client';
+
+import Link from 'next/link';
+import { useState } from 'react';
+import useSWR from 'swr';
+import type { ApiError } from '@/lib/fetcher';
+import { Button, buttonClass } from '../button';
+import { EmptyState } from '../empty-state';
+import { LoadingBlock } from '../loading-block';
+import { Notice } from '../notice';
+import { PageHeader } from '../page-header';
+import { NO_FILTER, SampleFilters, type SampleFilter } from './sample-filters';
+import { SampleTable, type SampleSort, type SampleSortKey } from './sample-table';
+import type { SampleSummary } from './sample-types';
+import type { SortOrder } from './table';
+import { isProcessing } from './sample-state';
+import { useStudies } from './use-studies';
+
+type SampleList = { samples: SampleSummary[] };
+
+/** A newly chosen column starts with the order people usually want: newest and largest first. */
+const FIRST_ORDER: Record<SampleSortKey, SortOrder> = { name: 'asc', date: 'desc', jets: 'desc', state: 'asc' };
+
+const uploadLink = (
+  <Link href="/samples/new" className={buttonClass('primary')}>
+    Upload a sample
+  </Link>
+);
+
+function listUrl(filter: SampleFilter, sort: SampleSort): string {
+  const query = new URLSearchParams({ sort: sort.key, order: sort.order });
+  for (const [key, value] of Object.entries(filter)) if (value) query.set(key, value);
+  return `/api/samples?${query}`;
+}
+
+/** Sorted, distinct non-empty values. */
+function distinct(values: (string | null)[]): string[] {
+  return [...new Set(values.filter((value): value is string => !!value))].sort((a, b) => a.localeCompare(b));
+}
+
+/** Every sample of the user's studies: filter, sort, and go to one. */
+export function SamplesView({ initialStudyId = '' }: { initialStudyId?: string }) {
+  const [filter, setFilter] = useState<SampleFilter>({ ...NO_FILTER, studyId: initialStudyId });
+  const [sort, setSort] = useState<SampleSort>({ key: 'date', order: 'desc' });
+  const { studies } = useStudies();
+  // The unfiltered list supplies the filters' choices; the filtered one is what the table shows.
+  const { data: everything } = useSWR<SampleList, ApiError>('/api/samples');
+  const { data, error } = useSWR<SampleList, ApiError>(listUrl(filter, sort), {
+    keepPreviousData: true,
+    refreshInterval: (latest) => (latest?.samples.some(isProcessing) ? 2000 : 0),
+  });
+
+  function sortBy(key: SampleSortKey) {
+    setSort((current) =>
+      current.key === key ? { key, order: current.order === 'asc' ? 'desc' : 'asc' } : { key, order: FIRST_ORDER[key] },
+    );
+  }
+
+  const filtered = Object.values(filter).some(Boolean);
+  const none = everything?.samples.length === 0;
+  return (
+    <>
+      <PageHeader title="Samples" lead="Uploaded particle files of your studies, after processing." actions={!none && uploadLink} />
+      {error && <Notice tone="error">{error.message}</Notice>}
+      {!data && !error && <LoadingBlock label="Loading samples…" />}
+      {none && (
+        <EmptyState title="No samples yet" action={uploadLink}>
+          Upload a file of events or jets; each jet is declustered and its splittings fill the sample&apos;s emission plane.
+        </EmptyState>
+      )}
+      {data && !none && (
+        <>
+          <SampleFilters
+            filter={filter}
+            onChange={setFilter}
+            studies={studies ?? []}
+            labels={distinct(everything?.samples.map((sample) => sample.label) ?? [])}
+            tags={distinct(everything?.samples.flatMap((sample) => sample.tags) ?? [])}
+          />
+          {data.samples.length > 0 ? (
+            <SampleTable samples={data.samples} sort={sort} onSort={sortBy} />
+          ) : (
+            <EmptyState
+              title="No sample matches these filters"
+              action={
+                filtered && (
+                  <Button variant="secondary" onClick={() => setFilter(NO_FILTER)}>
+                    Clear filters
+                  </Button>
+                )
+              }
+            />
+          )}
+        </>
+      )}
+    </>
+  );
+}
