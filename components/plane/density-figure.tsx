@@ -2,7 +2,7 @@
 
 import * as Plot from '@observablehq/plot';
 import { useEffect, useRef, useState } from 'react';
-import type { HorizontalCoordinate, PlaneDensity } from '../samples/sample-types';
+import type { PlaneView } from '@/lib/samples/shapes';
 import { DENSITY_LABEL, HORIZONTAL_LABELS, VERTICAL_LABEL } from './plane-view-settings';
 
 /** Our colour map: a perceptually uniform ramp from Plot's built-ins, readable in grey and by colour-blind readers. */
@@ -26,7 +26,7 @@ function useBoxWidth() {
  * A density map as an Observable Plot raster over the server's uniform grid (STACK.md pitfall 5: in the browser,
  * with the grid's size and corners given). Empty bins stay transparent so that they differ from small densities.
  */
-export function DensityFigure({ map, horizontal }: { map: PlaneDensity; horizontal: HorizontalCoordinate }) {
+export function DensityFigure({ map }: { map: PlaneView }) {
   const { box, width } = useBoxWidth();
   const holder = useRef<HTMLDivElement>(null);
 
@@ -43,7 +43,7 @@ export function DensityFigure({ map, horizontal }: { map: PlaneDensity; horizont
       marginLeft: 48,
       marginBottom: 42,
       style: { fontSize: '12px' },
-      x: { domain: [map.xEdges[0], map.xEdges[nx]], label: HORIZONTAL_LABELS[horizontal], labelAnchor: 'center', labelArrow: 'none' },
+      x: { domain: [map.xEdges[0], map.xEdges[nx]], label: HORIZONTAL_LABELS[map.horizontal], labelAnchor: 'center', labelArrow: 'none' },
       y: { domain: [map.yEdges[0], map.yEdges[ny]], label: VERTICAL_LABEL, labelAnchor: 'center', labelArrow: 'none' },
       color: {
         type: 'linear',
@@ -67,7 +67,7 @@ export function DensityFigure({ map, horizontal }: { map: PlaneDensity; horizont
     });
     target.replaceChildren(figure);
     return () => figure.remove();
-  }, [map, horizontal, width]);
+  }, [map, width]);
 
   return (
     <div ref={box} className="w-full">

@@ -1,6 +1,5 @@
-import type { HorizontalCoordinate } from '../samples/sample-types';
 import { inlineSelectClass } from '../fields';
-import { BIN_SIZES, HORIZONTAL_LABELS, type PlaneView } from './plane-view-settings';
+import { BIN_SIZES, HORIZONTAL_LABELS, type HorizontalCoordinate, type PlaneChoice } from './plane-view-settings';
 
 /** Two or more mutually exclusive choices as a row of pressed/unpressed buttons. */
 function ChoiceButtons<T extends string>({ label, value, options, onChange }: { label: string; value: T; options: [T, string][]; onChange: (next: T) => void }) {
@@ -22,14 +21,14 @@ function ChoiceButtons<T extends string>({ label, value, options, onChange }: { 
 }
 
 /** The horizontal coordinate and the bin size of the plane. */
-export function PlaneControls({ view, onChange }: { view: PlaneView; onChange: (next: PlaneView) => void }) {
+export function PlaneControls({ choice, onChange }: { choice: PlaneChoice; onChange: (next: PlaneChoice) => void }) {
   const horizontalOptions = Object.entries(HORIZONTAL_LABELS) as [HorizontalCoordinate, string][];
   return (
     <div className="flex flex-wrap items-center gap-3">
-      <ChoiceButtons label="Horizontal axis" value={view.horizontal} options={horizontalOptions} onChange={(horizontal) => onChange({ ...view, horizontal })} />
+      <ChoiceButtons label="Horizontal axis" value={choice.horizontal} options={horizontalOptions} onChange={(horizontal) => onChange({ ...choice, horizontal })} />
       <label className="flex items-center gap-2 text-sm text-ink-soft">
         Bin size
-        <select className={inlineSelectClass} value={view.binSize} onChange={(event) => onChange({ ...view, binSize: Number(event.target.value) })}>
+        <select className={inlineSelectClass} value={choice.binSize} onChange={(event) => onChange({ ...choice, binSize: Number(event.target.value) })}>
           {BIN_SIZES.map((size) => (
             <option key={size} value={size}>
               {size}

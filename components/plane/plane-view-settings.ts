@@ -1,6 +1,8 @@
 // What part of the primary plane the first look shows, and how coarsely.
 
-import type { HorizontalCoordinate } from '../samples/sample-types';
+import type { PlaneView } from '@/lib/samples/shapes';
+
+export type HorizontalCoordinate = PlaneView['horizontal'];
 
 export const HORIZONTAL_LABELS: Record<HorizontalCoordinate, string> = {
   lnInvDelta: 'ln(1/Δ)',
@@ -25,17 +27,17 @@ const RANGES: Record<HorizontalCoordinate, { x: [number, number]; y: [number, nu
   lnRoverDelta: { x: [-0.5, 5.5], y: [-3, 6] },
 };
 
-export interface PlaneView {
+export interface PlaneChoice {
   horizontal: HorizontalCoordinate;
   binSize: number;
 }
 
 /** The plane request of the sample API for this view. */
-export function planeUrl(sampleId: number, view: PlaneView): string {
-  const { x, y } = RANGES[view.horizontal];
-  const merge = String(Math.round(view.binSize / FINE_BIN));
+export function planeUrl(sampleId: number, choice: PlaneChoice): string {
+  const { x, y } = RANGES[choice.horizontal];
+  const merge = String(Math.round(choice.binSize / FINE_BIN));
   const query = new URLSearchParams({
-    horizontal: view.horizontal,
+    horizontal: choice.horizontal,
     xmin: String(x[0]),
     xmax: String(x[1]),
     xmerge: merge,
@@ -44,9 +46,4 @@ export function planeUrl(sampleId: number, view: PlaneView): string {
     ymerge: merge,
   });
   return `/api/samples/${sampleId}/plane?${query}`;
-}
-
-/** The horizontal coordinate a plane request asked for. */
-export function horizontalOf(url: string): HorizontalCoordinate {
-  return new URL(url, 'http://splitfield.invalid').searchParams.get('horizontal') === 'lnRoverDelta' ? 'lnRoverDelta' : 'lnInvDelta';
 }

@@ -10,7 +10,7 @@ import { formatDate, formatDateTime } from '../format';
 import { LoadingBlock } from '../loading-block';
 import { Notice } from '../notice';
 import { Panel } from '../panel';
-import type { ApiToken } from '../samples/sample-types';
+import type { ApiTokenView as ApiToken } from '@/lib/samples/shapes';
 import { NewTokenSecret } from './new-token-secret';
 
 function TokenRow({ token, onRevoke }: { token: ApiToken; onRevoke: () => Promise<unknown> }) {

@@ -1,7 +1,7 @@
 import Link from 'next/link';
 import { Button, buttonClass } from '../button';
 import { formatDate } from '../format';
-import type { SampleSummary } from './sample-types';
+import type { SampleSummary } from '@/lib/samples/shapes';
 
 interface DuplicateNoticeProps {
   existing: SampleSummary;

@@ -8,10 +8,15 @@ import { LoadingBlock } from '../loading-block';
 import { Notice } from '../notice';
 import { Panel } from '../panel';
 import { formatCount, formatValue } from './numbers';
-import type { JetPage, JetRow } from './sample-types';
+import type { JetRowView as JetRow } from '@/lib/samples/shapes';
 import { cellClass, DataTable, headCellClass, numberCellClass } from './table';
 
 const PAGE_SIZE = 25;
+
+interface JetPage {
+  total: number;
+  jets: JetRow[];
+}
 
 /** Numeric columns after the record: heading, and how to read the value off a jet. */
 const COLUMNS: { heading: string; title: string; value: (jet: JetRow) => string }[] = [

@@ -1,79 +1,92 @@
-// The processing settings of an upload: their defaults, labels, and the checks the browser makes before sending
-// (the server checks them again and its message wins).
+// The processing settings of an upload as form fields. The rules and defaults are the server's own
+// (lib/samples/settings.ts), checked here too so that obvious mistakes show before the file is sent.
 
-import type { JetAlgorithm, SampleSettings } from './sample-types';
+import { defaultSettings, settingsInputSchema } from '@/lib/samples/settings';
+import type { SampleSettings } from '@/lib/samples/shapes';
 
-export const ALGORITHM_NAMES: Record<JetAlgorithm, string> = {
+export const ALGORITHM_NAMES: Record<SampleSettings['jet']['algorithm'], string> = {
   antikt: 'anti-kt',
   kt: 'kt',
   ca: 'Cambridge/Aachen',
 };
 
-/** PHYSICS.md's default jet definition; SoftDrop and multiplicity as the command line defaults them. */
-export const DEFAULT_SETTINGS = {
-  algorithm: 'antikt',
-  R: 0.4,
-  ptMin: 20,
-  yMax: 2.5,
-  zCut: 0.1,
-  beta: 0,
-  ktCut: 1,
-} as const;
+export const DEFAULTS = defaultSettings();
 
-type NumericSetting = Exclude<keyof SampleSettings, 'algorithm'>;
+type Group = 'jet' | 'softDrop' | null;
 
 interface NumericField {
-  name: NumericSetting;
+  /** The form field's name. */
+  name: string;
+  /** Where the value goes in the settings object: a group of it, or the top level. */
+  group: Group;
+  key: string;
   label: string;
   hint: string;
-  /** Returns the problem with a typed value, or null. */
-  check: (value: number) => string | null;
-  /** Blank means "not set" (all jets, R0 = R) instead of an error. */
-  optional?: boolean;
+  /** The shown default; blank means "not set" (all jets, R0 = R). */
+  initial: string;
 }
 
-const atLeast = (min: number, unit = '') => (v: number) => (v >= min ? null : `must be at least ${min}${unit}`);
+const withDefault = (value: number) => `Default ${value}.`;
 
 export const NUMERIC_FIELDS: NumericField[] = [
-  { name: 'R', label: 'Jet radius R', hint: 'Default 0.4.', check: (v) => (v > 0 && v <= 10 ? null : 'must be above 0 and at most 10') },
-  { name: 'ptMin', label: 'pt min (GeV)', hint: 'Keeps jets with pt above this. Default 20.', check: atLeast(0, ' GeV') },
-  { name: 'yMax', label: '|y| max', hint: 'Keeps jets with |y| below this. Default 2.5.', check: (v) => (v > 0 ? null : 'must be above 0') },
+  { name: 'R', group: 'jet', key: 'R', label: 'Jet radius R', hint: withDefault(DEFAULTS.jet.R), initial: String(DEFAULTS.jet.R) },
   {
-    name: 'maxJets',
-    label: 'Leading jets per record',
-    hint: 'Blank keeps every jet that passes the cuts.',
-   
-    optional: true,
-    check: (v) => (Number.isInteger(v) && v >= 1 ? null : 'must be a whole number of at least 1'),
+    name: 'ptMin',
+    group: 'jet',
+    key: 'ptMin',
+    label: 'pt min (GeV)',
+    hint: `Keeps jets above it. ${withDefault(DEFAULTS.jet.ptMin)}`,
+    initial: String(DEFAULTS.jet.ptMin),
   },
-  { name: 'zCut', label: 'SoftDrop z_cut', hint: 'Default 0.1.', check: (v) => (v >= 0 && v < 1 ? null : 'must be at least 0 and below 1') },
-  { name: 'beta', label: 'SoftDrop β', hint: 'Default 0 (modified mass drop).', check: () => null },
-  { name: 'R0', label: 'SoftDrop R0', hint: 'Blank uses the jet radius R.', optional: true, check: (v) => (v > 0 ? null : 'must be above 0') },
-  { name: 'ktCut', label: 'Multiplicity kt cut (GeV)', hint: 'Counts primary splittings above this kt. Default 1.', check: atLeast(0, ' GeV') },
+  {
+    name: 'yMax',
+    group: 'jet',
+    key: 'yMax',
+    label: '|y| max',
+    hint: `Keeps jets below it. ${withDefault(DEFAULTS.jet.yMax)}`,
+    initial: String(DEFAULTS.jet.yMax),
+  },
+  { name: 'maxJets', group: 'jet', key: 'maxJets', label: 'Leading jets per record', hint: 'Blank keeps every jet that passes.', initial: '' },
+  { name: 'zCut', group: 'softDrop', key: 'zCut', label: 'SoftDrop z_cut', hint: withDefault(DEFAULTS.softDrop.zCut), initial: String(DEFAULTS.softDrop.zCut) },
+  { name: 'beta', group: 'softDrop', key: 'beta', label: 'SoftDrop β', hint: `${withDefault(DEFAULTS.softDrop.beta)} 0 is the modified mass drop.`, initial: String(DEFAULTS.softDrop.beta) },
+  { name: 'R0', group: 'softDrop', key: 'R0', label: 'SoftDrop R0', hint: 'Blank uses the jet radius R.', initial: '' },
+  {
+    name: 'ktCut',
+    group: null,
+    key: 'multiplicityKtCut',
+    label: 'Multiplicity kt cut (GeV)',
+    hint: `Counts primary splittings above it. ${withDefault(DEFAULTS.multiplicityKtCut)}`,
+    initial: String(DEFAULTS.multiplicityKtCut),
+  },
 ];
 
-/** The default of a field as the form shows it ('' for the optional ones). */
-export function defaultText(name: NumericSetting): string {
-  const value = (DEFAULT_SETTINGS as Partial<Record<NumericSetting, number>>)[name];
-  return value === undefined ? '' : String(value);
-}
-
-export type SettingsResult = { settings: Partial<SampleSettings>; problems: null } | { settings: null; problems: string[] };
+export type SettingsResult = { settings: Record<string, unknown>; problems: null } | { settings: null; problems: string[] };
 
 /** Reads the settings fields of the upload form: the settings to send, or what is wrong with them. */
 export function readSettings(data: FormData): SettingsResult {
-  const settings: Partial<SampleSettings> = { algorithm: String(data.get('algorithm') ?? DEFAULT_SETTINGS.algorithm) as JetAlgorithm };
+  const jet: Record<string, unknown> = { algorithm: data.get('algorithm') };
+  const softDrop: Record<string, unknown> = {};
+  const settings: Record<string, unknown> = { jet, softDrop, fullTree: data.get('fullTree') === 'on' };
   const problems: string[] = [];
   for (const field of NUMERIC_FIELDS) {
     const text = String(data.get(field.name) ?? '').trim();
     if (text === '') {
-      if (!field.optional) problems.push(`${field.label}: enter a number.`);
+      if (field.initial !== '') problems.push(`${field.label}: enter a number.`);
       continue;
     }
-    const value = Number(text);
-    const problem = Number.isFinite(value) ? field.check(value) : 'is not a number';
-    if (problem) problems.push(`${field.label} ${problem} (got ${text}).`);
-    else settings[field.name] = value;
+    const target = field.group === 'jet' ? jet : field.group === 'softDrop' ? softDrop : settings;
+    target[field.key] = Number(text);
   }
-  return problems.length ? { settings: null, problems } : { settings, problems: null };
+  if (problems.length) return { settings: null, problems };
+  const checked = settingsInputSchema.safeParse(settings);
+  if (checked.success) return { settings, problems: null };
+  return { settings: null, problems: checked.error.issues.map(({ path, message }) => problemText(path, message)) };
+}
+
+/** "jet.R must be in (0, 10]" → "Jet radius R must be in (0, 10]": the server's rule in the form's words. */
+function problemText(path: PropertyKey[], message: string): string {
+  const key = String(path[path.length - 1]);
+  const label = NUMERIC_FIELDS.find((field) => field.key === key)?.label ?? key;
+  const dotted = path.join('.');
+  return message.startsWith(`${dotted} `) ? `${label} ${message.slice(dotted.length + 1)}.` : `${label}: ${message}.`;
 }

@@ -1,58 +1,82 @@
+import type { ReactNode } from 'react';
+import type { SampleProvenance, SampleSettings } from '@/lib/samples/shapes';
 import { buttonClass } from '../button';
+import { formatDateTime } from '../format';
 import { Panel } from '../panel';
+import { formatBytes } from './numbers';
+import { ALGORITHM_NAMES } from './processing-settings';
 
-/** Keys whose plain spelling reads badly when split at capitals. */
-const KEY_NAMES: Record<string, string> = { sha256: 'SHA-256', R: 'R', R0: 'R0', yMax: '|y| max', ptMin: 'pt min' };
+type Fact = [label: string, value: ReactNode];
 
-/** "fileName" → "file name". */
-function keyName(key: string): string {
-  return KEY_NAMES[key] ?? key.replace(/([a-z0-9])([A-Z])/g, '$1 $2').replace(/_/g, ' ').toLowerCase();
-}
-
-function isRecord(value: unknown): value is Record<string, unknown> {
-  return typeof value === 'object' && value !== null && !Array.isArray(value);
-}
-
-function PlainValue({ value }: { value: unknown }) {
-  if (value === null || value === undefined || value === '') return <span className="text-ink-faint">–</span>;
-  if (typeof value === 'string' || typeof value === 'number' || typeof value === 'boolean') {
-    return <span className="break-all font-mono text-xs">{String(value)}</span>;
-  }
-  return <code className="break-all font-mono text-xs">{JSON.stringify(value)}</code>;
-}
-
-/** Nested facts as nested lists, so the header metadata and the settings keep their grouping. */
-function FactList({ facts, depth = 0 }: { facts: Record<string, unknown>; depth?: number }) {
+/** Labelled facts under a small heading; empty values show as a dash. */
+function FactGroup({ title, facts }: { title: string; facts: Fact[] }) {
   return (
-    <dl className={`grid grid-cols-[minmax(6rem,auto)_minmax(0,1fr)] gap-x-4 gap-y-1.5 text-sm ${depth > 0 ? 'mt-1 border-l border-ink/10 pl-3' : ''}`}>
-      {Object.entries(facts).map(([key, value]) =>
-        isRecord(value) && depth < 2 ? (
-          <div key={key} className="col-span-2">
-            <dt className="text-ink-soft">{keyName(key)}</dt>
-            <dd>
-              <FactList facts={value} depth={depth + 1} />
-            </dd>
+    <div>
+      <h3 className="mb-1.5 text-xs font-medium uppercase tracking-wider text-ink-soft">{title}</h3>
+      <dl className="grid grid-cols-[minmax(7rem,auto)_minmax(0,1fr)] gap-x-4 gap-y-1 text-sm">
+        {facts.map(([label, value]) => (
+          <div key={label} className="contents">
+            <dt className="text-ink-soft">{label}</dt>
+            <dd className="min-w-0 break-words text-ink">{value === null || value === undefined || value === '' ? '–' : value}</dd>
           </div>
-        ) : (
-          <div key={key} className="contents">
-            <dt className="text-ink-soft">{keyName(key)}</dt>
-            <dd className="min-w-0">
-              <PlainValue value={value} />
-            </dd>
-          </div>
-        ),
-      )}
-    </dl>
+        ))}
+      </dl>
+    </div>
   );
 }
 
+/** Free-form header fields (JSON values) as text. */
+function metadataFacts(metadata: Record<string, unknown>): Fact[] {
+  return Object.entries(metadata).map(([key, value]) => [
+    key,
+    <code key={key} className="font-mono text-xs">
+      {typeof value === 'string' ? value : JSON.stringify(value)}
+    </code>,
+  ]);
+}
+
+function settingsFacts(settings: SampleSettings, tree: SampleProvenance['tree']): Fact[] {
+  const { jet, softDrop } = settings;
+  return [
+    ['Jets', `${ALGORITHM_NAMES[jet.algorithm]}, R = ${jet.R}`],
+    ['Cuts', `pt > ${jet.ptMin} GeV, |y| < ${jet.yMax}, ${jet.maxJets === null ? 'all jets' : `${jet.maxJets} leading jets`} per record`],
+    ['SoftDrop', `z_cut = ${softDrop.zCut}, β = ${softDrop.beta}, R0 = ${softDrop.R0}`],
+    ['Multiplicity', `primary splittings with kt > ${settings.multiplicityKtCut} GeV`],
+    ['Stored', tree === 'full' ? 'every splitting of the C/A tree' : 'primary splittings'],
+  ];
+}
+
+const seconds = (value: number | null) => (value === null ? null : `${value.toFixed(1)} s`);
+const when = (iso: string | null) => (iso ? formatDateTime(iso) : null);
+
 /** Where the sample came from and how it was made, as the server recorded it, with the JSON download. */
-export function ProvenancePanel({ sampleId, provenance }: { sampleId: number; provenance: Record<string, unknown> | null }) {
+export function ProvenancePanel({ provenance }: { provenance: SampleProvenance }) {
+  const { file, input, timings } = provenance;
   return (
-    <Panel title="Provenance" lead="The file, its header, the settings and the software that made this sample.">
-      <div className="space-y-4">
-        {provenance ? <FactList facts={provenance} /> : <p className="text-sm text-ink-soft">Recorded once processing has finished.</p>}
-        <a href={`/api/samples/${sampleId}/provenance`} download className={buttonClass('secondary', 'sm')}>
+    <Panel title="Provenance" lead="The file, what its header said, the settings and the software that made this sample.">
+      <div className="space-y-5">
+        <FactGroup
+          title="File"
+          facts={[
+            ['Name', <span key="name" className="break-all">{file.name}</span>],
+            ['Size', formatBytes(file.size)],
+            ['SHA-256', <code key="sha" className="break-all font-mono text-xs">{file.sha256}</code>],
+            ['Format', input && `${input.format} ${input.version}${input.gzip ? ', gzip' : ''} (${input.layout})`],
+            ['Content', input && `${input.content}; momentum ${input.momentum} in ${input.energyUnit}`],
+          ]}
+        />
+        {input && Object.keys(input.metadata).length > 0 && <FactGroup title="Header metadata" facts={metadataFacts(input.metadata)} />}
+        <FactGroup title="Settings" facts={settingsFacts(provenance.settings, provenance.tree)} />
+        <FactGroup
+          title="Made by"
+          facts={[
+            ['Software', `${provenance.software.name} ${provenance.software.version ?? ''}`.trim()],
+            ['Uploaded by', provenance.uploadedBy?.name ?? 'a removed account'],
+            ['Uploaded', `${formatDateTime(timings.uploadedAt)} (transfer ${seconds(timings.uploadSeconds)})`],
+            ['Processed', timings.finishedAt && `${when(timings.startedAt)} – ${when(timings.finishedAt)} (${seconds(timings.processingSeconds)})`],
+          ]}
+        />
+        <a href={`/api/samples/${provenance.sample.id}/provenance`} download className={buttonClass('secondary', 'sm')}>
           Download provenance (JSON)
         </a>
       </div>

@@ -1,25 +1,28 @@
+import type { SampleCounts } from '@/lib/samples/shapes';
 import { Panel } from '../panel';
 import { formatCount } from './numbers';
-import type { SampleCounts } from './sample-types';
 import { StatGrid } from './stat-grid';
 
 /** What processing found: records, jets kept and dropped (by the first cut each failed), splittings. */
 export function SampleCountsPanel({ counts }: { counts: SampleCounts }) {
-  const { rejected } = counts;
-  const dropped = rejected.pt + rejected.y + rejected.rank;
+  const { jetsRejected: rejected } = counts;
   return (
     <Panel title="Counts">
       <StatGrid
         label="Counts"
         stats={[
-          { label: 'Records', value: formatCount(counts.records) },
+          { label: 'Records', value: formatCount(counts.records), note: `${formatCount(counts.particles)} particles` },
           { label: 'Jets kept', value: formatCount(counts.jets) },
           {
             label: 'Jets rejected',
-            value: formatCount(dropped),
+            value: formatCount(rejected.pt + rejected.y + rejected.rank),
             note: `pt ${formatCount(rejected.pt)} · |y| ${formatCount(rejected.y)} · leading-N ${formatCount(rejected.rank)}`,
           },
-          { label: 'Primary splittings', value: formatCount(counts.splittings) },
+          {
+            label: 'Primary splittings',
+            value: formatCount(counts.primarySplittings),
+            note: counts.allSplittings > 0 ? `${formatCount(counts.allSplittings)} in the full trees` : undefined,
+          },
         ]}
       />
     </Panel>

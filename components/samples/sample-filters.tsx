@@ -1,6 +1,6 @@
 import type { StudySummary } from '../api-types';
 import { inlineSelectClass } from '../fields';
-import { SAMPLE_STATES } from './sample-types';
+import { SAMPLE_STATES } from '@/models/vocabulary';
 
 export interface SampleFilter {
   studyId: string;

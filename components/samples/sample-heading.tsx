@@ -2,7 +2,7 @@ import Link from 'next/link';
 import type { ReactNode } from 'react';
 import { formatDateTime } from '../format';
 import { PageHeader } from '../page-header';
-import type { SampleDetail } from './sample-types';
+import type { SampleDetail } from '@/lib/samples/shapes';
 import { StateBadge } from './state-badge';
 
 /** The sample's name and state, where it belongs, who uploaded it and when; actions on the right. */

@@ -1,4 +1,4 @@
-import type { SampleSummary } from './sample-types';
+import type { SampleSummary } from '@/lib/samples/shapes';
 
 /** Queued or running: the page keeps asking the server for news. */
 export function isProcessing(sample: Pick<SampleSummary, 'state'>): boolean {

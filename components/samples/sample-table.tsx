@@ -1,7 +1,7 @@
 import Link from 'next/link';
 import { formatDate } from '../format';
 import { formatCount } from './numbers';
-import type { SampleSummary } from './sample-types';
+import type { SampleSummary } from '@/lib/samples/shapes';
 import { StateBadge } from './state-badge';
 import { cellClass, DataTable, headCellClass, numberCellClass, SortHeader, type SortOrder } from './table';
 

@@ -18,7 +18,7 @@ import { ProvenancePanel } from './provenance-panel';
 import { SampleCountsPanel } from './sample-counts';
 import { SampleHeading } from './sample-heading';
 import { isProcessing } from './sample-state';
-import type { SampleDetail } from './sample-types';
+import type { SampleDetail } from '@/lib/samples/shapes';
 
 /** How often a queued or running sample asks for news. */
 const POLL_MS = 1000;
@@ -67,8 +67,8 @@ export function SampleView({ sampleId }: { sampleId: string }) {
             <PlanePanel sampleId={sample.id} />
             <JetTable sampleId={sample.id} />
             <div className="grid items-start gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
-              <ProvenancePanel sampleId={sample.id} provenance={sample.provenance} />
-              <ExportLinks sampleId={sample.id} />
+              <ProvenancePanel provenance={sample.provenance} />
+              <ExportLinks sampleId={sample.id} fullTree={sample.provenance.tree === 'full'} />
             </div>
           </>
         )}

@@ -11,7 +11,7 @@ import { Notice } from '../notice';
 import { PageHeader } from '../page-header';
 import { NO_FILTER, SampleFilters, type SampleFilter } from './sample-filters';
 import { SampleTable, type SampleSort, type SampleSortKey } from './sample-table';
-import type { SampleSummary } from './sample-types';
+import type { SampleSummary } from '@/lib/samples/shapes';
 import type { SortOrder } from './table';
 import { isProcessing } from './sample-state';
 import { useStudies } from './use-studies';

@@ -1,17 +1,16 @@
 import { SelectField, TextField } from '../fields';
-import { ALGORITHM_NAMES, DEFAULT_SETTINGS, NUMERIC_FIELDS, defaultText } from './processing-settings';
+import { ALGORITHM_NAMES, DEFAULTS, NUMERIC_FIELDS } from './processing-settings';
 
 /** The processing settings of an upload, prefilled with the defaults. */
 export function SettingsFields({ disabled }: { disabled?: boolean }) {
   return (
     <fieldset disabled={disabled} className="space-y-4">
-      <legend className="font-semibold">Processing settings</legend>
-      <p className="-mt-2 text-xs text-ink-soft">
-        Defaults are filled in. The jet algorithm, R and the cuts find jets in whole events; files of single jets use the
-        cuts and R (for ln(R/Δ)) only.
+      <p className="text-xs text-ink-soft">
+        Defaults are filled in. Files of whole events use everything; files of single jets skip jet finding and keep the
+        cuts, and R (for ln(R/Δ) and SoftDrop).
       </p>
       <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
-        <SelectField label="Jet algorithm" name="algorithm" defaultValue={DEFAULT_SETTINGS.algorithm}>
+        <SelectField label="Jet algorithm" name="algorithm" defaultValue={DEFAULTS.jet.algorithm} hint="Finds the jets in events.">
           {Object.entries(ALGORITHM_NAMES).map(([value, name]) => (
             <option key={value} value={value}>
               {name}
@@ -19,16 +18,16 @@ export function SettingsFields({ disabled }: { disabled?: boolean }) {
           ))}
         </SelectField>
         {NUMERIC_FIELDS.map((field) => (
-          <TextField
-            key={field.name}
-            label={field.label}
-            name={field.name}
-            hint={field.hint}
-            inputMode="decimal"
-            defaultValue={defaultText(field.name)}
-          />
+          <TextField key={field.name} label={field.label} name={field.name} hint={field.hint} inputMode="decimal" defaultValue={field.initial} />
         ))}
       </div>
+      <label className="flex items-start gap-2 text-sm text-ink">
+        <input type="checkbox" name="fullTree" defaultChecked={DEFAULTS.fullTree} className="mt-0.5 h-4 w-4 accent-accent" />
+        <span>
+          Keep every splitting of the Cambridge/Aachen tree
+          <span className="block text-xs text-ink-soft">Needed for the full-tree export; takes more space. Off: primary splittings only.</span>
+        </span>
+      </label>
     </fieldset>
   );
 }

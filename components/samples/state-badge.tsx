@@ -1,5 +1,5 @@
 import { pill } from '../role-badge';
-import type { SampleState } from './sample-types';
+import type { SampleState } from '@/models/vocabulary';
 
 const looks: Record<SampleState, { style: string; meaning: string }> = {
   queued: { style: 'bg-paper-sunk text-ink-soft border-ink/15', meaning: 'Waiting for a free worker' },

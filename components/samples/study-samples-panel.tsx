@@ -9,7 +9,7 @@ import { Notice } from '../notice';
 import { Panel } from '../panel';
 import { formatCount } from './numbers';
 import { isProcessing } from './sample-state';
-import type { SampleSummary } from './sample-types';
+import type { SampleSummary } from '@/lib/samples/shapes';
 import { StateBadge } from './state-badge';
 
 /** The samples of one study, for the study page; editors get the way to upload another. */

@@ -1,7 +1,7 @@
 // Sends an upload with XMLHttpRequest, which (unlike fetch) reports how much of the body has gone out.
 
 import { ApiError } from '@/lib/fetcher';
-import type { SampleSummary } from './sample-types';
+import type { SampleSummary } from '@/lib/samples/shapes';
 
 export type UploadAnswer = { sample: SampleSummary } | { duplicateOf: SampleSummary };
 

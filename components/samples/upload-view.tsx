@@ -14,7 +14,7 @@ import { DuplicateNotice } from './duplicate-notice';
 import { describeFile, type SampleDescription } from './file-header';
 import { FileDrop } from './file-drop';
 import { readSettings } from './processing-settings';
-import type { SampleSummary } from './sample-types';
+import type { SampleSummary } from '@/lib/samples/shapes';
 import { SampleFields } from './sample-fields';
 import { SettingsFields } from './settings-fields';
 import { TransferProgress } from './transfer-progress';
