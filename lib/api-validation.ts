@@ -24,12 +24,22 @@ export async function readJsonBody<T>(request: Request, schema: z.ZodType<T>): P
       { path: '(body)', message: text.trim() === '' ? 'The body is empty.' : 'The body could not be parsed as JSON.' },
     ]);
   }
-  const parsed = schema.safeParse(body);
+  return checkedInput(schema, body, 'request body');
+}
+
+/** `value` checked against the schema; 400 `invalid_input` naming each problem and where it is. */
+export function checkedInput<T>(schema: z.ZodType<T>, value: unknown, what: string): T {
+  const parsed = schema.safeParse(value);
   if (!parsed.success) {
     const details = issueDetails(parsed.error);
-    throw badRequest(`Invalid request body: ${summary(details)}`, details);
+    throw badRequest(`Invalid ${what}: ${summary(details)}`, details);
   }
   return parsed.data;
+}
+
+/** The URL's query parameters (the last value of a repeated one) checked against the schema. */
+export function readQuery<T>(request: Request, schema: z.ZodType<T>): T {
+  return checkedInput(schema, Object.fromEntries(new URL(request.url).searchParams), 'query');
 }
 
 /**

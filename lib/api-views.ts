@@ -1,4 +1,5 @@
 // How records look in API responses: only what clients need, never password hashes or session versions.
+import type { ApiToken } from '@/models/api-token';
 import type { Entry } from '@/models/entry';
 import type { Membership } from '@/models/membership';
 import type { Study } from '@/models/study';
@@ -43,4 +44,10 @@ export function entryView(entry: Entry) {
     createdAt,
     updatedAt,
   };
+}
+
+/** A personal API token without its secret. */
+export function apiTokenView(token: ApiToken) {
+  const { id, name, prefix, createdAt, lastUsedAt } = token;
+  return { id, name, prefix, createdAt, lastUsedAt };
 }

@@ -2,6 +2,7 @@ import { getToken, type JWT } from 'next-auth/jwt';
 import { cookies, headers } from 'next/headers';
 import type { NextRequest } from 'next/server';
 import type { User } from '@/models/user';
+import { bearerSecret, userForTokenSecret } from './api-tokens';
 import { authSecret } from './auth-secret';
 import { db } from './db';
 
@@ -17,8 +18,13 @@ export async function activeUserForToken(token: JWT | null): Promise<User | null
   return user;
 }
 
-/** The signed-in user of an API request, or null. */
+/**
+ * The signed-in user of an API request, or null: from a personal API token (`Authorization: Bearer`) when the
+ * request carries one, which then decides alone, else from the session cookie.
+ */
 export async function requestUser(request: NextRequest): Promise<User | null> {
+  const secret = bearerSecret(request);
+  if (secret !== null) return userForTokenSecret(secret);
   return activeUserForToken(await getToken({ req: request, secret: authSecret() }));
 }
 

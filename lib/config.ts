@@ -24,13 +24,18 @@ const environmentSchema = z.object({
     .optional(),
 });
 
-export function readConfig(env: Environment = process.env): ServerConfig {
-  const parsed = environmentSchema.safeParse(env);
+/** The environment checked against `schema`; throws naming each variable that is wrong. */
+export function checkedEnvironment<T>(schema: z.ZodType<T>, env: Environment): T {
+  const parsed = schema.safeParse(env);
   if (!parsed.success) {
     const problems = parsed.error.issues.map((issue) => `${issue.path.join('.')} ${issue.message}`);
     throw new Error(`Invalid environment variable: ${problems.join('; ')}`);
   }
-  const values = parsed.data;
+  return parsed.data;
+}
+
+export function readConfig(env: Environment = process.env): ServerConfig {
+  const values = checkedEnvironment(environmentSchema, env);
   // The ignore comments stop the bundler from tracing the whole project: these paths are only known at run time.
   const storageDir = path.resolve(/*turbopackIgnore: true*/ values.SPLITFIELD_STORAGE ?? 'storage');
   const databasePath = values.SPLITFIELD_DB ?? path.join(storageDir, 'splitfield.sqlite');

@@ -1,6 +1,7 @@
 import { randomBytes } from 'node:crypto';
 import { writeFileSync } from 'node:fs';
 import path from 'node:path';
+import { seedDemoSamples } from '@/lib/samples/demo-samples';
 import type { SiteRole, StudyRole } from '@/models/vocabulary';
 import { hashPassword } from './auth-password';
 import type { Database } from './db';
@@ -36,9 +37,10 @@ export function demoCredentialsText(accounts: DemoAccount[]): string {
 }
 
 /**
- * On an empty database (no users yet), creates the demo accounts with random passwords, the demo study and
- * its notes, and writes the credentials to storage/; all or nothing. Returns the accounts, or null when the
- * database already had users, so it runs once however often the server starts.
+ * On an empty database (no users yet), creates the demo accounts with random passwords, the demo study with its
+ * notes and its two generated samples (queued for processing), and writes the credentials to storage/; all or
+ * nothing. Returns the accounts, or null when the database already had users, so it runs once however often the
+ * server starts.
  */
 export async function seedOnce(database: Database, storageDir: string): Promise<DemoAccount[] | null> {
   const { models, write } = database;
@@ -60,8 +62,15 @@ export async function seedOnce(database: Database, storageDir: string): Promise<
         { transaction },
       );
     }
+    const demoSamples = { storageDir, studyId: study.id, uploaderId: author.id };
+    const removeSampleFiles = await seedDemoSamples(models, transaction, demoSamples);
     // Written before the commit: if it fails, the transaction rolls back and the next start tries again.
-    writeFileSync(path.join(storageDir, DEMO_CREDENTIALS_FILE), demoCredentialsText(accounts), { mode: 0o600 });
+    try {
+      writeFileSync(path.join(storageDir, DEMO_CREDENTIALS_FILE), demoCredentialsText(accounts), { mode: 0o600 });
+    } catch (error) {
+      await removeSampleFiles();
+      throw error;
+    }
     return accounts;
   });
 }

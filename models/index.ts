@@ -1,6 +1,9 @@
 import type { Sequelize } from 'sequelize';
+import { defineApiToken } from './api-token';
 import { defineEntry } from './entry';
 import { defineMembership } from './membership';
+import { defineSample } from './sample';
+import { defineSamplePlane } from './sample-plane';
 import { defineSiteSetting } from './site-setting';
 import { defineStudy } from './study';
 import { defineUser } from './user';
@@ -15,6 +18,9 @@ export function defineModels(sequelize: Sequelize) {
   const Study = defineStudy(sequelize);
   const Membership = defineMembership(sequelize);
   const Entry = defineEntry(sequelize);
+  const Sample = defineSample(sequelize);
+  const SamplePlane = defineSamplePlane(sequelize);
+  const ApiToken = defineApiToken(sequelize);
 
   Study.hasMany(Membership, { foreignKey: 'studyId', as: 'memberships' });
   Membership.belongsTo(Study, { foreignKey: 'studyId', as: 'study' });
@@ -24,8 +30,13 @@ export function defineModels(sequelize: Sequelize) {
   Entry.belongsTo(Study, { foreignKey: 'studyId', as: 'study' });
   Entry.belongsTo(User, { foreignKey: 'createdById', as: 'createdBy' });
   Entry.belongsTo(User, { foreignKey: 'updatedById', as: 'updatedBy' });
+  Study.hasMany(Sample, { foreignKey: 'studyId', as: 'samples' });
+  Sample.belongsTo(Study, { foreignKey: 'studyId', as: 'study' });
+  Sample.belongsTo(User, { foreignKey: 'uploadedById', as: 'uploadedBy' });
+  Sample.hasMany(SamplePlane, { foreignKey: 'sampleId', as: 'planes' });
+  ApiToken.belongsTo(User, { foreignKey: 'userId', as: 'user' });
 
-  return { User, SiteSetting, Study, Membership, Entry };
+  return { User, SiteSetting, Study, Membership, Entry, Sample, SamplePlane, ApiToken };
 }
 
 export type Models = ReturnType<typeof defineModels>;

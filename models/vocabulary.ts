@@ -18,3 +18,16 @@ export const USER_NAME_MAX = 100;
 export const PASSWORD_MIN = 8;
 // bcrypt only reads the first 72 bytes; a longer password would pass with any tail.
 export const PASSWORD_MAX = 72;
+
+/** A sample's processing states: queued → running → done | failed | cancelled. */
+export const SAMPLE_STATES = ['queued', 'running', 'done', 'failed', 'cancelled'] as const;
+export type SampleState = (typeof SAMPLE_STATES)[number];
+/** States in which a sample's job is still to finish. */
+export const UNFINISHED_SAMPLE_STATES = ['queued', 'running'] as const satisfies readonly SampleState[];
+
+export const SAMPLE_NAME_MAX = 200;
+export const SAMPLE_LABEL_MAX = 60;
+export const SAMPLE_DESCRIPTION_MAX = 5000;
+export const SAMPLE_TAG_MAX = 40;
+export const SAMPLE_TAGS_MAX = 20;
+export const API_TOKEN_NAME_MAX = 100;

@@ -61,7 +61,7 @@ export type JetColumnName = keyof typeof JET_COLUMNS;
 export type SplittingColumnName = keyof typeof SPLITTING_COLUMNS;
 
 /** Where each splitting column's value sits within a splitting of the engine's Float64Array. */
-const SPLIT_FIELD_OF: Record<Exclude<SplittingColumnName, 'jetRow'>, number> = {
+export const SPLIT_FIELD_OF: Record<Exclude<SplittingColumnName, 'jetRow'>, number> = {
   generation: S_GENERATION,
   lnInvDelta: S_LN_INV_DELTA,
   lnKt: S_LN_KT,
@@ -378,7 +378,7 @@ export class ColumnReader {
       expected.push([columnFile('splittings', name, type), manifest.splittings.rows * BYTES_PER_VALUE[type]]);
     }
     for (const [file, size] of expected) {
-      const actual = await stat(path.join(directory, file)).then(
+      const actual = await stat(path.join(/*turbopackIgnore: true*/ directory, file)).then(
         (s) => s.size,
         () => -1,
       );
@@ -436,6 +436,60 @@ export class ColumnReader {
     const ids: string[] = [];
     for (let k = 0; k < count; k++) ids.push(decoder.decode(bytes.subarray(offsets[k] - offsets[0], offsets[k + 1] - offsets[0])));
     return ids;
+  }
+
+  /** Rows [first, first + count) of one jet column. */
+  jetColumnRange<K extends JetColumnName>(name: K, first: number, count: number): Promise<ColumnArray<(typeof JET_COLUMNS)[K]>> {
+    checkRange('jet', first, count, this.manifest.jets.rows);
+    return this.readRows(columnFile('jets', name, JET_COLUMNS[name]), JET_COLUMNS[name], first, count);
+  }
+
+  /** Rows [first, first + count) of one splitting column. */
+  splittingColumnRange<K extends SplittingColumnName>(
+    name: K,
+    first: number,
+    count: number,
+  ): Promise<ColumnArray<(typeof SPLITTING_COLUMNS)[K]>> {
+    checkRange('splitting', first, count, this.manifest.splittings.rows);
+    return this.readRows(columnFile('splittings', name, SPLITTING_COLUMNS[name]), SPLITTING_COLUMNS[name], first, count);
+  }
+
+  /** Values at scattered rows of one file (each file opened once, one small read a row). */
+  private async readAt(file: string, type: ColumnType, rows: readonly number[]): Promise<Float64Array | Int32Array> {
+    const width = BYTES_PER_VALUE[type];
+    const buffer = new ArrayBuffer(rows.length * width);
+    const handle = await open(path.join(this.directory, file), 'r');
+    try {
+      for (let k = 0; k < rows.length; k++) {
+        const { bytesRead } = await handle.read(new Uint8Array(buffer, k * width, width), 0, width, rows[k] * width);
+        if (bytesRead !== width) throw new Error(`column store ${this.directory}: ${file} ended early`);
+      }
+    } finally {
+      await handle.close();
+    }
+    return type === 'int32' ? new Int32Array(buffer) : new Float64Array(buffer);
+  }
+
+  /** The jet table's rows with the given row numbers, in the order given (e.g. a page of a sorted view). */
+  async jetRowsAt(rows: readonly number[]): Promise<JetRow[]> {
+    for (const row of rows) checkRange('jet row', row, 1, this.manifest.jets.rows);
+    const columns = {} as Record<JetColumnName, Float64Array | Int32Array>;
+    for (const [name, type] of Object.entries(JET_COLUMNS) as Array<[JetColumnName, ColumnType]>) {
+      columns[name] = await this.readAt(columnFile('jets', name, type), type, rows);
+    }
+    const records = Array.from(columns.record);
+    const starts = await this.readAt(RECORD_OFFSETS_FILE, 'int32', records);
+    const ends = await this.readAt(RECORD_OFFSETS_FILE, 'int32', records.map((record) => record + 1));
+    const ids: string[] = [];
+    for (let k = 0; k < rows.length; k++) {
+      const bytes = new Uint8Array(await this.readBytes(RECORD_IDS_FILE, starts[k], ends[k] - starts[k]));
+      ids.push(new TextDecoder('utf-8', { fatal: true }).decode(bytes));
+    }
+    return rows.map((row, k) => {
+      const jetRow = { row, recordId: ids[k] } as JetRow;
+      for (const name of Object.keys(JET_COLUMNS) as JetColumnName[]) jetRow[name] = columns[name][k];
+      return jetRow;
+    });
   }
 
   /** Rows [offset, offset + limit) of the jet table (fewer at the end), reading only that range of each column. */

@@ -1,5 +1,6 @@
 import { foundation } from './0001-foundation';
+import { samples } from './0002-samples';
 import type { SchemaMigration } from './types';
 
 /** Every schema step in the order it runs. Listed here rather than found on disk so that any loader can run them. */
-export const schemaMigrations: readonly SchemaMigration[] = [foundation];
+export const schemaMigrations: readonly SchemaMigration[] = [foundation, samples];

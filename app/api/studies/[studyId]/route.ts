@@ -6,6 +6,7 @@ import { readJsonBody } from '@/lib/api-validation';
 import { studyView } from '@/lib/api-views';
 import { studyAccess } from '@/lib/authz';
 import { db } from '@/lib/db';
+import { deleteStudyWithSamples } from '@/lib/samples/removal';
 
 export const dynamic = 'force-dynamic';
 export const runtime = 'nodejs';
@@ -30,9 +31,9 @@ export const PATCH = signedInRoute({ params }, async ({ request, params, user })
   return json({ study: studyView(study) });
 });
 
-/** Deletes the study with its members and entries (the foreign keys cascade). */
+/** Deletes the study with its members, entries and samples (the foreign keys cascade; sample files follow). */
 export const DELETE = signedInRoute({ params }, async ({ params, user }) => {
   const { study } = await studyAccess(user, params.studyId, 'owner');
-  await db().write((transaction) => study.destroy({ transaction }));
+  await deleteStudyWithSamples(study.id, () => db().write((transaction) => study.destroy({ transaction })));
   return noContent();
 });

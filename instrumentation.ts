@@ -1,0 +1,8 @@
+// Next.js calls register() once when a server starts: the processing queue starts with it, so that jobs a stop
+// cut short are requeued and queued samples run without waiting for a request. Node.js runtime only (worker
+// threads), and never while `next build` loads the app.
+export async function register(): Promise<void> {
+  if (process.env.NEXT_RUNTIME !== 'nodejs' || process.env.NEXT_PHASE === 'phase-production-build') return;
+  const { jobRunner } = await import('./lib/jobs/runner');
+  await jobRunner();
+}

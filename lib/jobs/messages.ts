@@ -1,0 +1,32 @@
+// What the server and a job's worker thread (dist/engine/job-worker.js) tell each other.
+import type { PipelineProgress } from '@/lib/ingest/sink';
+import type { HorizontalCoordinate } from '@/lib/physics/density';
+import type { SampleCounts, SampleInput, SampleSettings } from '@/lib/samples/shapes';
+import type { JobErrorReport } from './failure';
+
+/** The worker's workerData. */
+export interface JobWorkerInput {
+  /** The uploaded file. */
+  uploadPath: string;
+  /** Where the sample's columns go; it appears only when processing succeeded. */
+  sampleDir: string;
+  settings: SampleSettings;
+  threads: number;
+}
+
+export interface FinishedPlane {
+  horizontal: HorizontalCoordinate;
+  /** PlaneHistogram.toBytes(). */
+  bytes: Uint8Array;
+}
+
+/** Worker → server. Exactly one of done, failed and cancelled ends every run. */
+export type JobWorkerMessage =
+  | { type: 'input'; input: SampleInput }
+  | { type: 'progress'; progress: PipelineProgress }
+  | { type: 'done'; counts: SampleCounts; progress: PipelineProgress; planes: FinishedPlane[] }
+  | { type: 'failed'; error: JobErrorReport }
+  | { type: 'cancelled' };
+
+/** Server → worker. */
+export type JobControlMessage = { type: 'cancel' };

@@ -1,0 +1,217 @@
+// The server's processing queue: takes queued samples in upload order, runs at most SPLITFIELD_MAX_JOBS at once,
+// each in its own worker thread (dist/engine/job-worker.js), records progress (throttled) and the outcome, and
+// removes every file of a job that did not finish. One runner per process, started by instrumentation.ts; at
+// start it requeues the jobs a stop of the server cut short and sweeps storage of what no sample owns.
+import { existsSync } from 'node:fs';
+import { mkdir } from 'node:fs/promises';
+import path from 'node:path';
+import { Worker } from 'node:worker_threads';
+import { db } from '@/lib/db';
+import type { PipelineProgress } from '@/lib/ingest/sink';
+import { readSampleConfig, type SampleConfig } from '@/lib/samples/config';
+import {
+  removeSampleFiles,
+  removeUpload,
+  sampleDir,
+  sampleStorage,
+  sweepUnowned,
+  uploadPath,
+  type SampleStorage,
+} from '@/lib/samples/storage';
+import type { Sample } from '@/models/sample';
+import { sampleError, type JobErrorReport } from './failure';
+import type { JobControlMessage, JobWorkerInput, JobWorkerMessage } from './messages';
+import { progressView } from './progress';
+import { claimNextQueued, recordDone, recordEnded, recordInput, recordProgress, requeueInterrupted } from './sample-states';
+
+/** Progress reaches the database at most this often per job. */
+const PROGRESS_WRITE_MS = 1000;
+/** Queued samples are also looked for this often, in case a wake-up was missed. */
+const POLL_MS = 5000;
+/** A cancelled job that has not stopped by then is terminated. */
+const CANCEL_GRACE_MS = 10_000;
+
+type Ending = Extract<JobWorkerMessage, { type: 'done' | 'failed' | 'cancelled' }>;
+
+interface RunningJob {
+  sample: Sample;
+  worker: Worker;
+  cancelRequested: boolean;
+  /** Settles once the outcome is recorded and the job's files are cleaned up. */
+  finished: Promise<void>;
+}
+
+function jobWorkerFile(): string {
+  return process.env.SPLITFIELD_JOB_WORKER ?? path.resolve(/*turbopackIgnore: true*/ process.cwd(), 'dist/engine/job-worker.js');
+}
+
+function logFailure(what: string, error: unknown): void {
+  console.error(`[jobs] ${what}:`, error);
+}
+
+export class JobRunner {
+  private readonly running = new Map<number, RunningJob>();
+  private filling: Promise<void> | null = null;
+  private fillAgain = false;
+
+  constructor(
+    private readonly config: SampleConfig,
+    private readonly storage: SampleStorage,
+    private readonly workerFile: string,
+  ) {}
+
+  /** Requeues interrupted jobs, removes unowned files, then starts taking queued samples. */
+  async start(): Promise<void> {
+    await mkdir(this.storage.uploadsDir, { recursive: true });
+    await mkdir(this.storage.samplesDir, { recursive: true });
+    const unfinished = await requeueInterrupted((name) => existsSync(uploadPath(this.storage, name)));
+    const done = await db().models.Sample.findAll({ where: { state: 'done' }, attributes: ['id'] });
+    const removed = await sweepUnowned(this.storage, unfinished.waitingUploads, new Set(done.map((sample) => sample.id)));
+    if (unfinished.requeued.length > 0) console.log(`[jobs] requeued interrupted samples ${unfinished.requeued.join(', ')}`);
+    if (unfinished.abandoned.length > 0) console.log(`[jobs] marked failed: samples ${unfinished.abandoned.join(', ')}`);
+    if (removed.length > 0) console.log(`[jobs] removed ${removed.length} unowned file(s) from storage: ${removed.join(', ')}`);
+    setInterval(() => this.wake(), POLL_MS).unref();
+    this.wake();
+  }
+
+  /** Looks for queued samples now (after an upload). */
+  wake(): void {
+    if (this.filling) {
+      this.fillAgain = true;
+      return;
+    }
+    this.filling = this.fill()
+      .catch((error) => logFailure('cannot start queued jobs', error))
+      .finally(() => {
+        this.filling = null;
+        if (this.fillAgain) {
+          this.fillAgain = false;
+          this.wake();
+        }
+      });
+  }
+
+  private async fill(): Promise<void> {
+    while (this.running.size < this.config.maxJobs) {
+      const sample = await claimNextQueued();
+      if (!sample) return;
+      this.launch(sample);
+    }
+  }
+
+  /**
+   * Stops the sample's job if it runs, or takes it out of the queue; resolves once it is recorded as cancelled
+   * and its files are gone. A sample that already ended stays as it is.
+   */
+  async cancel(sample: Sample): Promise<void> {
+    const job = this.running.get(sample.id);
+    if (job) return this.stop(job);
+    if (await recordEnded(sample.id, 'cancelled', null)) await removeUpload(this.storage, sample.uploadFile);
+    // Claimed between the look-up and the update: the job started, so stop it.
+    const late = this.running.get(sample.id);
+    if (late) await this.stop(late);
+  }
+
+  private async stop(job: RunningJob): Promise<void> {
+    job.cancelRequested = true;
+    job.worker.postMessage({ type: 'cancel' } satisfies JobControlMessage);
+    const force = setTimeout(() => void job.worker.terminate(), CANCEL_GRACE_MS);
+    await job.finished;
+    clearTimeout(force);
+  }
+
+  private launch(sample: Sample): void {
+    const input: JobWorkerInput = {
+      uploadPath: uploadPath(this.storage, sample.uploadFile ?? ''),
+      sampleDir: sampleDir(this.storage, sample.id),
+      settings: sample.settings,
+      threads: this.config.jobThreads,
+    };
+    const worker = new Worker(this.workerFile, { workerData: input });
+    const job: RunningJob = { sample, worker, cancelRequested: false, finished: Promise.resolve() };
+    let ending: Ending | null = null;
+    let crash: Error | null = null;
+    let lastWrite = 0;
+
+    worker.on('message', (message: JobWorkerMessage) => {
+      const failed = (what: string) => (error: unknown) => logFailure(`sample ${sample.id}: ${what}`, error);
+      if (message.type === 'input') {
+        recordInput(sample.id, message.input).catch(failed('input'));
+      } else if (message.type === 'progress') {
+        if (Date.now() - lastWrite < PROGRESS_WRITE_MS) return;
+        lastWrite = Date.now();
+        recordProgress(sample.id, this.progressOf(sample, message.progress)).catch(failed('progress'));
+      } else {
+        ending = message;
+      }
+    });
+    worker.on('error', (error) => {
+      crash ??= error;
+    });
+    job.finished = new Promise<void>((resolve) => {
+      worker.once('exit', (exitCode) => {
+        this.conclude(job, ending ?? this.unexplainedEnd(job, crash, exitCode))
+          .catch((error) => logFailure(`sample ${sample.id}: recording the outcome`, error))
+          .finally(() => {
+            this.running.delete(sample.id);
+            resolve();
+            this.wake();
+          });
+      });
+    });
+    this.running.set(sample.id, job);
+  }
+
+  private progressOf(sample: Sample, progress: PipelineProgress) {
+    return progressView(progress, sample.fileSize, sample.settings.fullTree);
+  }
+
+  /** The ending of a worker that stopped without saying how (terminated, crashed, or not even started). */
+  private unexplainedEnd(job: RunningJob, crash: Error | null, exitCode: number): Ending {
+    if (job.cancelRequested) return { type: 'cancelled' };
+    const missing = !existsSync(this.workerFile);
+    const message = missing
+      ? `the processing engine is not built (${this.workerFile} is missing); run: npm run build:engine`
+      : `the processing job stopped unexpectedly (${crash ? crash.message : `exit code ${exitCode}`})`;
+    return { type: 'failed', error: { code: 'internal', message, line: null } satisfies JobErrorReport };
+  }
+
+  private async conclude(job: RunningJob, ending: Ending): Promise<void> {
+    const { sample } = job;
+    try {
+      if (ending.type === 'done') {
+        const { counts, planes } = ending;
+        if (!(await recordDone(sample.id, { counts, planes, progress: this.progressOf(sample, ending.progress) }))) {
+          await removeSampleFiles(this.storage, sample.id);
+        }
+        return;
+      }
+      // Files first: once the sample reads as failed or cancelled, nothing of it is left on disk.
+      await removeSampleFiles(this.storage, sample.id);
+      await recordEnded(sample.id, ending.type, ending.type === 'failed' ? sampleError(ending.error) : null);
+    } catch (error) {
+      await removeSampleFiles(this.storage, sample.id);
+      await recordEnded(sample.id, 'failed', sampleError({ code: 'internal', message: String(error), line: null }));
+      throw error;
+    } finally {
+      await removeUpload(this.storage, sample.uploadFile);
+    }
+  }
+}
+
+const processWideKey = Symbol.for('splitfield.jobRunner');
+type ProcessWide = typeof globalThis & { [processWideKey]?: Promise<JobRunner> };
+
+/**
+ * The process's job runner, started on first use (instrumentation.ts uses it at server start). Kept on globalThis
+ * because the bundler may load this module once per route bundle.
+ */
+export function jobRunner(): Promise<JobRunner> {
+  const holder = globalThis as ProcessWide;
+  holder[processWideKey] ??= (async () => {
+    const runner = new JobRunner(readSampleConfig(), sampleStorage(), jobWorkerFile());
+    await runner.start();
+    return runner;
+  })();
+  return holder[processWideKey];
+}

@@ -1,0 +1,130 @@
+// The database side of a sample's job: each change of state is one short write transaction, and each one names
+// the state it expects to find, so a late message (progress after a cancel) changes nothing.
+import { Op } from 'sequelize';
+import { SOFTWARE_VERSION } from '@/lib/ingest/export';
+import { db } from '@/lib/db';
+import type { SampleCounts, SampleError, SampleInput, SampleProgress } from '@/lib/samples/shapes';
+import type { Sample } from '@/models/sample';
+import { sampleError } from './failure';
+import type { FinishedPlane } from './messages';
+
+/** A job cut short by a server stop this many times is not tried again. */
+export const MAX_ATTEMPTS = 2;
+
+/** Takes the oldest queued sample and marks it running; null when none waits. */
+export async function claimNextQueued(): Promise<Sample | null> {
+  const { models, write } = db();
+  return write(async (transaction) => {
+    const sample = await models.Sample.findOne({ where: { state: 'queued' }, order: [['id', 'ASC']], transaction });
+    if (!sample) return null;
+    await sample.update(
+      { state: 'running', startedAt: new Date(), progress: null, attempts: sample.attempts + 1 },
+      { transaction },
+    );
+    return sample;
+  });
+}
+
+async function updateRunning(sampleId: number, change: Partial<Sample['_creationAttributes']>): Promise<boolean> {
+  const { models, write } = db();
+  const [updated] = await write((transaction) =>
+    models.Sample.update(change, { where: { id: sampleId, state: 'running' }, transaction }),
+  );
+  return updated > 0;
+}
+
+export function recordProgress(sampleId: number, progress: SampleProgress): Promise<boolean> {
+  return updateRunning(sampleId, { progress });
+}
+
+export function recordInput(sampleId: number, input: SampleInput): Promise<boolean> {
+  return updateRunning(sampleId, { input });
+}
+
+/**
+ * Marks the sample done with its counts and stores its plane histograms, in one transaction. False when the
+ * sample is no longer running (deleted meanwhile): then nothing was stored.
+ */
+export async function recordDone(
+  sampleId: number,
+  outcome: { counts: SampleCounts; progress: SampleProgress; planes: FinishedPlane[] },
+): Promise<boolean> {
+  const { models, write } = db();
+  return write(async (transaction) => {
+    const [updated] = await models.Sample.update(
+      {
+        state: 'done',
+        counts: outcome.counts,
+        progress: outcome.progress,
+        finishedAt: new Date(),
+        softwareVersion: SOFTWARE_VERSION,
+        uploadFile: null,
+      },
+      { where: { id: sampleId, state: 'running' }, transaction },
+    );
+    if (updated === 0) return false;
+    await models.SamplePlane.bulkCreate(
+      outcome.planes.map(({ horizontal, bytes }) => ({
+        sampleId,
+        horizontal,
+        histogram: Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength),
+      })),
+      { transaction },
+    );
+    return true;
+  });
+}
+
+/** Ends an unfinished sample as failed (keeping the row as the record of the failure) or cancelled. */
+export async function recordEnded(sampleId: number, state: 'failed' | 'cancelled', error: SampleError | null) {
+  const { models, write } = db();
+  const [updated] = await write((transaction) =>
+    models.Sample.update(
+      { state, error, finishedAt: new Date(), softwareVersion: SOFTWARE_VERSION, uploadFile: null },
+      { where: { id: sampleId, state: { [Op.in]: ['queued', 'running'] } }, transaction },
+    ),
+  );
+  return updated > 0;
+}
+
+export interface UnfinishedAtStart {
+  requeued: number[];
+  /** Failed now: cut short by server stops MAX_ATTEMPTS times, or their upload is gone. */
+  abandoned: number[];
+  /** The upload files of the samples that wait for their job. */
+  waitingUploads: Set<string>;
+}
+
+/**
+ * At start no job runs, so a sample marked running was cut short by a stop of the server: it goes back to the
+ * queue (from the start of its file), unless that happened MAX_ATTEMPTS times or its upload is missing.
+ */
+export async function requeueInterrupted(uploadExists: (fileName: string) => boolean): Promise<UnfinishedAtStart> {
+  const { models, write } = db();
+  return write(async (transaction) => {
+    const unfinished = await models.Sample.findAll({ where: { state: ['queued', 'running'] }, transaction });
+    const result: UnfinishedAtStart = { requeued: [], abandoned: [], waitingUploads: new Set() };
+    for (const sample of unfinished) {
+      const uploadKept = sample.uploadFile !== null && uploadExists(sample.uploadFile);
+      const triesLeft = sample.state === 'queued' || sample.attempts < MAX_ATTEMPTS;
+      if (!uploadKept || !triesLeft) {
+        const why = uploadKept
+          ? `processing was cut short by a stop of the server ${sample.attempts} times`
+          : 'the uploaded file is no longer in storage';
+        const error = sampleError({ code: 'interrupted', message: `Not processed: ${why}.`, line: null });
+        await sample.update(
+          { state: 'failed', error, finishedAt: new Date(), uploadFile: null },
+          { transaction },
+        );
+        result.abandoned.push(sample.id);
+        continue;
+      }
+      if (sample.state === 'running') {
+        await sample.update({ state: 'queued', progress: null, startedAt: null }, { transaction });
+        result.requeued.push(sample.id);
+      }
+      result.waitingUploads.add(sample.uploadFile!);
+    }
+    return result;
+  });
+}

@@ -1,0 +1,37 @@
+// Limits of uploads and processing jobs, read from the environment (README "Configuration").
+import { availableParallelism } from 'node:os';
+import { z } from 'zod';
+import { checkedEnvironment, type Environment } from '@/lib/config';
+
+export interface SampleConfig {
+  /** Largest upload accepted, bytes (SPLITFIELD_UPLOAD_MAX_BYTES, default 2 GiB). */
+  uploadMaxBytes: number;
+  /** Jobs that run at once (SPLITFIELD_MAX_JOBS, default 1). */
+  maxJobs: number;
+  /** Worker threads of one job's pipeline (SPLITFIELD_JOB_THREADS, default cores − 1, at least 1). */
+  jobThreads: number;
+}
+
+const wholeNumber = (minimum: number) =>
+  z
+    .string()
+    .trim()
+    .regex(/^\d+$/, 'must be a whole number')
+    .transform(Number)
+    .refine((value) => Number.isSafeInteger(value) && value >= minimum, `must be at least ${minimum}`);
+
+const environmentSchema = z.object({
+  SPLITFIELD_UPLOAD_MAX_BYTES: wholeNumber(1).optional(),
+  SPLITFIELD_MAX_JOBS: wholeNumber(1).optional(),
+  SPLITFIELD_JOB_THREADS: wholeNumber(1).optional(),
+});
+
+export function readSampleConfig(env: Environment = process.env): SampleConfig {
+  const values = checkedEnvironment(environmentSchema, env);
+  return {
+    uploadMaxBytes: values.SPLITFIELD_UPLOAD_MAX_BYTES ?? 2 * 1024 ** 3,
+    maxJobs: values.SPLITFIELD_MAX_JOBS ?? 1,
+    // One core stays with the web server, so pages and API calls answer while a job runs.
+    jobThreads: values.SPLITFIELD_JOB_THREADS ?? Math.max(1, availableParallelism() - 1),
+  };
+}

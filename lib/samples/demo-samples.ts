@@ -1,0 +1,79 @@
+// The demo study's two samples, made on the very first start: generated quark-like and gluon-like jet files
+// (lib/physics/emission-generator.ts) put in the queue like uploads, so the first start shows real maps.
+import { createHash } from 'node:crypto';
+import { createReadStream } from 'node:fs';
+import { mkdir, rm } from 'node:fs/promises';
+import type { Transaction } from 'sequelize';
+import { writeGeneratedSampleFile } from '@/lib/ingest/generated-sample-file';
+import { demoSampleSpec } from '@/lib/physics/emission-generator';
+import type { Parton } from '@/lib/physics/lo-density';
+import type { Models } from '@/models';
+import { settingsInputSchema, settingsKey } from './settings';
+import { newUploadFileName, sampleStorage, uploadPath } from './storage';
+
+export const DEMO_SAMPLE_JETS = 3000;
+const DEMO_SAMPLES: Array<{ parton: Parton; seed: number }> = [
+  { parton: 'quark', seed: 4101 },
+  { parton: 'gluon', seed: 4102 },
+];
+
+async function digest(file: string): Promise<{ size: number; sha256: string }> {
+  const hash = createHash('sha256');
+  let size = 0;
+  for await (const chunk of createReadStream(file) as AsyncIterable<Buffer>) {
+    hash.update(chunk);
+    size += chunk.length;
+  }
+  return { size, sha256: hash.digest('hex') };
+}
+
+/**
+ * Writes the demo sample files into storage/uploads/ and queues them in the demo study, within the seed's
+ * transaction. Returns a function that removes the files again, for when that transaction fails.
+ */
+export async function seedDemoSamples(
+  models: Models,
+  transaction: Transaction,
+  where: { storageDir: string; studyId: number; uploaderId: number },
+): Promise<() => Promise<void>> {
+  const storage = sampleStorage(where.storageDir);
+  await mkdir(storage.uploadsDir, { recursive: true });
+  const written: string[] = [];
+  const removeFiles = async () => {
+    await Promise.all(written.map((file) => rm(file, { force: true })));
+  };
+  try {
+    for (const { parton, seed } of DEMO_SAMPLES) {
+      const spec = demoSampleSpec(parton);
+      const storedName = newUploadFileName();
+      const file = uploadPath(storage, storedName);
+      written.push(file);
+      await writeGeneratedSampleFile(file, spec, DEMO_SAMPLE_JETS, seed);
+      const { size, sha256 } = await digest(file);
+      // The generator's jets have radius R: the jet definition and SoftDrop's R0 follow it.
+      const settings = settingsInputSchema.parse({ jet: { R: spec.settings.R } });
+      await models.Sample.create(
+        {
+          studyId: where.studyId,
+          uploadedById: where.uploaderId,
+          name: spec.name,
+          label: spec.label,
+          description: spec.description,
+          tags: spec.tags,
+          state: 'queued',
+          settings,
+          settingsKey: settingsKey(settings),
+          fileName: `${spec.label}.jsonl`,
+          fileSize: size,
+          fileHash: sha256,
+          uploadFile: storedName,
+        },
+        { transaction },
+      );
+    }
+  } catch (error) {
+    await removeFiles();
+    throw error;
+  }
+  return removeFiles;
+}

@@ -1,0 +1,124 @@
+// Receives a multipart/form-data upload inside a route handler with multer: the Web request's body becomes a Node
+// stream, the one file streams to disk (HashingDiskStorage), text fields are collected. Whatever goes wrong, the
+// partial file is removed before the error reaches the caller.
+import { Readable } from 'node:stream';
+import type { ReadableStream as NodeWebReadableStream } from 'node:stream/web';
+import multer from 'multer';
+import { ApiError, badRequest } from '@/lib/api-errors';
+import { sizeText } from '@/lib/ingest/lines';
+import { HashingDiskStorage, StorageWriteError, type StoredUploadInfo } from './hashing-storage';
+
+export interface ReceivedFile extends StoredUploadInfo {
+  /** The name the client gave the file. */
+  originalName: string;
+}
+
+export interface ReceivedUpload {
+  /** Text fields as multer collected them. */
+  fields: Record<string, unknown>;
+  file: ReceivedFile | null;
+  elapsedMs: number;
+  /** Removes the stored file (when the upload is refused after it arrived). */
+  discard(): Promise<void>;
+}
+
+export interface ReceiveOptions {
+  uploadsDir: string;
+  maxBytes: number;
+  /** Name of the file field. */
+  fileField: string;
+  /**
+   * Called when the file part starts, with the fields sent before it: throw to refuse the upload before the
+   * file is stored (clients that send the fields first learn of a mistake without sending the whole file).
+   */
+  beforeFile(fieldsSoFar: Record<string, unknown>, originalName: string): Promise<void>;
+}
+
+const MAX_FIELD_BYTES = 1024 * 1024;
+const MAX_FIELDS = 20;
+
+/** multer reads a Node request: the body as a stream, and the headers. */
+function nodeRequest(request: Request): Readable & { headers: Record<string, string> } {
+  const body = Readable.fromWeb(request.body as NodeWebReadableStream<Uint8Array>);
+  const headers = Object.fromEntries(request.headers);
+  // busboy ignores a body announced by neither header (a streamed fetch body in some clients).
+  if (!headers['content-length'] && !headers['transfer-encoding']) headers['transfer-encoding'] = 'chunked';
+  return Object.assign(body, { headers });
+}
+
+/** An error of multer, busboy, the connection or the disk as the API answers it. */
+function uploadError(error: unknown, options: ReceiveOptions): ApiError {
+  if (error instanceof ApiError) return error;
+  if (error instanceof multer.MulterError) {
+    switch (error.code) {
+      case 'LIMIT_FILE_SIZE':
+        return new ApiError(
+          413,
+          'too_large',
+          `The file is larger than the upload limit of ${sizeText(options.maxBytes)} (SPLITFIELD_UPLOAD_MAX_BYTES); nothing was stored.`,
+          [{ path: options.fileField, message: `larger than ${options.maxBytes} bytes` }],
+        );
+      case 'LIMIT_UNEXPECTED_FILE':
+      case 'LIMIT_FILE_COUNT':
+        return badRequest(`Send exactly one file, in the "${options.fileField}" field (got one in "${error.field}").`, [
+          { path: error.field ?? options.fileField, message: 'unexpected file' },
+        ]);
+      case 'LIMIT_FIELD_VALUE':
+        return badRequest(`The field "${error.field}" is longer than ${sizeText(MAX_FIELD_BYTES)}.`, [
+          { path: error.field ?? '(body)', message: 'too long' },
+        ]);
+      default:
+        return badRequest(`The upload form is not acceptable: ${error.message}.`);
+    }
+  }
+  if (error instanceof StorageWriteError) {
+    const full = /ENOSPC/.test(error.message);
+    console.error('[upload] cannot store an upload', error);
+    return new ApiError(
+      full ? 507 : 500,
+      full ? 'storage_full' : 'internal',
+      full ? "The server's storage is full; nothing was stored." : 'The upload could not be stored; nothing was kept.',
+    );
+  }
+  const message = error instanceof Error ? error.message : String(error);
+  if (/aborted|closed|terminated|ECONNRESET|Unexpected end of form/i.test(message)) {
+    return new ApiError(400, 'upload_interrupted', 'The upload stopped before the end of the file; nothing was stored.');
+  }
+  return badRequest(`The multipart/form-data body is malformed: ${message}.`);
+}
+
+/** Streams the request's multipart body: the file to `uploadsDir`, the fields into memory (small, limited). */
+export async function receiveUpload(request: Request, options: ReceiveOptions): Promise<ReceivedUpload> {
+  if (!/^multipart\/form-data\b/i.test(request.headers.get('content-type') ?? '') || !request.body) {
+    throw badRequest(`Send the upload as multipart/form-data, with the file in the "${options.fileField}" field.`);
+  }
+  const storage = new HashingDiskStorage(options.uploadsDir);
+  const middleware = multer({
+    storage,
+    // Keep the name as sent, so that a name with path separators is refused rather than silently shortened.
+    preservePath: true,
+    limits: { fileSize: options.maxBytes, files: 1, fields: MAX_FIELDS, fieldSize: MAX_FIELD_BYTES },
+    fileFilter(req, file, accept) {
+      options.beforeFile({ ...req.body }, file.originalname).then(() => accept(null, true), accept);
+    },
+  }).single(options.fileField);
+  const req = nodeRequest(request) as unknown as Parameters<typeof middleware>[0];
+  const started = performance.now();
+  try {
+    await new Promise<void>((resolve, reject) => {
+      middleware(req, {} as Parameters<typeof middleware>[1], (error?: unknown) => (error ? reject(error) : resolve()));
+    });
+  } catch (error) {
+    await storage.removeAll();
+    throw uploadError(error, options);
+  }
+  const stored = req.file as (Express.Multer.File & StoredUploadInfo) | undefined;
+  return {
+    fields: { ...req.body },
+    file: stored
+      ? { originalName: stored.originalname, storedName: stored.storedName, path: stored.path, size: stored.size, sha256: stored.sha256 }
+      : null,
+    elapsedMs: performance.now() - started,
+    discard: () => storage.removeAll(),
+  };
+}

@@ -1,0 +1,107 @@
+// POST /api/samples/upload: receive the file (streamed to storage/uploads/, hashed on the way), check the fields
+// and the caller's role in the study, then either offer an existing sample of the same file and settings or
+// queue a new one for processing. A refused upload leaves neither a row nor a file.
+import { mkdir } from 'node:fs/promises';
+import { Op, type Transaction } from 'sequelize';
+import { badRequest } from '@/lib/api-errors';
+import { checkedInput } from '@/lib/api-validation';
+import { studyAccess } from '@/lib/authz';
+import { db } from '@/lib/db';
+import { jobRunner } from '@/lib/jobs/runner';
+import type { User } from '@/models/user';
+import { sampleIncludes, visibleStudyIds, type LoadedSample } from './access';
+import { readSampleConfig } from './config';
+import { fileNameProblem } from './file-name';
+import { receiveUpload, type ReceivedFile } from './multipart-upload';
+import { settingsKey } from './settings';
+import { sampleStorage } from './storage';
+import { uploadFieldsSchema, type UploadFields } from './upload-fields';
+import { sampleSummary } from './views';
+import type { SampleSummary } from './shapes';
+
+export const UPLOAD_FILE_FIELD = 'file';
+
+export type UploadOutcome = { queued: SampleSummary } | { duplicateOf: SampleSummary };
+
+function checkFileName(name: string): void {
+  const problem = fileNameProblem(name);
+  if (problem) throw badRequest(`Invalid upload: ${problem}.`, [{ path: UPLOAD_FILE_FIELD, message: problem }]);
+}
+
+/** The fields sent before the file, checked as far as they go, and the study role when the study is known. */
+async function checkEarly(user: User, fieldsSoFar: Record<string, unknown>, fileName: string): Promise<void> {
+  checkFileName(fileName);
+  const known = checkedInput(uploadFieldsSchema.partial(), fieldsSoFar, 'upload');
+  if (known.studyId !== undefined) await studyAccess(user, known.studyId, 'editor');
+}
+
+/** A sample of the same bytes and settings that the user can see and that is not failed or cancelled. */
+async function findDuplicate(user: User, file: ReceivedFile, fields: UploadFields, transaction: Transaction) {
+  const visible = await visibleStudyIds(user, transaction);
+  const candidates = (await db().models.Sample.findAll({
+    where: {
+      fileHash: file.sha256,
+      settingsKey: settingsKey(fields.settings),
+      state: { [Op.in]: ['queued', 'running', 'done'] },
+      ...(visible === 'all' ? {} : { studyId: { [Op.in]: visible } }),
+    },
+    include: sampleIncludes(),
+    order: [['id', 'DESC']],
+    transaction,
+  })) as LoadedSample[];
+  return candidates.find((sample) => sample.studyId === fields.studyId) ?? candidates[0] ?? null;
+}
+
+export async function acceptUpload(user: User, request: Request): Promise<UploadOutcome> {
+  const config = readSampleConfig();
+  const storage = sampleStorage();
+  await mkdir(storage.uploadsDir, { recursive: true });
+  const upload = await receiveUpload(request, {
+    uploadsDir: storage.uploadsDir,
+    maxBytes: config.uploadMaxBytes,
+    fileField: UPLOAD_FILE_FIELD,
+    beforeFile: (fieldsSoFar, fileName) => checkEarly(user, fieldsSoFar, fileName),
+  });
+  let kept = false;
+  try {
+    const { file } = upload;
+    if (!file) {
+      throw badRequest(`Invalid upload: the "${UPLOAD_FILE_FIELD}" field with the file is missing.`, [
+        { path: UPLOAD_FILE_FIELD, message: 'required' },
+      ]);
+    }
+    const fields = checkedInput(uploadFieldsSchema, upload.fields, 'upload');
+    const { study } = await studyAccess(user, fields.studyId, 'editor');
+    const { models, write } = db();
+    const outcome = await write(async (transaction) => {
+      const duplicate = fields.force ? null : await findDuplicate(user, file, fields, transaction);
+      if (duplicate) return { duplicateOf: sampleSummary(duplicate) };
+      const sample = await models.Sample.create(
+        {
+          studyId: study.id,
+          uploadedById: user.id,
+          name: fields.name,
+          label: fields.label,
+          description: fields.description,
+          tags: fields.tags,
+          state: 'queued',
+          settings: fields.settings,
+          settingsKey: settingsKey(fields.settings),
+          fileName: file.originalName,
+          fileSize: file.size,
+          fileHash: file.sha256,
+          uploadMs: Math.round(upload.elapsedMs),
+          uploadFile: file.storedName,
+        },
+        { transaction },
+      );
+      const loaded = (await models.Sample.findByPk(sample.id, { include: sampleIncludes(), transaction })) as LoadedSample;
+      return { queued: sampleSummary(loaded) };
+    });
+    kept = 'queued' in outcome;
+    if (kept) (await jobRunner()).wake();
+    return outcome;
+  } finally {
+    if (!kept) await upload.discard();
+  }
+}
