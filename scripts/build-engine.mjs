@@ -1,19 +1,28 @@
-// Bundles the engine's Node entry points (command line, worker threads) into dist/engine/ with esbuild,
-// so that the CLI, the benchmark and the server's worker threads run plain JavaScript.
+// Bundles the engine's Node entry points (command line, worker threads, the server's processing job) into
+// dist/engine/ with esbuild, so that the CLI, the benchmark and the server's worker threads run plain JavaScript.
+//   node scripts/build-engine.mjs [--outdir DIR]   (tests build into their own directory, so that parallel
+//                                                   test files never overwrite a bundle another one is running)
 import { build } from 'esbuild';
 import { existsSync } from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { parseArgs } from 'node:util';
 
-const entries = ['lib/ingest/cli.ts', 'lib/ingest/worker.ts'].filter((f) => existsSync(f));
+const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
+const { values } = parseArgs({ options: { outdir: { type: 'string', default: path.join(root, 'dist/engine') } } });
+const entries = ['lib/ingest/cli.ts', 'lib/ingest/worker.ts', 'lib/jobs/job-worker.ts'].map((f) => path.join(root, f)).filter((f) => existsSync(f));
 await build({
   entryPoints: entries,
-  outdir: 'dist/engine',
+  outdir: values.outdir,
+  // Flat: dist/engine/cli.js, worker.js, job-worker.js (the job finds worker.js beside itself).
+  entryNames: '[name]',
   bundle: true,
   platform: 'node',
   target: 'node20',
   format: 'cjs',
   sourcemap: true,
-  // zod is bundled (its own package start-up costs ~20 ms more per run); piscina stays a package so that its
-  // worker-thread entry resolves as installed.
+  // zod and cli-progress are bundled (zod's own package start-up costs ~20 ms more per run); piscina stays a
+  // package so that its worker-thread entry resolves as installed.
   external: ['piscina'],
   logLevel: 'warning',
 });

@@ -130,6 +130,12 @@ export async function runPipeline(opts: PipelineOptions): Promise<PipelineSummar
   const ownPool = threads > 1 && !opts.pool;
   const inFlight: InFlight[] = [];
   let poolError: unknown = null;
+  let failPool: (e: unknown) => void = () => {};
+  let onPoolError: ((e: unknown) => void) | null = null;
+  const poolFailed = new Promise<never>((_, reject) => {
+    failPool = reject;
+  });
+  poolFailed.catch(() => {});
   try {
     checkAbort();
     await sink.begin(reader.header, settings);
@@ -177,10 +183,14 @@ export async function runPipeline(opts: PipelineOptions): Promise<PipelineSummar
           atomics: 'disabled',
         });
       const p = pool;
-      // Piscina reports stray worker messages as 'error' events on the pool: keep the first, never crash.
-      p.on('error', (e: unknown) => {
-        poolError ??= e;
-      });
+      // Piscina reports a worker that cannot start (or a stray message) as an 'error' event on the pool, and
+      // then leaves later tasks pending for ever: fail the run at once instead of waiting.
+      onPoolError = (e: unknown) => {
+        if (poolError) return;
+        poolError = new Error(`a worker thread failed: ${e instanceof Error ? e.message : String(e)}`, { cause: e });
+        failPool(poolError);
+      };
+      p.on('error', onPoolError);
       const maxInFlight = 2 * threads;
       const raw = reader.raw;
       const submit = (task: WorkerTask, records: ParticleRecord[] | null): InFlight => {
@@ -202,8 +212,7 @@ export async function runPipeline(opts: PipelineOptions): Promise<PipelineSummar
       // Results are interpreted strictly in input order (skipped-record callbacks included).
       const flushHead = async () => {
         const head = inFlight.shift()!;
-        const w = await head.promise;
-        if (poolError) throw poolError;
+        const w = await Promise.race([head.promise, poolFailed]);
         checkAbort();
         const n = w.perRecord.length >> 2;
         let metas: RecordMeta[];
@@ -264,7 +273,18 @@ export async function runPipeline(opts: PipelineOptions): Promise<PipelineSummar
     reader.close();
     // Cancellation is checked between batches: running tasks are short and are let finish (terminating a
     // worker in the middle of a task is what piscina would do with a signal, racing with its reply).
-    if (inFlight.length) await Promise.allSettled(inFlight.map((i) => i.promise));
+    if (inFlight.length && !poolError) {
+      let timer: NodeJS.Timeout | undefined;
+      const cap = new Promise<void>((resolve) => {
+        timer = setTimeout(resolve, 10_000); // never wait long for a task that will not come back
+      });
+      await Promise.race([Promise.allSettled(inFlight.map((i) => i.promise)), poolFailed.catch(() => {}), cap]);
+      clearTimeout(timer);
+    }
+    if (pool && onPoolError) {
+      pool.off('error', onPoolError);
+      if (ownPool) pool.on('error', () => {}); // late reports from a pool being destroyed must not crash the process
+    }
     if (pool && ownPool) await pool.destroy();
   }
 }

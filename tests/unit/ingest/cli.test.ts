@@ -1,19 +1,25 @@
 // The command line end to end: `node dist/engine/cli.js` (the bundle `npm run decluster` runs) on small files.
 import { execFileSync, spawnSync } from 'node:child_process';
-import { existsSync, readdirSync, readFileSync } from 'node:fs';
+import { existsSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { generateEvents } from '@/lib/physics/test-events';
 import { HEADER, gz, hepmc3Text, jsonl, tempDir, toRows } from './helpers';
 
 const ROOT = path.resolve(__dirname, '../../..');
-const CLI = path.join(ROOT, 'dist/engine/cli.js');
 const t = tempDir('sf-cli-');
+// `npm run decluster` runs dist/engine/cli.js; this test builds the same bundle into its own directory inside the
+// project (so that the bundle finds the installed piscina; parallel test files never share a bundle being rebuilt).
+const ENGINE = path.join(ROOT, 'tests/artifacts', `engine-cli-${process.pid}`);
+const CLI = path.join(ENGINE, 'cli.js');
 
 beforeAll(() => {
-  execFileSync('node', ['scripts/build-engine.mjs'], { cwd: ROOT, stdio: 'pipe' });
+  execFileSync('node', ['scripts/build-engine.mjs', '--outdir', ENGINE], { cwd: ROOT, stdio: 'pipe' });
 });
-afterAll(() => t.cleanup());
+afterAll(() => {
+  t.cleanup();
+  rmSync(ENGINE, { recursive: true, force: true });
+});
 
 function run(args: string[], input?: Buffer | string) {
   const r = spawnSync(process.execPath, [CLI, ...args], { cwd: t.dir, input, encoding: 'utf8', maxBuffer: 1 << 28 });

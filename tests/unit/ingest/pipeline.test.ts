@@ -2,6 +2,7 @@
 // order, the same export whatever the input layout (plain, gzip, one document, HepMC3), bad records with the
 // same message in every mode, skip-bad counts, progress, cancellation, and the export's shape.
 import { execFileSync } from 'node:child_process';
+import { rmSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { Writable } from 'node:stream';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -17,13 +18,19 @@ import type { ReaderOptions } from '@/lib/ingest/types';
 import { HEADER, gz, hepmc3Text, jsonl, tempDir, toRows } from './helpers';
 
 const ROOT = path.resolve(__dirname, '../../..');
-const WORKER = path.join(ROOT, 'dist/engine/worker.js');
 const t = tempDir('sf-pipe-');
+// The engine bundle of this test file, in its own directory inside the project (so that the bundle finds the
+// installed piscina; parallel test files never share a bundle that is being rebuilt).
+const ENGINE = path.join(ROOT, 'tests/artifacts', `engine-pipeline-${process.pid}`);
+const WORKER = path.join(ENGINE, 'worker.js');
 
 beforeAll(() => {
-  execFileSync('node', ['scripts/build-engine.mjs'], { cwd: ROOT, stdio: 'pipe' });
+  execFileSync('node', ['scripts/build-engine.mjs', '--outdir', ENGINE], { cwd: ROOT, stdio: 'pipe' });
 });
-afterAll(() => t.cleanup());
+afterAll(() => {
+  t.cleanup();
+  rmSync(ENGINE, { recursive: true, force: true });
+});
 
 const SETTINGS: PipelineSettings = {
   jet: { algorithm: 'antikt', R: 0.4, ptMin: 20, yMax: 2.5, maxJets: null },
@@ -213,5 +220,14 @@ describe('pipeline', () => {
       await expect(run).rejects.toMatchObject({ name: 'AbortError' });
       expect(aborted).toMatchObject({ name: 'AbortError' });
     }
+  });
+
+  it('a worker thread that cannot start fails the run at once (piscina would leave the tasks pending)', async () => {
+    const broken = path.join(t.dir, 'broken-worker.js');
+    writeFileSync(broken, "require('a-package-that-is-not-installed'); module.exports = () => null;\n");
+    const f = t.file('w.jsonl', jsonl(HEADER, eventRecords));
+    const t0 = performance.now();
+    await expect(exportOf(f, { threads: 2, workerFile: broken, batchChars: 3000 })).rejects.toThrow(/Cannot find module 'a-package-that-is-not-installed'/);
+    expect(performance.now() - t0).toBeLessThan(20_000);
   });
 });
