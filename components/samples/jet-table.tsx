@@ -3,13 +3,13 @@
 import { useState } from 'react';
 import useSWR from 'swr';
 import type { ApiError } from '@/lib/fetcher';
+import type { JetRowView as JetRow } from '@/lib/samples/shapes';
 import { Button } from '../button';
 import { LoadingBlock } from '../loading-block';
 import { Notice } from '../notice';
 import { Panel } from '../panel';
 import { formatCount, formatValue } from './numbers';
-import type { JetRowView as JetRow } from '@/lib/samples/shapes';
-import { cellClass, DataTable, headCellClass, numberCellClass } from './table';
+import { cellClass, DataTable, nextSort, numberCellClass, SortHeader, type SortState } from './table';
 
 const PAGE_SIZE = 25;
 
@@ -18,28 +18,30 @@ interface JetPage {
   jets: JetRow[];
 }
 
-/** Numeric columns after the record: heading, and how to read the value off a jet. */
-const COLUMNS: { heading: string; title: string; value: (jet: JetRow) => string }[] = [
-  { heading: 'pt', title: 'Transverse momentum (GeV)', value: (jet) => formatValue(jet.pt) },
-  { heading: 'y', title: 'Rapidity', value: (jet) => formatValue(jet.y) },
-  { heading: 'φ', title: 'Azimuth, 0 to 2π', value: (jet) => formatValue(jet.phi) },
-  { heading: 'm', title: 'Mass (GeV)', value: (jet) => formatValue(jet.m) },
-  { heading: 'n', title: 'Constituents', value: (jet) => formatCount(jet.n) },
-  { heading: 'm_g', title: 'SoftDrop groomed mass (GeV)', value: (jet) => formatValue(jet.mg) },
-  { heading: 'z_g', title: 'SoftDrop momentum fraction', value: (jet) => formatValue(jet.zg) },
-  { heading: 'R_g', title: 'SoftDrop opening angle', value: (jet) => formatValue(jet.Rg) },
-  { heading: 'mult', title: 'Primary splittings above the multiplicity kt cut', value: (jet) => formatCount(jet.mult) },
+type JetSortKey = 'row' | 'pt' | 'y' | 'phi' | 'm' | 'n' | 'mg' | 'zg' | 'Rg' | 'mult';
+
+/** Numeric columns after the record: heading, tooltip, and how to write the value of a jet. */
+const COLUMNS: { key: Exclude<JetSortKey, 'row'>; heading: string; title: string; value: (jet: JetRow) => string }[] = [
+  { key: 'pt', heading: 'pt', title: 'Transverse momentum (GeV)', value: (jet) => formatValue(jet.pt) },
+  { key: 'y', heading: 'y', title: 'Rapidity', value: (jet) => formatValue(jet.y) },
+  { key: 'phi', heading: 'φ', title: 'Azimuth, 0 to 2π', value: (jet) => formatValue(jet.phi) },
+  { key: 'm', heading: 'm', title: 'Mass (GeV)', value: (jet) => formatValue(jet.m) },
+  { key: 'n', heading: 'n', title: 'Constituents', value: (jet) => formatCount(jet.n) },
+  { key: 'mg', heading: 'm_g', title: 'SoftDrop groomed mass (GeV)', value: (jet) => formatValue(jet.mg) },
+  { key: 'zg', heading: 'z_g', title: 'SoftDrop momentum fraction', value: (jet) => formatValue(jet.zg) },
+  { key: 'Rg', heading: 'R_g', title: 'SoftDrop opening angle', value: (jet) => formatValue(jet.Rg) },
+  { key: 'mult', heading: 'mult', title: 'Primary splittings above the multiplicity kt cut', value: (jet) => formatCount(jet.mult) },
 ];
 
 function JetRows({ jets }: { jets: JetRow[] }) {
   return jets.map((jet) => (
     <tr key={jet.row}>
       <td className={`${cellClass} whitespace-nowrap font-mono text-xs text-ink-soft`}>
-        {String(jet.record)}
+        {jet.record}
         {jet.jet > 0 && <span className="text-ink-faint"> · jet {jet.jet + 1}</span>}
       </td>
       {COLUMNS.map((column) => (
-        <td key={column.heading} className={numberCellClass}>
+        <td key={column.key} className={numberCellClass}>
           {column.value(jet)}
         </td>
       ))}
@@ -47,13 +49,23 @@ function JetRows({ jets }: { jets: JetRow[] }) {
   ));
 }
 
-/** The sample's kept jets, a page at a time. A dash marks a jet where no splitting passed SoftDrop. */
+/** The sample's kept jets a page at a time, in file order or sorted by a column (largest first). */
 export function JetTable({ sampleId }: { sampleId: number }) {
   const [offset, setOffset] = useState(0);
-  const { data, error } = useSWR<JetPage, ApiError>(`/api/samples/${sampleId}/jets?offset=${offset}&limit=${PAGE_SIZE}`, {
-    keepPreviousData: true,
-  });
+  const [sort, setSort] = useState<SortState<JetSortKey>>({ key: 'row', order: 'asc' });
+  const query = new URLSearchParams({ offset: String(offset), limit: String(PAGE_SIZE), sort: sort.key, order: sort.order });
+  const { data, error } = useSWR<JetPage, ApiError>(`/api/samples/${sampleId}/jets?${query}`, { keepPreviousData: true });
   const shownTo = data ? Math.min(offset + data.jets.length, data.total) : 0;
+
+  function sortBy(key: JetSortKey) {
+    // File order starts from the top; a column starts with its largest values.
+    setSort((current) => nextSort(current, key, key === 'row' ? 'asc' : 'desc'));
+    setOffset(0);
+  }
+
+  const header = (key: JetSortKey, heading: string, title: string, align: 'left' | 'right') => (
+    <SortHeader key={key} label={heading} title={title} align={align} className="normal-case" active={sort.key === key} order={sort.order} onSort={() => sortBy(key)} />
+  );
   return (
     <Panel title="Jets" aside={data && `${formatCount(data.total)} kept`} lead="Values in GeV where they have a unit. A dash: no splitting passed SoftDrop.">
       {error && <Notice tone="error">{error.message}</Notice>}
@@ -64,14 +76,8 @@ export function JetTable({ sampleId }: { sampleId: number }) {
             label="Jets"
             head={
               <>
-                <th scope="col" className={headCellClass}>
-                  Record
-                </th>
-                {COLUMNS.map((column) => (
-                  <th key={column.heading} scope="col" title={column.title} className={`${headCellClass} text-right normal-case`}>
-                    {column.heading}
-                  </th>
-                ))}
+                {header('row', 'record', 'The record (and jet) in file order', 'left')}
+                {COLUMNS.map((column) => header(column.key, column.heading, column.title, 'right'))}
               </>
             }
           >

@@ -1,12 +1,11 @@
 import Link from 'next/link';
-import type { ReactNode } from 'react';
 import { formatDateTime } from '../format';
 import { PageHeader } from '../page-header';
 import type { SampleDetail } from '@/lib/samples/shapes';
 import { StateBadge } from './state-badge';
 
-/** The sample's name and state, where it belongs, who uploaded it and when; actions on the right. */
-export function SampleHeading({ sample, actions }: { sample: SampleDetail; actions?: ReactNode }) {
+/** The sample's name and state, where it belongs, who uploaded it and when. */
+export function SampleHeading({ sample }: { sample: SampleDetail }) {
   return (
     <PageHeader
       title={
@@ -34,7 +33,6 @@ export function SampleHeading({ sample, actions }: { sample: SampleDetail; actio
           {sample.description && <p className="max-w-2xl text-ink">{sample.description}</p>}
         </div>
       }
-      actions={actions}
     />
   );
 }

@@ -3,14 +3,8 @@ import { formatDate } from '../format';
 import { formatCount } from './numbers';
 import type { SampleSummary } from '@/lib/samples/shapes';
 import { StateBadge } from './state-badge';
-import { cellClass, DataTable, headCellClass, numberCellClass, SortHeader, type SortOrder } from './table';
-
-export type SampleSortKey = 'name' | 'date' | 'jets' | 'state';
-
-export interface SampleSort {
-  key: SampleSortKey;
-  order: SortOrder;
-}
+import type { SampleSort, SampleSortKey } from './sample-sort';
+import { cellClass, DataTable, headCellClass, numberCellClass, SortHeader } from './table';
 
 /** What a sample is called and where it belongs, as the first cell of a row. */
 function SampleNameCell({ sample }: { sample: SampleSummary }) {

@@ -8,6 +8,7 @@ import { EmptyState } from '../empty-state';
 import { useMe } from '../hooks/use-me';
 import { LoadingBlock } from '../loading-block';
 import { Notice } from '../notice';
+import { Panel } from '../panel';
 import { PlanePanel } from '../plane/plane-panel';
 import { studyPermissions } from '../study/permissions';
 import { ExportLinks } from './export-links';
@@ -53,10 +54,7 @@ export function SampleView({ sampleId }: { sampleId: string }) {
 
   return (
     <>
-      <SampleHeading
-        sample={sample}
-        actions={canEdit && !isProcessing(sample) && <ConfirmButton label="Delete sample" question="Delete it for everyone?" confirmLabel="Delete" onConfirm={remove} />}
-      />
+      <SampleHeading sample={sample} />
       <div className="space-y-6">
         {isProcessing(sample) && <ProcessingPanel sample={sample} onCancel={canEdit ? cancel : undefined} />}
         {sample.state === 'failed' && <FailurePanel failure={sample.error} />}
@@ -71,6 +69,11 @@ export function SampleView({ sampleId }: { sampleId: string }) {
               <ExportLinks sampleId={sample.id} fullTree={sample.provenance.tree === 'full'} />
             </div>
           </>
+        )}
+        {canEdit && !isProcessing(sample) && (
+          <Panel title="Delete sample" lead="Removes the sample, its jets and its plane for every member of the study." danger>
+            <ConfirmButton label="Delete sample" question="Delete it for everyone?" confirmLabel="Delete" onConfirm={remove} />
+          </Panel>
         )}
       </div>
     </>

@@ -4,22 +4,21 @@ import Link from 'next/link';
 import { useState } from 'react';
 import useSWR from 'swr';
 import type { ApiError } from '@/lib/fetcher';
+import type { SampleSummary } from '@/lib/samples/shapes';
 import { Button, buttonClass } from '../button';
 import { EmptyState } from '../empty-state';
 import { LoadingBlock } from '../loading-block';
 import { Notice } from '../notice';
 import { PageHeader } from '../page-header';
 import { NO_FILTER, SampleFilters, type SampleFilter } from './sample-filters';
-import { SampleTable, type SampleSort, type SampleSortKey } from './sample-table';
-import type { SampleSummary } from '@/lib/samples/shapes';
-import type { SortOrder } from './table';
+import { FIRST_ORDER, sortedSamples, sortQuery, type SampleSort, type SampleSortKey } from './sample-sort';
 import { isProcessing } from './sample-state';
+import { SampleTable } from './sample-table';
+import { nextSort } from './table';
 import { useStudies } from './use-studies';
 
 type SampleList = { samples: SampleSummary[] };
 
-/** A newly chosen column starts with the order people usually want: newest and largest first. */
-const FIRST_ORDER: Record<SampleSortKey, SortOrder> = { name: 'asc', date: 'desc', jets: 'desc', state: 'asc' };
 
 const uploadLink = (
   <Link href="/samples/new" className={buttonClass('primary')}>
@@ -28,7 +27,7 @@ const uploadLink = (
 );
 
 function listUrl(filter: SampleFilter, sort: SampleSort): string {
-  const query = new URLSearchParams({ sort: sort.key, order: sort.order });
+  const query = new URLSearchParams(sortQuery(sort));
   for (const [key, value] of Object.entries(filter)) if (value) query.set(key, value);
   return `/api/samples?${query}`;
 }
@@ -42,7 +41,8 @@ function distinct(values: (string | null)[]): string[] {
 export function SamplesView({ initialStudyId = '' }: { initialStudyId?: string }) {
   const [filter, setFilter] = useState<SampleFilter>({ ...NO_FILTER, studyId: initialStudyId });
   const [sort, setSort] = useState<SampleSort>({ key: 'date', order: 'desc' });
-  const { studies } = useStudies();
+  const { studies, editable } = useStudies();
+  const canUpload = !!editable && editable.length > 0;
   // The unfiltered list supplies the filters' choices; the filtered one is what the table shows.
   const { data: everything } = useSWR<SampleList, ApiError>('/api/samples');
   const { data, error } = useSWR<SampleList, ApiError>(listUrl(filter, sort), {
@@ -51,21 +51,21 @@ export function SamplesView({ initialStudyId = '' }: { initialStudyId?: string }
   });
 
   function sortBy(key: SampleSortKey) {
-    setSort((current) =>
-      current.key === key ? { key, order: current.order === 'asc' ? 'desc' : 'asc' } : { key, order: FIRST_ORDER[key] },
-    );
+    setSort((current) => nextSort(current, key, FIRST_ORDER[key]));
   }
 
   const filtered = Object.values(filter).some(Boolean);
   const none = everything?.samples.length === 0;
   return (
     <>
-      <PageHeader title="Samples" lead="Uploaded particle files of your studies, after processing." actions={!none && uploadLink} />
+      <PageHeader title="Samples" lead="Uploaded particle files of your studies, after processing." actions={!none && canUpload && uploadLink} />
       {error && <Notice tone="error">{error.message}</Notice>}
       {!data && !error && <LoadingBlock label="Loading samples…" />}
       {none && (
-        <EmptyState title="No samples yet" action={uploadLink}>
-          Upload a file of events or jets; each jet is declustered and its splittings fill the sample&apos;s emission plane.
+        <EmptyState title="No samples yet" action={canUpload && uploadLink}>
+          {canUpload
+            ? 'Upload a file of events or jets: each jet is declustered and its splittings fill the sample’s emission plane.'
+            : 'Samples appear here once an editor of one of your studies uploads one.'}
         </EmptyState>
       )}
       {data && !none && (
@@ -78,7 +78,7 @@ export function SamplesView({ initialStudyId = '' }: { initialStudyId?: string }
             tags={distinct(everything?.samples.flatMap((sample) => sample.tags) ?? [])}
           />
           {data.samples.length > 0 ? (
-            <SampleTable samples={data.samples} sort={sort} onSort={sortBy} />
+            <SampleTable samples={sortedSamples(data.samples, sort)} sort={sort} onSort={sortBy} />
           ) : (
             <EmptyState
               title="No sample matches these filters"

@@ -6,8 +6,8 @@ export function SettingsFields({ disabled }: { disabled?: boolean }) {
   return (
     <fieldset disabled={disabled} className="space-y-4">
       <p className="text-xs text-ink-soft">
-        Defaults are filled in. Files of whole events use everything; files of single jets skip jet finding and keep the
-        cuts, and R (for ln(R/Δ) and SoftDrop).
+        Defaults are filled in. For whole events every setting applies. For files of single jets the algorithm is not
+        used, and R sets ln(R/Δ) and SoftDrop&apos;s default R0.
       </p>
       <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
         <SelectField label="Jet algorithm" name="algorithm" defaultValue={DEFAULTS.jet.algorithm} hint="Finds the jets in events.">

@@ -27,21 +27,24 @@ interface SortHeaderProps {
   onSort: () => void;
   align?: 'left' | 'right';
   className?: string;
+  /** Tooltip: what the column holds. */
+  title?: string;
 }
 
 /** A column heading that sorts the table by its column; a second click reverses the order. */
-export function SortHeader({ label, active, order, onSort, align = 'left', className = '' }: SortHeaderProps) {
+export function SortHeader({ label, active, order, onSort, align = 'left', className = '', title }: SortHeaderProps) {
   const arrow = active ? (order === 'asc' ? '↑' : '↓') : '↕';
   return (
     <th
       scope="col"
+      title={title}
       aria-sort={active ? (order === 'asc' ? 'ascending' : 'descending') : 'none'}
       className={`${headCellClass} ${align === 'right' ? 'text-right' : ''} ${className}`}
     >
       <button
         type="button"
         onClick={onSort}
-        className={`inline-flex items-center gap-1 uppercase tracking-wider hover:text-ink ${active ? 'text-ink' : ''}`}
+        className={`inline-flex items-center gap-1 [letter-spacing:inherit] [text-transform:inherit] hover:text-ink ${active ? 'text-ink' : ''}`}
       >
         {label}
         <span aria-hidden className={active ? 'text-accent' : 'text-ink-faint'}>
@@ -50,4 +53,15 @@ export function SortHeader({ label, active, order, onSort, align = 'left', class
       </button>
     </th>
   );
+}
+
+export interface SortState<K extends string> {
+  key: K;
+  order: SortOrder;
+}
+
+/** A click on a column heading: the sorted column flips its order, another starts in its usual one. */
+export function nextSort<K extends string>(current: SortState<K>, key: K, firstOrder: SortOrder): SortState<K> {
+  if (current.key !== key) return { key, order: firstOrder };
+  return { key, order: current.order === 'asc' ? 'desc' : 'asc' };
 }

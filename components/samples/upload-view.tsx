@@ -99,7 +99,13 @@ export function UploadView({ studyId }: { studyId?: string }) {
         title="Upload a sample"
         lead="Splitfield finds the jets, re-clusters each with Cambridge/Aachen and records every splitting. The sample page follows the processing live."
       />
-      <form onSubmit={submit} aria-label="Upload a sample" className="space-y-6" noValidate>
+      <form
+        onSubmit={submit}
+        onChange={() => problems.length > 0 && setProblems([])}
+        aria-label="Upload a sample"
+        className="space-y-6"
+        noValidate
+      >
         <Panel title="File and description">
           <div className="space-y-4">
             <FileDrop file={file} onFile={chooseFile} disabled={busy} />
