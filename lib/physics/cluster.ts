@@ -130,8 +130,11 @@ export class ClusterWorkspace {
   gR2 = 0;
   gNOff = 0;
   gP = 1;
-  /** Tiles are at least R/tileRings wide (tuning knob; see TILE_RINGS). */
-  tileRings = TILE_RINGS;
+  gK = 1;
+  lbY2 = new Float64Array(16);
+  lbU2 = new Float64Array(16);
+  /** Tiles are at least R/tileRings wide; 0 = chosen from the particle density (see TILE_DENSE). */
+  tileRings = 0;
 
   /** Pair distances evaluated so far (a cost measure for tests; never reset by the engine). */
   ops = 0;
@@ -492,16 +495,18 @@ function clusterPlainCA(ws: ClusterWorkspace, track: boolean): void {
     sNND[a] = best;
   }
 
-  while (n > 1) {
-    let a = 0;
-    let dmin = sNND[0];
-    for (let i = 1; i < n; i++) {
-      const d = sNND[i];
-      if (d < dmin) {
-        dmin = d;
-        a = i;
-      }
+  // The smallest NN distance (first slot on ties, as FastJet's scan); later found during the update loop.
+  let imin = 0;
+  let dmin = sNND[0];
+  for (let i = 1; i < n; i++) {
+    const d = sNND[i];
+    if (d < dmin) {
+      dmin = d;
+      imin = i;
     }
+  }
+  while (n > 1) {
+    let a = imin;
     let b = sNN[a];
     if (a < b) {
       const t = a;
@@ -523,7 +528,11 @@ function clusterPlainCA(ws: ClusterWorkspace, track: boolean): void {
     sNode[a] = sNode[tail];
 
     // The new jet's NN is accumulated in locals (FastJet's loop updates it in place, to the same result).
+    // The next step's smallest distance is tracked on the way: slot i's entry is final after its iteration
+    // (only b's changes later), so the first-slot-on-ties rule of a separate scan is kept.
     let bBest = Infinity, bBi = -1;
+    imin = -1;
+    dmin = Infinity;
     ops += 2 * n;
     for (let i = 0; i < n; i++) {
       const nn = sNN[i];
@@ -571,9 +580,18 @@ function clusterPlainCA(ws: ClusterWorkspace, track: boolean): void {
         bBi = i;
       }
       if (sNN[i] === tail) sNN[i] = a;
+      const d = sNND[i];
+      if (d < dmin) {
+        dmin = d;
+        imin = i;
+      }
     }
     sNND[b] = bBest;
     sNN[b] = bBi;
+    if (bBest < dmin || (bBest === dmin && b < imin)) {
+      dmin = bBest;
+      imin = b;
+    }
   }
   ws.jets[0] = sNode[0];
   ws.nJets = 1;
@@ -583,8 +601,8 @@ function clusterPlainCA(ws: ClusterWorkspace, track: boolean): void {
 // ---------------------------------------------------------------------------------------------------------
 // Tiled NN strategy.
 //
-// Tiles of side ≥ R/K (K = TILE_RINGS, or less when R is large) in (y, φ), φ periodic: a jet's neighbours
-// within R lie at most K tiles away, in the (2K+1)² block around its tile. Three devices keep the work per
+// Tiles of side ≥ R/K (K = 1 or 2 from the particle density, see TILE_DENSE) in (y, φ), φ periodic: a jet's
+// neighbours within R lie at most K tiles away, in the (2K+1)² block around its tile. Three devices keep the work per
 // step proportional to the local density rather than to the block population:
 //  - NN searches visit the block's tiles ring by ring and skip a tile when the lower bound of the distance from
 //    the jet to the tile's rectangle is not below the best distance found so far;
@@ -595,8 +613,8 @@ function clusterPlainCA(ws: ClusterWorkspace, track: boolean): void {
 // The smallest diJ is kept in a tournament tree. Slots: the merged jet takes the lower slot (parent2), the
 // higher slot (parent1) dies, as in FastJet's tiled strategies.
 
-/** Tiles are at least R/TILE_RINGS wide; NN searches look TILE_RINGS tiles away. */
-const TILE_RINGS = 2;
+/** Particles per R² above which tiles of side R/2 (5×5 blocks) replace tiles of side R (3×3 blocks). */
+const TILE_DENSE = 2;
 /** Absolute margin (in y/φ units) that keeps tile distance bounds below the true distance despite rounding. */
 const BOUND_MARGIN = 1e-12;
 
@@ -677,10 +695,21 @@ function updateDiJ(ws: ClusterWorkspace, i: number): void {
   let mf = sMf[i];
   if (nn >= 0 && sMf[nn] < mf) mf = sMf[nn];
   diJ[i] = ws.sNND[i] * mf;
-  let t = (i + ws.gP) >> 1;
+  treeFix(tree, diJ, i, ws.gP);
+}
+
+/**
+ * Restores the tournament tree above leaf i after key[i] changed. Ties go to the left (lower slot). The walk
+ * stops where the winner is unchanged and is not i (nothing above can change then).
+ */
+function treeFix(tree: Int32Array, key: Float64Array, i: number, P: number): void {
+  let t = (i + P) >> 1;
   while (t >= 1) {
     const l = tree[2 * t], r = tree[2 * t + 1];
-    tree[t] = diJ[r] < diJ[l] ? r : l;
+    const w = key[r] < key[l] ? r : l;
+    const old = tree[t];
+    if (w === old && old !== i) return;
+    tree[t] = w;
     t >>= 1;
   }
 }
@@ -689,20 +718,17 @@ function updateDiJ(ws: ClusterWorkspace, i: number): void {
 function killSlot(ws: ClusterWorkspace, i: number): void {
   const diJ = ws.diJ, tree = ws.tree;
   diJ[i] = Infinity;
-  let t = (i + ws.gP) >> 1;
-  while (t >= 1) {
-    const l = tree[2 * t], r = tree[2 * t + 1];
-    tree[t] = diJ[r] < diJ[l] ? r : l;
-    t >>= 1;
-  }
+  treeFix(tree, diJ, i, ws.gP);
 }
 
-/** Nearest neighbour of slot i within R: block search, tiles skipped by their distance lower bound. */
-function findNN(ws: ClusterWorkspace, i: number): void {
-  const sEta = ws.sEta, sPhi = ws.sPhi, sNext = ws.sNext, tileHead = ws.tileHead;
-  const offY = ws.offY, offU = ws.offU, nOff = ws.gNOff;
-  const nY = ws.gNY, nPhi = ws.gNPhi, wY = ws.gWY, wPhi = ws.gWPhi;
-  const y = sEta[i], f = sPhi[i];
+/**
+ * Squared distance lower bounds from slot i to the rows (ws.lbY2[K+di]) and columns (ws.lbU2[K+dj]) of its
+ * block; rows outside the grid get ∞. Returns i's tile.
+ */
+function blockBounds(ws: ClusterWorkspace, i: number): number {
+  const K = ws.gK, nY = ws.gNY, nPhi = ws.gNPhi, wY = ws.gWY, wPhi = ws.gWPhi;
+  const lbY2 = ws.lbY2, lbU2 = ws.lbU2;
+  const y = ws.sEta[i], f = ws.sPhi[i];
   const t = ws.sTile[i];
   const iy = (t / nPhi) | 0;
   const iu = t - iy * nPhi;
@@ -710,36 +736,41 @@ function findNN(ws: ClusterWorkspace, i: number): void {
   const dyLo = y - yLo - BOUND_MARGIN, dyHi = yLo + wY - y - BOUND_MARGIN;
   const uLo = iu * wPhi;
   const duLo = f - uLo - BOUND_MARGIN, duHi = uLo + wPhi - f - BOUND_MARGIN;
+  lbY2[K] = 0;
+  lbU2[K] = 0;
+  for (let d = 1; d <= K; d++) {
+    let up = (d - 1) * wY + dyHi, dn = (d - 1) * wY + dyLo;
+    if (up < 0) up = 0;
+    if (dn < 0) dn = 0;
+    lbY2[K + d] = iy + d < nY ? up * up : Infinity;
+    lbY2[K - d] = iy - d >= 0 ? dn * dn : Infinity;
+    let r = (d - 1) * wPhi + duHi, l = (d - 1) * wPhi + duLo;
+    if (r < 0) r = 0;
+    if (l < 0) l = 0;
+    lbU2[K + d] = r * r;
+    lbU2[K - d] = l * l;
+  }
+  return t;
+}
+
+/** Nearest neighbour of slot i within R: block search, tiles skipped by their distance lower bound. */
+function findNN(ws: ClusterWorkspace, i: number): void {
+  const sEta = ws.sEta, sPhi = ws.sPhi, sNext = ws.sNext, tileHead = ws.tileHead;
+  const offY = ws.offY, offU = ws.offU, nOff = ws.gNOff, K = ws.gK, nPhi = ws.gNPhi;
+  const lbY2 = ws.lbY2, lbU2 = ws.lbU2;
+  const t = blockBounds(ws, i);
+  const iy = (t / nPhi) | 0;
+  const iu = t - iy * nPhi;
+  const y = sEta[i], f = sPhi[i];
   let best = ws.gR2, bi = -1;
   let ops = 0;
-  // Lower bound of the distance to any tile of ring r ≥ 1: (r−1)·(smallest tile side) + distance to own edge.
-  let edge = dyLo < dyHi ? dyLo : dyHi;
-  if (duLo < edge) edge = duLo;
-  if (duHi < edge) edge = duHi;
-  if (edge < 0) edge = 0;
-  const wMin = wY < wPhi ? wY : wPhi;
-  let nextRing = 1;
   for (let q = 0; q < nOff; q++) {
-    if (q === nextRing) {
-      // q = (2r−1)² is the first offset of ring r.
-      const r = (Math.sqrt(q) + 1) >> 1;
-      const rlb = (r - 1) * wMin + edge;
-      if (rlb * rlb >= best) break;
-      nextRing = (2 * r + 1) * (2 * r + 1);
-    }
-    const di = offY[q];
-    const row = iy + di;
-    if (row < 0 || row >= nY) continue;
-    const dj = offU[q];
-    let lbY = di > 0 ? (di - 1) * wY + dyHi : di < 0 ? (-di - 1) * wY + dyLo : 0;
-    let lbU = dj > 0 ? (dj - 1) * wPhi + duHi : dj < 0 ? (-dj - 1) * wPhi + duLo : 0;
-    if (lbY < 0) lbY = 0;
-    if (lbU < 0) lbU = 0;
-    if (lbY * lbY + lbU * lbU >= best) continue;
+    const di = offY[q], dj = offU[q];
+    if (lbY2[K + di] + lbU2[K + dj] >= best) continue;
     let col = iu + dj;
     if (col < 0) col += nPhi;
     else if (col >= nPhi) col -= nPhi;
-    for (let j = tileHead[row * nPhi + col]; j >= 0; j = sNext[j]) {
+    for (let j = tileHead[(iy + di) * nPhi + col]; j >= 0; j = sNext[j]) {
       if (j === i) continue;
       ops++;
       let dphi = Math.abs(f - sPhi[j]);
@@ -762,32 +793,22 @@ function findNN(ws: ClusterWorkspace, i: number): void {
  */
 function scanNewJet(ws: ClusterWorkspace, b: number): void {
   const sEta = ws.sEta, sPhi = ws.sPhi, sNND = ws.sNND, sNext = ws.sNext, tileHead = ws.tileHead, tileMax = ws.tileMax;
-  const offY = ws.offY, offU = ws.offU, nOff = ws.gNOff;
-  const nY = ws.gNY, nPhi = ws.gNPhi, wY = ws.gWY, wPhi = ws.gWPhi;
-  const y = sEta[b], f = sPhi[b];
-  const t = ws.sTile[b];
+  const offY = ws.offY, offU = ws.offU, nOff = ws.gNOff, K = ws.gK, nPhi = ws.gNPhi;
+  const lbY2 = ws.lbY2, lbU2 = ws.lbU2;
+  const t = blockBounds(ws, b);
   const iy = (t / nPhi) | 0;
   const iu = t - iy * nPhi;
-  const yLo = ws.gYMin + iy * wY;
-  const dyLo = y - yLo - BOUND_MARGIN, dyHi = yLo + wY - y - BOUND_MARGIN;
-  const uLo = iu * wPhi;
-  const duLo = f - uLo - BOUND_MARGIN, duHi = uLo + wPhi - f - BOUND_MARGIN;
+  const y = sEta[b], f = sPhi[b];
   let best = ws.gR2, bi = -1;
   let ops = 0;
   for (let q = 0; q < nOff; q++) {
-    const di = offY[q];
-    const row = iy + di;
-    if (row < 0 || row >= nY) continue;
-    const dj = offU[q];
+    const di = offY[q], dj = offU[q];
+    const lb2 = lbY2[K + di] + lbU2[K + dj];
+    if (lb2 === Infinity) continue;
     let col = iu + dj;
     if (col < 0) col += nPhi;
     else if (col >= nPhi) col -= nPhi;
-    const tt = row * nPhi + col;
-    let lbY = di > 0 ? (di - 1) * wY + dyHi : di < 0 ? (-di - 1) * wY + dyLo : 0;
-    let lbU = dj > 0 ? (dj - 1) * wPhi + duHi : dj < 0 ? (-dj - 1) * wPhi + duLo : 0;
-    if (lbY < 0) lbY = 0;
-    if (lbU < 0) lbU = 0;
-    const lb2 = lbY * lbY + lbU * lbU;
+    const tt = (iy + di) * nPhi + col;
     if (lb2 >= best && lb2 >= tileMax[tt]) continue;
     let mx = 0;
     for (let i = tileHead[tt]; i >= 0; i = sNext[i]) {
@@ -845,19 +866,21 @@ function clusterTiled(ws: ClusterWorkspace, R: number, R2: number, p: number, tr
   const n = ws.n;
   const { sEta, sPhi, sMf, sNND, sNN, sNode, diJ, tree, rap, phi, kt2, rHead, rNext, tmp } = ws;
 
-  // Geometry: K rings; nPhi ≥ 2K+1 so that the block's φ columns are distinct.
-  const side = R * (1 + 1e-6);
-  let K = ws.tileRings;
-  let nPhi = Math.floor((TWO_PI * K) / side);
-  while (K > 1 && nPhi < 2 * K + 1) {
-    K--;
-    nPhi = Math.floor((TWO_PI * K) / side);
-  }
   let yMin = Infinity, yMax = -Infinity;
   for (let i = 0; i < n; i++) {
     const y = rap[i];
     if (y < yMin) yMin = y;
     if (y > yMax) yMax = y;
+  }
+  // Geometry: tiles of side ≥ R/K, K rings; nPhi ≥ 2K+1 so that the block's φ columns are distinct.
+  // Measured: R-sized tiles (K = 1) are best for sparse events, R/2 (K = 2) once there are a few particles
+  // per R² on average.
+  const side = R * (1 + 1e-6);
+  let K = ws.tileRings > 0 ? ws.tileRings : (n * R * R) / ((yMax - yMin + R) * TWO_PI) > TILE_DENSE ? 2 : 1;
+  let nPhi = Math.floor((TWO_PI * K) / side);
+  while (K > 1 && nPhi < 2 * K + 1) {
+    K--;
+    nPhi = Math.floor((TWO_PI * K) / side);
   }
   let nY = Math.floor(((yMax - yMin) * K) / side);
   // Bound the tile count by the particle count (a far-out particle must not create a huge grid).
@@ -891,6 +914,7 @@ function clusterTiled(ws: ClusterWorkspace, R: number, R2: number, p: number, tr
     }
   }
   ws.gNOff = nOff;
+  ws.gK = K;
   let P = 1;
   while (P < n) P <<= 1;
   ws.gP = P;
@@ -1050,13 +1074,7 @@ function gridSetNN(ws: ClusterWorkspace, i: number, j: number, d: number): void 
 
 /** Tournament update with key sNND (diJ of C/A). */
 function gridTreeUpdate(ws: ClusterWorkspace, i: number): void {
-  const key = ws.sNND, tree = ws.tree;
-  let t = (i + ws.gP) >> 1;
-  while (t >= 1) {
-    const l = tree[2 * t], r = tree[2 * t + 1];
-    tree[t] = key[r] < key[l] ? r : l;
-    t >>= 1;
-  }
+  treeFix(ws.tree, ws.sNND, i, ws.gP);
 }
 
 /** (Re)builds the grid over the alive slots; the NN information is kept, the near/far classes recomputed. */
