@@ -1,10 +1,10 @@
 import type { z } from 'zod';
 import { ApiError, badRequest, notFound, type ErrorDetail } from './api-errors';
 
-/** zod's issues as the error body's details, each naming where in the input it is. */
-export function issueDetails(error: z.ZodError): ErrorDetail[] {
+/** zod's issues as the error body's details, each naming where in the input it is (`root`: the input itself). */
+export function issueDetails(error: z.ZodError, root = '(body)'): ErrorDetail[] {
   return error.issues.map((issue) => ({
-    path: issue.path.length > 0 ? issue.path.map(String).join('.') : '(body)',
+    path: issue.path.length > 0 ? issue.path.map(String).join('.') : root,
     message: issue.message,
   }));
 }
@@ -28,10 +28,10 @@ export async function readJsonBody<T>(request: Request, schema: z.ZodType<T>): P
 }
 
 /** `value` checked against the schema; 400 `invalid_input` naming each problem and where it is. */
-export function checkedInput<T>(schema: z.ZodType<T>, value: unknown, what: string): T {
+export function checkedInput<T>(schema: z.ZodType<T>, value: unknown, what: string, root = '(body)'): T {
   const parsed = schema.safeParse(value);
   if (!parsed.success) {
-    const details = issueDetails(parsed.error);
+    const details = issueDetails(parsed.error, root);
     throw badRequest(`Invalid ${what}: ${summary(details)}`, details);
   }
   return parsed.data;
@@ -39,7 +39,7 @@ export function checkedInput<T>(schema: z.ZodType<T>, value: unknown, what: stri
 
 /** The URL's query parameters (the last value of a repeated one) checked against the schema. */
 export function readQuery<T>(request: Request, schema: z.ZodType<T>): T {
-  return checkedInput(schema, Object.fromEntries(new URL(request.url).searchParams), 'query');
+  return checkedInput(schema, Object.fromEntries(new URL(request.url).searchParams), 'query', '(query)');
 }
 
 /**

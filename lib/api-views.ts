@@ -48,6 +48,6 @@ export function entryView(entry: Entry) {
 
 /** A personal API token without its secret. */
 export function apiTokenView(token: ApiToken) {
-  const { id, name, prefix, createdAt, lastUsedAt } = token;
-  return { id, name, prefix, createdAt, lastUsedAt };
+  const { id, name, prefix, createdAt } = token;
+  return { id, name, prefix, createdAt, lastUsedAt: token.lastUsedAt ?? null };
 }

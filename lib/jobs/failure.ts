@@ -26,7 +26,7 @@ const EXPLANATIONS: Record<string, string> = {
   gzip:
     'The compressed file is damaged or incomplete, as happens when a copy or download stopped early. ' +
     'Compress or copy the file again, then upload it anew.',
-  empty: 'The file holds no records to process.',
+  empty: 'The file holds no records (events or jets) to process: at least one must follow its header.',
   size:
     'A line is larger than the server reads at once. The one-document form is meant for small files: write large ' +
     'samples as JSON Lines, one record a line.',

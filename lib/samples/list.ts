@@ -36,8 +36,8 @@ export async function visibleSamples(user: User, query: SampleListQuery): Promis
   if (query.label !== undefined) conditions.push({ label: query.label });
   if (query.state !== undefined) conditions.push({ state: query.state });
   if (query.tag !== undefined) {
-    const tag = sequelize.escape(query.tag);
-    conditions.push(sequelize.literal(`EXISTS (SELECT 1 FROM json_each(\`Sample\`.\`tags\`) WHERE value = ${tag})`));
+    const tagged = `(SELECT s.id FROM samples s, json_each(s.tags) t WHERE t.value = ${sequelize.escape(query.tag)})`;
+    conditions.push({ id: { [Op.in]: sequelize.literal(tagged) } });
   }
   const direction = query.order ?? (query.sort === 'createdAt' || query.sort === 'fileSize' ? 'desc' : 'asc');
   const order: Order = [[SORTS[query.sort], direction.toUpperCase()], ['id', 'DESC']];

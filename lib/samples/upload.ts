@@ -31,7 +31,7 @@ function checkFileName(name: string): void {
 /** The fields sent before the file, checked as far as they go, and the study role when the study is known. */
 async function checkEarly(user: User, fieldsSoFar: Record<string, unknown>, fileName: string): Promise<void> {
   checkFileName(fileName);
-  const known = checkedInput(uploadFieldsSchema.partial(), fieldsSoFar, 'upload');
+  const known = checkedInput(uploadFieldsSchema.partial(), fieldsSoFar, 'upload', '(form)');
   if (known.studyId !== undefined) await studyAccess(user, known.studyId, 'editor');
 }
 
@@ -70,7 +70,10 @@ export async function acceptUpload(user: User, request: Request): Promise<Upload
         { path: UPLOAD_FILE_FIELD, message: 'required' },
       ]);
     }
-    const fields = checkedInput(uploadFieldsSchema, upload.fields, 'upload');
+    if (file.size === 0) {
+      throw badRequest('Invalid upload: the file is empty.', [{ path: UPLOAD_FILE_FIELD, message: 'empty file' }]);
+    }
+    const fields = checkedInput(uploadFieldsSchema, upload.fields, 'upload', '(form)');
     const { study } = await studyAccess(user, fields.studyId, 'editor');
     const { models, write } = db();
     const outcome = await write(async (transaction) => {

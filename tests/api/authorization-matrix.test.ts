@@ -5,6 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Client, type TestServer } from '../support/server';
 import { addMember, newAccount, newNote, newPerson, newStudy, serverWithAdmin, type Person } from './fixtures';
 import { apiRouteMethods } from './route-inventory';
+import { jetsFileText, upload, uploadDone, uploadForm } from './sample-fixtures';
 
 const ACTORS = ['anonymous', 'nonMember', 'viewer', 'commenter', 'editor', 'owner', 'admin'] as const;
 type Actor = (typeof ACTORS)[number];
@@ -15,11 +16,15 @@ interface World {
   /** Owned by `owner`, with `viewer`, `commenter` and `editor` as members; `admin` (a site admin) is not one. */
   studyId: number;
   people: Record<'owner' | 'viewer' | 'commenter' | 'editor', Person>;
+  /** A processed sample of the study, uploaded by `owner`. */
+  sampleId: number;
 }
 
 interface Call {
   path: string;
   body?: unknown;
+  /** Sent as multipart/form-data instead of `body`. */
+  multipart?: FormData;
   /** Checked after a refused call: what the call must not have changed. */
   unchanged?: () => Promise<void>;
 }
@@ -64,6 +69,21 @@ async function onFreshMember(world: World, body?: unknown): Promise<Call> {
     body,
     unchanged: async () => expect(await memberRole(world, account.id)).toBe('viewer'),
   };
+}
+
+/** A fresh sample of the matrix study (queued or processing: deleting or cancelling it works either way). */
+async function freshSample(world: World, label: string): Promise<Call> {
+  const made = await upload(world.people.owner.client, { studyId: world.studyId, file: jetsFileText(20, freshSeed++), name: label });
+  expect(made.status, made.text).toBe(202);
+  const path = `/api/samples/${made.body.sample.id}`;
+  return { path, unchanged: async () => expect((await world.people.owner.client.get(path)).status).toBe(200) };
+}
+let freshSeed = 7000;
+
+const inSample = (world: World, rest = '') => `/api/samples/${world.sampleId}${rest}`;
+
+async function tokenNames(client: Client): Promise<string[]> {
+  return (await client.get('/api/tokens')).body.tokens.map((token: { name: string }) => token.name);
 }
 
 async function entryBodies(world: World): Promise<string[]> {
@@ -258,6 +278,99 @@ const ROWS: Row[] = [
     },
     expected: statuses(401, 404, 403, 403, 204, 204, 204),
   },
+  {
+    method: 'GET',
+    route: '/api/samples',
+    call: async () => ({ path: '/api/samples' }),
+    expected: statuses(401, 200, 200, 200, 200, 200, 200),
+  },
+  {
+    method: 'POST',
+    route: '/api/samples/upload',
+    call: async (world, actor) => ({
+      path: '/api/samples/upload',
+      // Distinct bytes for every caller, so that no upload is answered as a duplicate of another.
+      multipart: uploadForm({ studyId: world.studyId, name: `Uploaded by ${actor}`, file: jetsFileText(5, freshSeed++) }),
+      unchanged: async () => {
+        const names = (await world.people.owner.client.get(`/api/samples?studyId=${world.studyId}`)).body.samples;
+        expect(names.map((sample: { name: string }) => sample.name)).not.toContain(`Uploaded by ${actor}`);
+      },
+    }),
+    expected: statuses(401, 404, 403, 403, 202, 202, 202),
+  },
+  {
+    method: 'GET',
+    route: '/api/samples/[sampleId]',
+    call: async (world) => ({ path: inSample(world) }),
+    expected: statuses(401, 404, 200, 200, 200, 200, 200),
+  },
+  {
+    method: 'DELETE',
+    route: '/api/samples/[sampleId]',
+    call: (world, actor) => freshSample(world, `Delete as ${actor}`),
+    expected: statuses(401, 404, 403, 403, 204, 204, 204),
+  },
+  {
+    // A processed sample has nothing to cancel: it is answered as it stands.
+    method: 'POST',
+    route: '/api/samples/[sampleId]/cancel',
+    call: async (world) => ({
+      path: inSample(world, '/cancel'),
+      unchanged: async () => expect((await world.people.owner.client.get(inSample(world))).body.sample.state).toBe('done'),
+    }),
+    expected: statuses(401, 404, 403, 403, 200, 200, 200),
+  },
+  {
+    method: 'GET',
+    route: '/api/samples/[sampleId]/jets',
+    call: async (world) => ({ path: inSample(world, '/jets?limit=5') }),
+    expected: statuses(401, 404, 200, 200, 200, 200, 200),
+  },
+  {
+    method: 'GET',
+    route: '/api/samples/[sampleId]/plane',
+    call: async (world) => ({ path: inSample(world, '/plane') }),
+    expected: statuses(401, 404, 200, 200, 200, 200, 200),
+  },
+  {
+    method: 'GET',
+    route: '/api/samples/[sampleId]/provenance',
+    call: async (world) => ({ path: inSample(world, '/provenance') }),
+    expected: statuses(401, 404, 200, 200, 200, 200, 200),
+  },
+  {
+    method: 'GET',
+    route: '/api/samples/[sampleId]/export',
+    call: async (world) => ({ path: inSample(world, '/export') }),
+    expected: statuses(401, 404, 200, 200, 200, 200, 200),
+  },
+  {
+    method: 'GET',
+    route: '/api/tokens',
+    call: async () => ({ path: '/api/tokens' }),
+    expected: statuses(401, 200, 200, 200, 200, 200, 200),
+  },
+  {
+    method: 'POST',
+    route: '/api/tokens',
+    call: async (_world, actor) => ({ path: '/api/tokens', body: { name: `Script of ${actor}` } }),
+    expected: statuses(401, 201, 201, 201, 201, 201, 201),
+  },
+  {
+    // Only one's own tokens: everyone else's look like tokens that do not exist, site admins included.
+    method: 'DELETE',
+    route: '/api/tokens/[tokenId]',
+    call: async (world, actor) => {
+      const owner = world.people.owner.client;
+      const made = await owner.post('/api/tokens', { name: `Kept unless ${actor} revokes it` });
+      expect(made.status, made.text).toBe(201);
+      return {
+        path: `/api/tokens/${made.body.token.id}`,
+        unchanged: async () => expect(await tokenNames(owner)).toContain(`Kept unless ${actor} revokes it`),
+      };
+    },
+    expected: statuses(401, 404, 404, 404, 404, 204, 404),
+  },
 ];
 
 let world: World;
@@ -275,9 +388,11 @@ beforeAll(async () => {
   for (const role of ['viewer', 'commenter', 'editor'] as const) {
     await addMember(people.owner.client, studyId, people[role].email, role);
   }
+  const sample = await uploadDone(people.owner.client, { studyId, name: 'Matrix sample', file: jetsFileText(50, 1) });
   world = {
     server,
     studyId,
+    sampleId: sample.id,
     people,
     clients: {
       anonymous: new Client(server.baseUrl),
@@ -295,7 +410,7 @@ afterAll(() => world?.server.stop());
 describe.each(ROWS)('$method $route', (row) => {
   it.each(ACTORS)('as %s', async (actor) => {
     const call = await row.call(world, actor);
-    const response = await world.clients[actor].send(row.method, call.path, { body: call.body });
+    const response = await world.clients[actor].send(row.method, call.path, { body: call.body, multipart: call.multipart });
     expect(response.status, `${row.method} ${call.path} as ${actor}: ${response.text.slice(0, 300)}`).toBe(
       row.expected[actor],
     );

@@ -1,7 +1,7 @@
 // People and studies made through the API itself, for the API tests.
 import { expect } from 'vitest';
 import type { StudyRole } from '@/models/vocabulary';
-import { Client, signIn, startTestServer, type TestServer } from '../support/server';
+import { Client, signIn, startTestServer, type TestServer, type TestServerOptions } from '../support/server';
 
 export interface Person {
   id: number;
@@ -13,8 +13,8 @@ export interface Person {
 }
 
 /** A fresh server and its demo admin, signed in. */
-export async function serverWithAdmin(): Promise<{ server: TestServer; admin: Client }> {
-  const server = await startTestServer();
+export async function serverWithAdmin(options?: TestServerOptions): Promise<{ server: TestServer; admin: Client }> {
+  const server = await startTestServer(options);
   const { email, password } = server.credentials.admin;
   return { server, admin: await signIn(server.baseUrl, email, password) };
 }

@@ -22,13 +22,18 @@ export interface TestServer {
   credentials: { admin: DemoAccount; members: DemoAccount[] };
   /** What the server printed so far, for failure messages. */
   output(): string;
+  /** Stops the server and removes its storage. */
   stop(): Promise<void>;
+  /** Kills the server at once (SIGKILL) and keeps its storage, for a restart with `storageOf`. */
+  kill(): Promise<void>;
 }
 
 export interface TestServerOptions {
   /** The build to serve; defaults to $NEXT_DIST_DIR, else `.next` (what `npm run build` makes). */
   distDir?: string;
   env?: Record<string, string>;
+  /** Serve the storage (and so the accounts) of this server, which must have been killed, instead of a fresh one. */
+  storageOf?: TestServer;
 }
 
 function freePort(): Promise<number> {
@@ -62,10 +67,11 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
   if (!existsSync(path.join(distDir, 'BUILD_ID'))) {
     throw new Error(`No build in ${distDir}: run "npm run build" first (with the same NEXT_DIST_DIR).`);
   }
-  const storageDir = mkdtempSync(path.join(os.tmpdir(), 'splitfield-test-'));
+  const storageDir = options.storageOf?.storageDir ?? mkdtempSync(path.join(os.tmpdir(), 'splitfield-test-'));
   const config = readConfig({ SPLITFIELD_STORAGE: storageDir });
   const prepared = await prepareStorage(config, {});
-  const accounts = prepared.demoAccounts ?? [];
+  const earlier = options.storageOf?.credentials;
+  const accounts = prepared.demoAccounts ?? (earlier ? [earlier.admin, ...earlier.members] : []);
   const admin = accounts.find((account) => account.siteRole === 'admin');
   if (!admin) throw new Error('The seed made no admin account.');
 
@@ -102,6 +108,10 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
     }
     rmSync(storageDir, { recursive: true, force: true });
   };
+  const kill = async () => {
+    if (!exited) child.kill('SIGKILL');
+    await exit;
+  };
   try {
     await waitUntilReady(baseUrl, () => exited, () => printed);
   } catch (error) {
@@ -115,6 +125,7 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
     credentials: { admin, members: accounts.filter((account) => account !== admin) },
     output: () => printed,
     stop,
+    kill,
   };
 }
 
@@ -137,16 +148,27 @@ export class Client {
     return [...this.cookies].map(([name, value]) => ({ name, value }));
   }
 
-  /** Sends `body` as JSON, or `rawBody` as it is (with a JSON content type). */
+  /**
+   * Sends `body` as JSON, `rawBody` as it is (with a JSON content type), `form` URL-encoded, or `multipart` as
+   * multipart/form-data; `headers` are added (e.g. an Authorization header).
+   */
   async send(
     method: string,
     pathname: string,
-    options: { body?: unknown; rawBody?: string; form?: Record<string, string> } = {},
+    options: {
+      body?: unknown;
+      rawBody?: string;
+      form?: Record<string, string>;
+      multipart?: FormData;
+      headers?: Record<string, string>;
+    } = {},
   ): Promise<ApiResponse> {
-    const headers: Record<string, string> = {};
+    const headers: Record<string, string> = { ...options.headers };
     if (this.cookies.size > 0) headers.cookie = [...this.cookies].map(([name, value]) => `${name}=${value}`).join('; ');
-    let payload: string | undefined;
-    if (options.form) {
+    let payload: string | FormData | undefined;
+    if (options.multipart) {
+      payload = options.multipart;
+    } else if (options.form) {
       headers['content-type'] = 'application/x-www-form-urlencoded';
       payload = new URLSearchParams(options.form).toString();
     } else if (options.rawBody !== undefined || options.body !== undefined) {

@@ -1,0 +1,156 @@
+// Processing jobs on a real server: one job at a time, live progress, cancelling, a server killed with SIGKILL in
+// the middle of a job and started again on the same storage, and several users uploading at once.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { generateEvents } from '@/lib/physics/test-events';
+import { startTestServer, signIn, type Client, type TestServer } from '../support/server';
+import { toRows } from '../unit/ingest/helpers';
+import { addMember, newPerson, newStudy } from './fixtures';
+import { isFinished, jetsFileText, storedFiles, upload, uploadDone, waitForSample } from './sample-fixtures';
+
+/**
+ * A file whose job runs for seconds (one event of 300 particles, repeated), so that a test sees it running: the
+ * tests wait for states, they never rely on how long the job takes.
+ */
+function slowEventsFile(events: number, tag: string): Blob {
+  const [particles] = generateEvents(5, 1, { nParticles: 300, nJets: 4 });
+  const rows = JSON.stringify(toRows(particles));
+  const header = JSON.stringify({ format: 'splitfield-particles', version: 1, content: 'events', sample: { name: tag } });
+  const lines = [header];
+  for (let k = 1; k <= events; k++) lines.push(`{"id":"${tag}-${k}","particles":${rows}}`);
+  return new Blob([`${lines.join('\n')}\n`]);
+}
+
+const SLOW_EVENTS = 4000;
+const isRunningWithProgress = (sample: any) => sample.state === 'running' && (sample.progress?.records ?? 0) > 0;
+
+/** What of sample `id` is on disk: its folder and any half-written (staging) copy. */
+function filesOf(server: TestServer, id: number): string[] {
+  return storedFiles(server.storageDir).samples.filter((name) => name === String(id) || name.startsWith(`.${id}.`));
+}
+
+describe('one server', () => {
+  let server: TestServer;
+  let owner: Client;
+  let studyId: number;
+
+  beforeAll(async () => {
+    server = await startTestServer();
+    const person = await newPerson(server, 'owner');
+    owner = person.client;
+    studyId = await newStudy(owner, 'Jobs study');
+  });
+  afterAll(() => server?.stop());
+
+  it('runs one job at a time, reports progress, and cancels a running and a queued job without a trace', async () => {
+    const first = await upload(owner, { studyId, name: 'First', file: slowEventsFile(SLOW_EVENTS, 'a') });
+    const second = await upload(owner, { studyId, name: 'Second', file: slowEventsFile(SLOW_EVENTS, 'b') });
+    expect([first.status, second.status]).toEqual([202, 202]);
+    const [a, b] = [first.body.sample.id, second.body.sample.id];
+
+    const running = await waitForSample(owner, a, isRunningWithProgress, 'running with progress');
+    expect(running.progress).toMatchObject({
+      fraction: expect.any(Number),
+      bytesTotal: running.fileSize,
+      records: expect.any(Number),
+      jets: expect.any(Number),
+      splittings: expect.any(Number),
+      jetsPerSecond: expect.any(Number),
+    });
+    expect(running.progress.fraction).toBeGreaterThan(0);
+    expect(running.progress.fraction).toBeLessThan(1);
+    expect((await owner.get(`/api/samples/${b}`)).body.sample.state).toBe('queued');
+
+    const cancelledQueued = await owner.post(`/api/samples/${b}/cancel`);
+    expect(cancelledQueued.status, cancelledQueued.text).toBe(200);
+    expect(cancelledQueued.body.sample).toMatchObject({ id: b, state: 'cancelled', error: null });
+
+    const cancelledRunning = await owner.post(`/api/samples/${a}/cancel`);
+    expect(cancelledRunning.status, cancelledRunning.text).toBe(200);
+    expect(cancelledRunning.body.sample).toMatchObject({ id: a, state: 'cancelled', counts: null });
+    expect(filesOf(server, a)).toEqual([]);
+    expect(storedFiles(server.storageDir).uploads).toEqual([]);
+
+    const again = await owner.post(`/api/samples/${a}/cancel`);
+    expect(again.body.sample.state).toBe('cancelled');
+    expect((await owner.get(`/api/samples/${a}/jets`)).status).toBe(409);
+  });
+
+  it('deletes a sample whose job is running: the job stops and its files go', async () => {
+    const made = await upload(owner, { studyId, name: 'Deleted while running', file: slowEventsFile(SLOW_EVENTS, 'c') });
+    const id = made.body.sample.id;
+    await waitForSample(owner, id, isRunningWithProgress, 'running with progress');
+    expect((await owner.delete(`/api/samples/${id}`)).status).toBe(204);
+    expect((await owner.get(`/api/samples/${id}`)).status).toBe(404);
+    expect(filesOf(server, id)).toEqual([]);
+    expect(storedFiles(server.storageDir).uploads).toEqual([]);
+  });
+
+  it('takes uploads from several users at once without "database is locked"', async () => {
+    const people = await Promise.all(Array.from({ length: 6 }, (_, k) => newPerson(server, `concurrent-${k}`)));
+    for (const person of people) await addMember(owner, studyId, person.email, 'editor');
+    const responses = await Promise.all(
+      people.map((person, k) => upload(person.client, { studyId, name: `Concurrent ${k}`, file: jetsFileText(200, 900 + k) })),
+    );
+    expect(responses.map((response) => response.status)).toEqual(people.map(() => 202));
+    const finished = await Promise.all(
+      responses.map((response) => waitForSample(owner, response.body.sample.id, isFinished, 'the end of its job')),
+    );
+    expect(finished.map((sample) => sample.state)).toEqual(people.map(() => 'done'));
+    expect(server.output()).not.toMatch(/database is locked|SQLITE_BUSY/);
+  });
+});
+
+describe('a server killed during a job', () => {
+  let server: TestServer;
+  let admin: Client;
+  let studyId: number;
+
+  /** Kills the server with SIGKILL and starts it again on the same storage. */
+  async function killAndRestart(): Promise<void> {
+    await server.kill();
+    server = await startTestServer({ storageOf: server });
+    admin = await signIn(server.baseUrl, server.credentials.admin.email, server.credentials.admin.password);
+  }
+
+  beforeAll(async () => {
+    server = await startTestServer();
+    admin = await signIn(server.baseUrl, server.credentials.admin.email, server.credentials.admin.password);
+    studyId = await newStudy(admin, 'Crash study');
+  });
+  afterAll(() => server?.stop());
+
+  it('requeues the job at the next start, which then completes with nothing half-written left', async () => {
+    const made = await upload(admin, { studyId, name: 'Survivor', file: slowEventsFile(SLOW_EVENTS, 'd') });
+    const id = made.body.sample.id;
+    await waitForSample(admin, id, isRunningWithProgress, 'running with progress');
+    await killAndRestart();
+
+    const done = await waitForSample(admin, id, isFinished, 'the end of its job');
+    expect(done.state).toBe('done');
+    expect(done.counts.records).toBe(SLOW_EVENTS);
+    expect(server.output()).toMatch(new RegExp(`requeued interrupted samples ${id}\\b`));
+    expect(filesOf(server, id)).toEqual([String(id)]);
+    expect(storedFiles(server.storageDir).samples.filter((name) => name.startsWith('.'))).toEqual([]);
+    expect(storedFiles(server.storageDir).uploads).toEqual([]);
+    expect((await admin.get(`/api/samples/${id}/plane`)).status).toBe(200);
+  });
+
+  it('marks a job failed, with the reason, once stops have cut it short twice', async () => {
+    const made = await upload(admin, { studyId, name: 'Twice unlucky', file: slowEventsFile(SLOW_EVENTS, 'e') });
+    const id = made.body.sample.id;
+    await waitForSample(admin, id, isRunningWithProgress, 'running with progress');
+    await killAndRestart();
+    await waitForSample(admin, id, isRunningWithProgress, 'running again with progress');
+    await killAndRestart();
+
+    const failed = (await admin.get(`/api/samples/${id}`)).body.sample;
+    expect(failed.state).toBe('failed');
+    expect(failed.error).toMatchObject({
+      code: 'interrupted',
+      message: expect.stringMatching(/cut short by a stop of the server 2 times/),
+      explanation: expect.stringMatching(/Upload the file again/),
+    });
+    expect(filesOf(server, id)).toEqual([]);
+    expect(storedFiles(server.storageDir).uploads).toEqual([]);
+  });
+});
