@@ -14,20 +14,26 @@
 // which is R² times min(d_iNN, d_iB). After each recombination only the jets whose NN was one of the two merged
 // ones, and the neighbours of the new jet, change.
 //
-// Two strategies:
-//  - 'plain': a line-by-line port of FastJet 3.4's N2Plain (ClusterSequence::_simple_N2_cluster), including its
-//    array compaction, so that even exact ties are resolved as FastJet resolves them when it uses N2Plain (which
-//    it does for small N, and for every reclustering of ≤ 30 constituents).
-//  - 'tiled': the (y, φ) plane is cut into tiles of size ≥ R (φ wraps around); a jet's NN can only be in its own
-//    or one of the 8 adjacent tiles, so NN searches cost O(local density) instead of O(N); the minimum diJ is
-//    kept in a tournament tree (O(log N) per change) instead of a linear scan. This is in the spirit of
-//    FastJet's N2Tiled / N2MinHeapTiled strategies (arXiv:1111.6097 §3 and appendix; arXiv:hep-ph/0512210).
-//    Like FastJet's tiled strategies, the merged jet takes the lower of the two slots and becomes parent2, the
-//    jet of the higher slot parent1. Ties between exactly equal distances (measure zero for real data) pick the
-//    lowest slot.
-// Both choose the same globally smallest distance at every step, so with distances computed bit-identically to
-// FastJet (same rapidity/azimuth formulas of the summed four-momentum, same ΔR² expression, same diJ product)
-// they produce FastJet's clustering sequence.
+// Strategies (cluster() picks one; 'plain' and 'tiled' can be forced, e.g. by the tests):
+//  - plain (jet finding below TILED_MIN_PARTICLES, or R too large for ≥ 3 tiles in φ): a line-by-line port of
+//    FastJet 3.4's N2Plain (ClusterSequence::_simple_N2_cluster), including its array compaction, so that even
+//    exact ties are resolved as FastJet resolves them when it uses N2Plain (which it does for small N).
+//    clusterPlainCA is the same algorithm specialised to C/A with R = ∞ (the re-clustering of a jet into one
+//    tree, below GRID_MIN_PARTICLES constituents): same operations, order and tie-breaking.
+//  - tiled (jet finding from TILED_MIN_PARTICLES on): the (y, φ) plane is cut into tiles of side ≥ R or ≥ R/2
+//    (φ wraps around); a jet's NN within R can only be in the block of tiles around its own, so NN searches cost
+//    O(local density) instead of O(N); the smallest diJ is kept in a tournament tree (O(log N) per change)
+//    instead of a linear scan. In the spirit of FastJet's N2Tiled / N2MinHeapTiled / lazy-tiling strategies
+//    (arXiv:1111.6097 §3 and appendix; arXiv:hep-ph/0512210); details above clusterTiled.
+//  - grid (C/A with R = ∞ for large jets, from GRID_MIN_PARTICLES on): a (y, φ) grid over the jet that is
+//    rebuilt as the number of jets falls; details above clusterGridCA.
+// In the tiled and grid strategies the merged jet takes the lower of the two slots (as in FastJet's tiled
+// strategies); exact ties between different pairs (measure zero for real data) are resolved deterministically,
+// by the lower slot. In every strategy the history's parent1 is the earlier of the two merged nodes (FastJet).
+// All strategies choose the same globally smallest distance at every step, so with distances computed
+// bit-identically to FastJet (same rapidity/azimuth formulas of the summed four-momentum, same ΔR² expression,
+// same diJ product) they reproduce FastJet's clustering sequence; the tests check this against FastJet itself
+// and the strategies against each other.
 //
 // Everything lives in typed arrays inside a reusable ClusterWorkspace: no allocation per step.
 
@@ -69,7 +75,7 @@ export class ClusterWorkspace {
   rap = new Float64Array(0);
   /** Azimuth in [0, 2π). */
   phi = new Float64Array(0);
-  /** History: the two nodes merged into this one, −1 for input particles (parent1 = FastJet's parent1). */
+  /** History: the two nodes merged into this one (parent1 the earlier, as FastJet's), −1 for input particles. */
   parent1 = new Int32Array(0);
   parent2 = new Int32Array(0);
   /** Constituent lists (only filled when asked): first/last particle of a node, next particle, count. */
@@ -261,21 +267,26 @@ export function loadConstituents(dst: ClusterWorkspace, src: ClusterWorkspace, j
   return n;
 }
 
-/** E-scheme recombination of nodes i (parent1) and j (parent2) into a new node; returns its index. */
+/**
+ * E-scheme recombination of nodes i and j into a new node; returns its index. As FastJet's history
+ * (ClusterSequence::_do_ij_recombination_step), parent1 is the earlier node (smaller index) and parent2 the
+ * later one, and a jet's constituents are parent1's followed by parent2's (ClusterSequence::add_constituents).
+ */
 function recombine(ws: ClusterWorkspace, i: number, j: number, track: boolean): number {
   const k = ws.nNodes++;
   ws.px[k] = ws.px[i] + ws.px[j];
   ws.py[k] = ws.py[i] + ws.py[j];
   ws.pz[k] = ws.pz[i] + ws.pz[j];
   ws.E[k] = ws.E[i] + ws.E[j];
-  ws.parent1[k] = i;
-  ws.parent2[k] = j;
+  const p1 = i < j ? i : j, p2 = i < j ? j : i;
+  ws.parent1[k] = p1;
+  ws.parent2[k] = p2;
   setKinematics(ws, k);
   if (track) {
-    ws.next[ws.last[i]] = ws.first[j];
-    ws.first[k] = ws.first[i];
-    ws.last[k] = ws.last[j];
-    ws.count[k] = ws.count[i] + ws.count[j];
+    ws.next[ws.last[p1]] = ws.first[p2];
+    ws.first[k] = ws.first[p1];
+    ws.last[k] = ws.last[p2];
+    ws.count[k] = ws.count[p1] + ws.count[p2];
   }
   return k;
 }
@@ -610,8 +621,8 @@ function clusterPlainCA(ws: ClusterWorkspace, track: boolean): void {
 //    without scanning;
 //  - each tile keeps an upper bound of its jets' NN distances, so that the check "is the new jet closer than
 //    my current NN?" skips tiles that are too far from the new jet for any of their jets.
-// The smallest diJ is kept in a tournament tree. Slots: the merged jet takes the lower slot (parent2), the
-// higher slot (parent1) dies, as in FastJet's tiled strategies.
+// The smallest diJ is kept in a tournament tree. Slots: the merged jet takes the lower of the two slots, the
+// higher one dies, as in FastJet's tiled strategies.
 
 /** Particles per R² above which tiles of side R/2 (5×5 blocks) replace tiles of side R (3×3 blocks). */
 const TILE_DENSE = 2;

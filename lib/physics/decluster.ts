@@ -27,8 +27,8 @@ export function reclusterCA(ws: ClusterWorkspace): number {
 
 /**
  * Writes the splitting of node k (which must have parents) at out[at..at+SPLIT_STRIDE) with the given
- * generation, and returns the harder branch a (larger pt; parent1 on an exact tie, as FastJet-based code that
- * swaps only when pt1² < pt2²). The softer branch is the other parent.
+ * generation, and returns the harder branch a: the larger pt², and on an exact tie parent1 (the earlier node),
+ * as FastJet's ClusterSequence::has_parents orders them. The softer branch is the other parent.
  */
 export function writeSplitting(ws: ClusterWorkspace, k: number, generation: number, out: Float64Array, at: number): number {
   const kt2 = ws.kt2, rap = ws.rap, phi = ws.phi;

@@ -53,7 +53,7 @@ function signedMass(ws: ClusterWorkspace, k: number): number {
  * Processes one record. `p` holds px, py, pz, E interleaved (GeV, already validated by the reader).
  * content 'events': jets are found with s.jet, then cut in this order: pt > ptMin, |y| < yMax, at most maxJets
  * leading jets (rejections are counted by the first cut that fails); the kept jets are sorted by pt, descending
- * (ties keep the order in which the algorithm produced them). content 'jets': the record is one jet (the C/A
+ * (exact ties: last found first, as FastJet). content 'jets': the record is one jet (the C/A
  * tree of all its particles; its four-momentum is the root's), the pt and |y| cuts still apply.
  * Each kept jet is re-clustered with C/A, declustered (primary sequence, and the full tree if s.fullTree), and
  * gets its SoftDrop and primary multiplicity.
@@ -85,9 +85,11 @@ export function processParticles(p: Float64Array, s: ProcessSettings): RecordRes
     candNode = new Int32Array(Math.max(nj, 2 * candNode.length));
     candKt2 = new Float64Array(candNode.length);
   }
-  // Cuts pt, |y|; insertion into a list sorted by pt² descending (stable for equal pt).
+  // Cuts pt, |y|; insertion into a list sorted by pt² descending. Jets are taken last-found first and the
+  // insertion is stable, which orders exactly equal pt as FastJet does (inclusive_jets() walks the history
+  // backwards, and sorted_by_pt's std::sort is an insertion sort below 16 jets).
   let nc = 0;
-  for (let j = 0; j < nj; j++) {
+  for (let j = nj - 1; j >= 0; j--) {
     const k = finder.jets[j];
     const k2 = finder.kt2[k];
     if (!(Math.sqrt(k2) > ptMin)) {

@@ -30,6 +30,8 @@ function angleDiff(a: number, b: number): number {
 export function close(field: string, a: number, b: number, o: CompareOptions = {}, delta = 1): boolean {
   if (Number.isNaN(a) && Number.isNaN(b)) return true;
   if (a === b) return true;
+  // The export (and fastjet-ref) writes NaN and ±∞ as null, read back as NaN: e.g. ln(1/Δ) of a Δ = 0 splitting.
+  if ((Number.isNaN(b) && !Number.isFinite(a)) || (Number.isNaN(a) && !Number.isFinite(b))) return true;
   if (!Number.isFinite(a) || !Number.isFinite(b)) return false;
   const diff = field === 'phi' || field === 'psi' ? angleDiff(a, b) : Math.abs(a - b);
   let floor = FLOORS[field] ?? 1e-9;

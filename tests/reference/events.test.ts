@@ -91,6 +91,28 @@ describe('awkward event configurations vs FastJet (Reference: FastJet 3.4.0 (Deb
   });
 });
 
+describe('edge inputs vs FastJet (Reference: FastJet 3.4.0 (Debian libfastjet-dev))', () => {
+  // Exact duplicates (a Δ = 0 splitting: ln(1/Δ) = ∞, written as null), a zero-pt particle (φ = 0 by
+  // convention, anti-kt momentum factor capped at 1e300), particles ±50 units apart in rapidity, and a
+  // mirror-symmetric event whose two leading jets have exactly equal pt (FastJet's order for the tie).
+  const records = [
+    [10, 2, 5, 20, 10, 2, 5, 20, 30, -4, 1, 40],
+    [0, 0, 3, 5, 20, 1, 2, 25, 15, 2, 3, 20],
+    [10, 0, 50, 60, 10, 0, -50, 60, 5, 1, 0, 6],
+    [10, 0, 15, 20, 10, 0, -15, 20, 6, 8, 0, 10.1],
+  ].map((a) => new Float64Array(a));
+
+  for (const content of ['events', 'jets'] as const) {
+    for (const algorithm of ['antikt', 'kt', 'ca'] as const) {
+      it(`${content}, ${algorithm}`, () => {
+        const c = crossCheck(content, records, { algorithm, R: 0.4, ptMin: 0, yMax: 100, all: true });
+        expect(c.mismatches, c.mismatches.join('\n')).toEqual([]);
+        expect(c.jets).toBeGreaterThanOrEqual(4);
+      });
+    }
+  }
+});
+
 describe('large events (tiled strategies on both sides) vs FastJet (Reference: FastJet 3.4.0 (Debian libfastjet-dev))', () => {
   const cases = [
     { algorithm: 'antikt' as const, R: 0.4, N: 2000 },

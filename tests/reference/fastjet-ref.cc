@@ -80,7 +80,8 @@ struct Split {
   double f[9];
 };
 
-// Returns the harder branch in `a`, the softer in `b`.
+// has_parents already orders the parents by decreasing pt (parent1 = earlier history entry on a tie);
+// the swap below is a no-op kept for clarity. Returns the harder branch in `harder`, the softer in `softer`.
 Split make_split(const PseudoJet &j, PseudoJet a, PseudoJet b, int gen, PseudoJet &harder, PseudoJet &softer) {
   if (a.pt2() < b.pt2()) std::swap(a, b);
   const double delta = a.delta_R(b);
