@@ -54,8 +54,10 @@ export function JetTable({ sampleId }: { sampleId: number }) {
   const [offset, setOffset] = useState(0);
   const [sort, setSort] = useState<SortState<JetSortKey>>({ key: 'row', order: 'asc' });
   const query = new URLSearchParams({ offset: String(offset), limit: String(PAGE_SIZE), sort: sort.key, order: sort.order });
-  const { data, error } = useSWR<JetPage, ApiError>(`/api/samples/${sampleId}/jets?${query}`, { keepPreviousData: true });
+  // The last page stays on screen, dimmed, while the next one loads; only then do the counts and buttons follow.
+  const { data, error, isLoading } = useSWR<JetPage, ApiError>(`/api/samples/${sampleId}/jets?${query}`, { keepPreviousData: true });
   const shownTo = data ? Math.min(offset + data.jets.length, data.total) : 0;
+  const pageLabel = !data || isLoading ? 'Loading jets…' : data.total === 0 ? 'No jets' : `Jets ${formatCount(offset + 1)}–${formatCount(shownTo)} of ${formatCount(data.total)}`;
 
   function sortBy(key: JetSortKey) {
     // File order starts from the top; a column starts with its largest values.
@@ -71,7 +73,7 @@ export function JetTable({ sampleId }: { sampleId: number }) {
       {error && <Notice tone="error">{error.message}</Notice>}
       {!data && !error && <LoadingBlock label="Loading jets…" />}
       {data && (
-        <div className="space-y-3">
+        <div className={`space-y-3 ${isLoading ? 'opacity-60' : ''}`} aria-busy={isLoading}>
           <DataTable
             label="Jets"
             head={
@@ -84,14 +86,12 @@ export function JetTable({ sampleId }: { sampleId: number }) {
             <JetRows jets={data.jets} />
           </DataTable>
           <nav aria-label="Jet pages" className="flex flex-wrap items-center justify-between gap-2 text-sm text-ink-soft">
-            <span aria-live="polite">
-              {data.total === 0 ? 'No jets' : `Jets ${formatCount(offset + 1)}–${formatCount(shownTo)} of ${formatCount(data.total)}`}
-            </span>
+            <span aria-live="polite">{pageLabel}</span>
             <span className="flex gap-2">
-              <Button size="sm" disabled={offset === 0} onClick={() => setOffset(Math.max(0, offset - PAGE_SIZE))}>
+              <Button size="sm" disabled={isLoading || offset === 0} onClick={() => setOffset(Math.max(0, offset - PAGE_SIZE))}>
                 Previous
               </Button>
-              <Button size="sm" disabled={shownTo >= data.total} onClick={() => setOffset(offset + PAGE_SIZE)}>
+              <Button size="sm" disabled={isLoading || shownTo >= data.total} onClick={() => setOffset(offset + PAGE_SIZE)}>
                 Next
               </Button>
             </span>

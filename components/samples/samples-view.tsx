@@ -33,8 +33,8 @@ function listUrl(filter: SampleFilter, sort: SampleSort): string {
 }
 
 /** Sorted, distinct non-empty values. */
-function distinct(values: (string | null)[]): string[] {
-  return [...new Set(values.filter((value): value is string => !!value))].sort((a, b) => a.localeCompare(b));
+function distinct(values: string[]): string[] {
+  return [...new Set(values.filter(Boolean))].sort((a, b) => a.localeCompare(b));
 }
 
 /** Every sample of the user's studies: filter, sort, and go to one. */
@@ -59,6 +59,15 @@ export function SamplesView({ initialStudyId = '' }: { initialStudyId?: string }
   return (
     <>
       <PageHeader title="Samples" lead="Uploaded particle files of your studies, after processing." actions={!none && canUpload && uploadLink} />
+      {everything && !none && (
+        <SampleFilters
+          filter={filter}
+          onChange={setFilter}
+          studies={studies ?? []}
+          labels={distinct(everything.samples.map((sample) => sample.label))}
+          tags={distinct(everything.samples.flatMap((sample) => sample.tags))}
+        />
+      )}
       {error && <Notice tone="error">{error.message}</Notice>}
       {!data && !error && <LoadingBlock label="Loading samples…" />}
       {none && (
@@ -68,30 +77,21 @@ export function SamplesView({ initialStudyId = '' }: { initialStudyId?: string }
             : 'Samples appear here once an editor of one of your studies uploads one.'}
         </EmptyState>
       )}
-      {data && !none && (
-        <>
-          <SampleFilters
-            filter={filter}
-            onChange={setFilter}
-            studies={studies ?? []}
-            labels={distinct(everything?.samples.map((sample) => sample.label) ?? [])}
-            tags={distinct(everything?.samples.flatMap((sample) => sample.tags) ?? [])}
-          />
-          {data.samples.length > 0 ? (
-            <SampleTable samples={sortedSamples(data.samples, sort)} sort={sort} onSort={sortBy} />
-          ) : (
-            <EmptyState
-              title="No sample matches these filters"
-              action={
-                filtered && (
-                  <Button variant="secondary" onClick={() => setFilter(NO_FILTER)}>
-                    Clear filters
-                  </Button>
-                )
-              }
-            />
-          )}
-        </>
+      {/* After a failed request the rows of the previous one would no longer match the filters. */}
+      {data && !none && !error && data.samples.length > 0 && (
+        <SampleTable samples={sortedSamples(data.samples, sort)} sort={sort} onSort={sortBy} />
+      )}
+      {data && !none && !error && data.samples.length === 0 && (
+        <EmptyState
+          title="No sample matches these filters"
+          action={
+            filtered && (
+              <Button variant="secondary" onClick={() => setFilter(NO_FILTER)}>
+                Clear filters
+              </Button>
+            )
+          }
+        />
       )}
     </>
   );
