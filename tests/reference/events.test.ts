@@ -6,8 +6,8 @@
 
 import { beforeAll, describe, expect, it } from 'vitest';
 import { TILED_MIN_PARTICLES } from '../../lib/physics/cluster';
-import { TWO_PI } from '../../lib/physics/fourvector';
-import { generateEvents } from '../../lib/physics/test-events';
+import { TWO_PI, fromPtYPhiM } from '../../lib/physics/fourvector';
+import { Rng, generateEvents } from '../../lib/physics/test-events';
 import { crossCheck } from './compare';
 import { ensureFastjetRef } from './fastjet';
 
@@ -108,6 +108,36 @@ describe('edge inputs vs FastJet (Reference: FastJet 3.4.0 (Debian libfastjet-de
         const c = crossCheck(content, records, { algorithm, R: 0.4, ptMin: 0, yMax: 100, all: true });
         expect(c.mismatches, c.mismatches.join('\n')).toEqual([]);
         expect(c.jets).toBeGreaterThanOrEqual(4);
+      });
+    }
+  }
+});
+
+describe('exact ties resolved as FastJet does (Reference: FastJet 3.4.0 (Debian libfastjet-dev), N2Plain)', () => {
+  // Records made of particles and their mirror images in y (pz → −pz negates the rapidity exactly), with pt in
+  // steps of 10 GeV: many pair distances, branch pts and jet pts are exactly equal. Which tied pair merges first,
+  // which equal-pt branch is "harder" (ψ flips by π) and the order of equal-pt jets then follow FastJet's rules.
+  const rng = new Rng(77);
+  const records: Float64Array[] = [];
+  for (let r = 0; r < 60; r++) {
+    const h = rng.int(1, 12);
+    const p = new Float64Array(8 * h);
+    const f0 = rng.uniform(0, TWO_PI);
+    for (let i = 0; i < h; i++) fromPtYPhiM(rng.int(1, 4) * 10, rng.uniform(0.01, 0.5), f0 + 0.3 * rng.normal(), 0, p, 4 * i);
+    for (let i = 0; i < h; i++) {
+      p[4 * (h + i)] = p[4 * i];
+      p[4 * (h + i) + 1] = p[4 * i + 1];
+      p[4 * (h + i) + 2] = -p[4 * i + 2];
+      p[4 * (h + i) + 3] = p[4 * i + 3];
+    }
+    records.push(p);
+  }
+  for (const content of ['jets', 'events'] as const) {
+    for (const algorithm of ['antikt', 'kt', 'ca'] as const) {
+      it(`${content}, ${algorithm}`, () => {
+        const c = crossCheck(content, records, { algorithm, R: 0.6, ptMin: 0, yMax: 10, all: true });
+        expect(c.mismatches, c.mismatches.join('\n')).toEqual([]);
+        for (const r of c.ref.records) expect(r.strategy).toBe('N2Plain');
       });
     }
   }
