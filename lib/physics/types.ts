@@ -59,6 +59,12 @@ export interface SoftDropResult {
   Rg: number;
 }
 
+/**
+ * One selected jet. In the `splitfield-declusterings` export (lib/ingest/export.ts, and the FastJet reference
+ * tests/reference/fastjet-ref.cc) a jet line carries pt, y, phi, m, n, "primary" (first 7 SPLIT_FIELDS per
+ * splitting), "all" ([generation, lnInvDelta, lnKt, z] per splitting, only with the full tree),
+ * "sd": [mg, zg, Rg] (null where NaN) and "mult" (= multiplicity).
+ */
 export interface JetResult {
   pt: number;
   y: number;
