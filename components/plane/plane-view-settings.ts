@@ -19,12 +19,12 @@ const FINE_BIN = 0.05;
 export const BIN_SIZES = [0.1, 0.2, 0.25, 0.5] as const;
 export const DEFAULT_BIN_SIZE = 0.25;
 
-// Ranges on fine-bin edges, 6 wide horizontally and 9 vertically (kt from 50 MeV to 400 GeV): they hold the
-// splittings of jets with R up to about 1 and pt up to a few TeV. ln(R/Δ) starts a little below 0 because C/A
-// splittings can open slightly wider than R.
+// Ranges on fine-bin edges, 6 wide horizontally and 10 vertically (kt from 18 MeV to 400 GeV): they hold the
+// splittings of jets with R up to about 1 and pt up to a few TeV, soft ones included. ln(R/Δ) starts a little
+// below 0 because C/A splittings can open slightly wider than R.
 const RANGES: Record<HorizontalCoordinate, { x: [number, number]; y: [number, number] }> = {
-  lnInvDelta: { x: [0, 6], y: [-3, 6] },
-  lnRoverDelta: { x: [-0.5, 5.5], y: [-3, 6] },
+  lnInvDelta: { x: [0, 6], y: [-4, 6] },
+  lnRoverDelta: { x: [-0.5, 5.5], y: [-4, 6] },
 };
 
 export interface PlaneChoice {

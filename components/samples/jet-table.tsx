@@ -36,7 +36,7 @@ const COLUMNS: { key: Exclude<JetSortKey, 'row'>; heading: string; title: string
 function JetRows({ jets }: { jets: JetRow[] }) {
   return jets.map((jet) => (
     <tr key={jet.row}>
-      <td className={`${cellClass} whitespace-nowrap font-mono text-xs text-ink-soft`}>
+      <td className={`${cellClass} whitespace-nowrap font-mono text-xs leading-5 text-ink-soft`}>
         {jet.record}
         {jet.jet > 0 && <span className="text-ink-faint"> · jet {jet.jet + 1}</span>}
       </td>

@@ -1,9 +1,32 @@
-import type { SampleDetail } from '@/lib/samples/shapes';
+import type { SampleDetail, SampleProgress } from '@/lib/samples/shapes';
 import { ConfirmButton } from '../confirm-button';
 import { Panel } from '../panel';
 import { formatBytes, formatCount, formatDuration } from './numbers';
 import { ProgressBar } from './progress-bar';
 import { StatGrid } from './stat-grid';
+
+/** How far the job is: share of the file read, time so far and left, and what it has found. */
+function RunningProgress({ progress }: { progress: SampleProgress }) {
+  const left = progress.secondsLeft === null ? '' : ` · about ${formatDuration(progress.secondsLeft * 1000)} left`;
+  return (
+    <>
+      <ProgressBar label="Processing progress" fraction={progress.fraction} />
+      <p className="text-xs text-ink-soft">
+        {formatBytes(progress.bytesRead)} of {formatBytes(progress.bytesTotal)} read in {formatDuration(progress.elapsedSeconds * 1000)}
+        {left}
+      </p>
+      <StatGrid
+        label="Progress"
+        stats={[
+          { label: 'Records read', value: formatCount(progress.records) },
+          { label: 'Jets', value: formatCount(progress.jets) },
+          { label: 'Splittings', value: formatCount(progress.splittings) },
+          { label: 'Rate', value: `${formatCount(Math.round(progress.jetsPerSecond))} jets/s` },
+        ]}
+      />
+    </>
+  );
+}
 
 interface ProcessingPanelProps {
   sample: SampleDetail;
@@ -14,27 +37,15 @@ interface ProcessingPanelProps {
 /** Live news of a queued or running sample, refreshed by the page about once a second. */
 export function ProcessingPanel({ sample, onCancel }: ProcessingPanelProps) {
   const { progress } = sample;
-  const queued = sample.state === 'queued' || !progress;
-  const percent = progress ? `${Math.round(progress.fraction * 100)} %` : undefined;
+  const running = sample.state === 'running' && progress !== null;
   return (
-    <Panel title={queued ? 'Waiting to be processed' : 'Processing'} aside={percent}>
+    <Panel title={running ? 'Processing' : 'Waiting to be processed'} aside={running ? `${Math.round(progress.fraction * 100)} %` : undefined}>
       <div className="space-y-4">
-        <ProgressBar label="Processing progress" fraction={queued ? null : progress.fraction} />
-        <p className="text-xs text-ink-soft">
-          {queued
-            ? 'Another sample is being processed; this one starts when it is done.'
-            : `${formatBytes(progress.bytesRead)} of ${formatBytes(progress.bytesTotal)} read in ${formatDuration(progress.elapsedSeconds * 1000)}` +
-              (progress.secondsLeft === null ? '' : ` · about ${formatDuration(progress.secondsLeft * 1000)} left`)}
-        </p>
-        <StatGrid
-          label="Progress"
-          stats={[
-            { label: 'Records read', value: formatCount(progress?.records ?? 0) },
-            { label: 'Jets', value: formatCount(progress?.jets ?? 0) },
-            { label: 'Splittings', value: formatCount(progress?.splittings ?? 0) },
-            { label: 'Rate', value: progress ? `${formatCount(Math.round(progress.jetsPerSecond))} jets/s` : '–' },
-          ]}
-        />
+        {running ? (
+          <RunningProgress progress={progress} />
+        ) : (
+          <p className="text-sm text-ink-soft">Waiting for its turn in the processing queue. This page follows it by itself.</p>
+        )}
         {onCancel && (
           <ConfirmButton label="Cancel processing" question="Stop and keep nothing of this sample?" confirmLabel="Stop processing" onConfirm={onCancel} />
         )}

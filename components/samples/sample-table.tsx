@@ -6,10 +6,10 @@ import { StateBadge } from './state-badge';
 import type { SampleSort, SampleSortKey } from './sample-sort';
 import { cellClass, DataTable, headCellClass, numberCellClass, SortHeader } from './table';
 
-/** What a sample is called and where it belongs, as the first cell of a row. */
+/** What a sample is called and where it belongs, as the first cell of a row; on narrow screens also its jets and study. */
 function SampleNameCell({ sample }: { sample: SampleSummary }) {
   return (
-    <td className={`${cellClass} min-w-44`}>
+    <td className={`${cellClass} min-w-36`}>
       <Link href={`/samples/${sample.id}`} className="font-medium break-words text-accent-strong hover:underline">
         {sample.name}
       </Link>
@@ -17,6 +17,7 @@ function SampleNameCell({ sample }: { sample: SampleSummary }) {
         {sample.label && <span className="font-mono">{sample.label}</span>}
         {sample.tags.length > 0 && <span>{sample.tags.map((tag) => `#${tag}`).join(' ')}</span>}
         <span className="md:hidden">{sample.studyTitle}</span>
+        {sample.counts && <span className="sm:hidden">{formatCount(sample.counts.jets)} jets</span>}
       </p>
     </td>
   );
@@ -42,7 +43,7 @@ export function SampleTable({ samples, sort, onSort }: SampleTableProps) {
           <th scope="col" className={`${headCellClass} hidden md:table-cell`}>
             Study
           </th>
-          {header('jets', 'Jets', { align: 'right' })}
+          {header('jets', 'Jets', { align: 'right', className: 'hidden sm:table-cell' })}
           {header('date', 'Uploaded')}
           {header('state', 'State')}
         </>
@@ -56,7 +57,7 @@ export function SampleTable({ samples, sort, onSort }: SampleTableProps) {
               {sample.studyTitle}
             </Link>
           </td>
-          <td className={numberCellClass}>{sample.counts ? formatCount(sample.counts.jets) : '–'}</td>
+          <td className={`${numberCellClass} hidden sm:table-cell`}>{sample.counts ? formatCount(sample.counts.jets) : '–'}</td>
           <td className={`${cellClass} whitespace-nowrap text-ink-soft`}>{formatDate(sample.createdAt)}</td>
           <td className={cellClass}>
             <StateBadge state={sample.state} />
