@@ -95,6 +95,8 @@ export class ClusterWorkspace {
   sMf = new Float64Array(0);
   /** Squared distance to the NN (R² when none). */
   sNND = new Float64Array(0);
+  /** clusterPlainCA: lower bound of the squared distance to every live jet other than the NN. */
+  sLB = new Float64Array(0);
   /** NN slot, −1 when none within R. */
   sNN = new Int32Array(0);
   /** Node held by the slot. */
@@ -174,6 +176,7 @@ export class ClusterWorkspace {
     this.sPhi = new Float64Array(cap);
     this.sMf = new Float64Array(cap);
     this.sNND = new Float64Array(cap);
+    this.sLB = new Float64Array(cap);
     this.sNN = new Int32Array(cap);
     this.sNode = new Int32Array(cap);
     let P = 1;
@@ -472,11 +475,17 @@ function clusterPlain(ws: ClusterWorkspace, R2: number, p: number, track: boolea
 /**
  * clusterPlain specialised to Cambridge/Aachen with an infinite radius (the re-clustering of a jet into one
  * tree): every momentum factor is 1, so diJ is the squared distance to the NN and no separate diJ table is
- * needed; every jet but the last has an NN. Same operations, order and tie-breaking as clusterPlain.
+ * needed; every jet but the last has an NN. Same merging sequence, parents and tie-breaking as clusterPlain
+ * (FastJet's N2Plain), with two savings:
+ *  - the next step's smallest distance is found during the update loop instead of by a separate scan;
+ *  - each jet also keeps sLB, a lower bound of its distance to every live jet other than its NN (the second
+ *    smallest distance of its last full search, lowered as new jets come closer). When its NN is merged away
+ *    and the new jet is strictly closer than that bound, the new jet is its unique nearest neighbour — what
+ *    FastJet's full re-search would find — and the O(n) re-search is skipped.
  */
 function clusterPlainCA(ws: ClusterWorkspace, track: boolean): void {
   let n = ws.n;
-  const { sEta, sPhi, sNND, sNN, sNode, rap, phi } = ws;
+  const { sEta, sPhi, sNND, sNN, sNode, sLB, rap, phi } = ws;
   let ops = (n * (n - 1)) / 2;
   for (let i = 0; i < n; i++) {
     sEta[i] = rap[i];
@@ -484,26 +493,34 @@ function clusterPlainCA(ws: ClusterWorkspace, track: boolean): void {
     sNode[i] = i;
   }
   sNND[0] = Infinity;
+  sLB[0] = Infinity;
   sNN[0] = -1;
   for (let a = 1; a < n; a++) {
     const ea = sEta[a], fa = sPhi[a];
-    let best = Infinity, bi = -1;
+    let best = Infinity, best2 = Infinity, bi = -1;
     for (let b = 0; b < a; b++) {
       let dphi = Math.abs(fa - sPhi[b]);
       const deta = ea - sEta[b];
       if (dphi > PI) dphi = TWO_PI - dphi;
       const dist = dphi * dphi + deta * deta;
       if (dist < best) {
+        best2 = best;
         best = dist;
         bi = b;
+      } else if (dist < best2) {
+        best2 = dist;
       }
       if (dist < sNND[b]) {
+        sLB[b] = sNND[b];
         sNND[b] = dist;
         sNN[b] = a;
+      } else if (dist < sLB[b]) {
+        sLB[b] = dist;
       }
     }
     sNN[a] = bi;
     sNND[a] = best;
+    sLB[a] = best2;
   }
 
   // The smallest NN distance (first slot on ties, as FastJet's scan); later found during the update loop.
@@ -535,60 +552,65 @@ function clusterPlainCA(ws: ClusterWorkspace, track: boolean): void {
     sEta[a] = sEta[tail];
     sPhi[a] = sPhi[tail];
     sNND[a] = sNND[tail];
+    sLB[a] = sLB[tail];
     sNN[a] = sNN[tail];
     sNode[a] = sNode[tail];
 
-    // The new jet's NN is accumulated in locals (FastJet's loop updates it in place, to the same result).
-    // The next step's smallest distance is tracked on the way: slot i's entry is final after its iteration
-    // (only b's changes later), so the first-slot-on-ties rule of a separate scan is kept.
-    let bBest = Infinity, bBi = -1;
+    // The new jet's NN (first slot at the smallest distance, as FastJet's in-place updates give) and its
+    // second smallest distance are accumulated in locals. The next step's smallest distance is tracked on the
+    // way: slot i's entry is final after its iteration (only b's changes later).
+    let bBest = Infinity, bBest2 = Infinity, bBi = -1;
     imin = -1;
     dmin = Infinity;
-    ops += 2 * n;
+    ops += n;
     for (let i = 0; i < n; i++) {
+      if (i === b) continue; // FastJet: jetB's own entry (NN none at this point) is only relabelled.
       const nn = sNN[i];
-      if (i === b) {
-        // FastJet: jetB's own entry (NN none at this point) is only relabelled below.
-        continue;
-      }
       const ei = sEta[i], fi = sPhi[i];
-      if (nn === a || nn === b) {
-        let best = Infinity, bi = -1;
-        ops += n;
-        for (let j = 0; j < i; j++) {
-          let dphi = Math.abs(fi - sPhi[j]);
-          const deta = ei - sEta[j];
-          if (dphi > PI) dphi = TWO_PI - dphi;
-          const dist = dphi * dphi + deta * deta;
-          if (dist < best) {
-            best = dist;
-            bi = j;
-          }
-        }
-        for (let j = i + 1; j < n; j++) {
-          let dphi = Math.abs(fi - sPhi[j]);
-          const deta = ei - sEta[j];
-          if (dphi > PI) dphi = TWO_PI - dphi;
-          const dist = dphi * dphi + deta * deta;
-          if (dist < best) {
-            best = dist;
-            bi = j;
-          }
-        }
-        sNN[i] = bi;
-        sNND[i] = best;
-      }
       let dphi = Math.abs(fi - fb);
       const deta = ei - eb;
       if (dphi > PI) dphi = TWO_PI - dphi;
       const dist = dphi * dphi + deta * deta;
-      if (dist < sNND[i]) {
+      if (nn === a || nn === b) {
+        // Its NN was merged away.
+        if (dist < sLB[i]) {
+          sNN[i] = b;
+          sNND[i] = dist;
+        } else {
+          // Full search in slot order (includes the new jet), keeping the second smallest distance.
+          let best = Infinity, best2 = Infinity, bi = -1;
+          ops += n;
+          for (let j = 0; j < n; j++) {
+            if (j === i) continue;
+            let dp = Math.abs(fi - sPhi[j]);
+            const de = ei - sEta[j];
+            if (dp > PI) dp = TWO_PI - dp;
+            const dd = dp * dp + de * de;
+            if (dd < best) {
+              best2 = best;
+              best = dd;
+              bi = j;
+            } else if (dd < best2) {
+              best2 = dd;
+            }
+          }
+          sNN[i] = bi;
+          sNND[i] = best;
+          sLB[i] = best2;
+        }
+      } else if (dist < sNND[i]) {
+        sLB[i] = sNND[i];
         sNND[i] = dist;
         sNN[i] = b;
+      } else if (dist < sLB[i]) {
+        sLB[i] = dist;
       }
       if (dist < bBest) {
+        bBest2 = bBest;
         bBest = dist;
         bBi = i;
+      } else if (dist < bBest2) {
+        bBest2 = dist;
       }
       if (sNN[i] === tail) sNN[i] = a;
       const d = sNND[i];
@@ -598,6 +620,7 @@ function clusterPlainCA(ws: ClusterWorkspace, track: boolean): void {
       }
     }
     sNND[b] = bBest;
+    sLB[b] = bBest2;
     sNN[b] = bBi;
     if (bBest < dmin || (bBest === dmin && b < imin)) {
       dmin = bBest;
