@@ -110,6 +110,32 @@ describe('strategies agree', () => {
     }
   });
 
+  it('the C/A re-clustering loop (R = ∞) has exactly the history of the N2Plain port with R = 1000, ties included', () => {
+    // clusterPlainCA skips re-searches with a second-nearest bound; it must not change a single merge, parent
+    // order or tie decision. Lattices of equal-pt particles give many exactly equal distances.
+    const lattices: Float64Array[] = [];
+    for (let g = 0; g < 20; g++) {
+      const list: [number, number, number][] = [];
+      for (let i = 0; i < 9 + g; i++) list.push([10 + (i % 3), 0.1 * (i % 4), 0.1 * Math.floor(i / 4)]);
+      lattices.push(particles(list));
+    }
+    for (const p of [...generateJets(41, 150, { nConstituents: 60 }), ...generateJets(42, 10, { nConstituents: 300 }), ...lattices]) {
+      const n = p.length / 4;
+      const A = new ClusterWorkspace(), B = new ClusterWorkspace();
+      loadParticles(A, p, n);
+      cluster(A, { p: 0, R: 1000, strategy: 'plain' });
+      loadParticles(B, p, n);
+      cluster(B, { p: 0, R: Infinity, strategy: 'plain' });
+      expect(B.nNodes).toBe(A.nNodes);
+      expect(B.jets[0]).toBe(A.jets[0]);
+      for (let k = n; k < A.nNodes; k++) {
+        expect(B.parent1[k]).toBe(A.parent1[k]);
+        expect(B.parent2[k]).toBe(A.parent2[k]);
+        expect(B.E[k]).toBe(A.E[k]);
+      }
+    }
+  });
+
   it('the C/A grid (re-clustering into one jet) and plain give the same tree on large jets', () => {
     for (const jet of generateJets(23, 4, { nConstituents: 700, spread: 0.25, massiveFraction: 0.3 })) {
       expect(jet.length / 4).toBeGreaterThan(GRID_MIN_PARTICLES);
