@@ -3,6 +3,8 @@
 import { useState } from 'react';
 import useSWR from 'swr';
 import { sendJson, type ApiError } from '@/lib/fetcher';
+import type { ApiTokenView as ApiToken } from '@/lib/samples/shapes';
+import { API_TOKEN_NAME_MAX } from '@/models/vocabulary';
 import { ActionForm, field, SubmitButton } from '../action-form';
 import { ConfirmButton } from '../confirm-button';
 import { TextField } from '../fields';
@@ -10,7 +12,6 @@ import { formatDate, formatDateTime } from '../format';
 import { LoadingBlock } from '../loading-block';
 import { Notice } from '../notice';
 import { Panel } from '../panel';
-import type { ApiTokenView as ApiToken } from '@/lib/samples/shapes';
 import { NewTokenSecret } from './new-token-secret';
 
 function TokenRow({ token, onRevoke }: { token: ApiToken; onRevoke: () => Promise<unknown> }) {
@@ -50,7 +51,7 @@ export function ApiTokensPanel() {
       <div className="space-y-4">
         <ActionForm onSubmit={create} resetOnSuccess aria-label="New API token" className="flex flex-col gap-3 sm:flex-row sm:items-end">
           <div className="flex-1">
-            <TextField label="Token name" name="name" required maxLength={100} placeholder="e.g. nightly upload job" />
+            <TextField label="Token name" name="name" required maxLength={API_TOKEN_NAME_MAX} placeholder="e.g. nightly upload job" />
           </div>
           <SubmitButton pendingLabel="Creating…">Create token</SubmitButton>
         </ActionForm>

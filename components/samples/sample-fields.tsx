@@ -1,3 +1,4 @@
+import { SAMPLE_DESCRIPTION_MAX, SAMPLE_LABEL_MAX, SAMPLE_NAME_MAX } from '@/models/vocabulary';
 import type { StudySummary } from '../api-types';
 import { SelectField, TextArea, TextField } from '../fields';
 import type { SampleDescription } from './file-header';
@@ -20,7 +21,7 @@ export function SampleFields({ studies, studyId, description, onDescription, dis
 
   return (
     <fieldset disabled={disabled} className="grid gap-4 sm:grid-cols-2">
-      <TextField label="Sample name" name="name" value={description.name} onChange={edit('name')} hint="Taken from the file's header, else its name." />
+      <TextField label="Sample name" name="name" maxLength={SAMPLE_NAME_MAX} value={description.name} onChange={edit('name')} hint="Taken from the file's header, else its name." />
       <SelectField label="Study" name="studyId" defaultValue={preselected} hint="Only studies where you may edit.">
         {!preselected && <option value="">Choose a study…</option>}
         {studies.map((study) => (
@@ -29,10 +30,10 @@ export function SampleFields({ studies, studyId, description, onDescription, dis
           </option>
         ))}
       </SelectField>
-      <TextField label="Label" name="label" value={description.label} onChange={edit('label')} hint="A short handle for legends, e.g. q-tune-a." />
+      <TextField label="Label" name="label" maxLength={SAMPLE_LABEL_MAX} value={description.label} onChange={edit('label')} hint="A short handle for legends, e.g. q-tune-a." />
       <TextField label="Tags" name="tags" value={description.tags} onChange={edit('tags')} hint="Separated by commas." />
       <div className="sm:col-span-2">
-        <TextArea label="Description" name="description" rows={3} value={description.description} onChange={edit('description')} />
+        <TextArea label="Description" name="description" rows={3} maxLength={SAMPLE_DESCRIPTION_MAX} value={description.description} onChange={edit('description')} />
       </div>
     </fieldset>
   );
