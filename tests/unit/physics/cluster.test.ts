@@ -119,7 +119,20 @@ describe('strategies agree', () => {
       for (let i = 0; i < 9 + g; i++) list.push([10 + (i % 3), 0.1 * (i % 4), 0.1 * Math.floor(i / 4)]);
       lattices.push(particles(list));
     }
-    for (const p of [...generateJets(41, 150, { nConstituents: 60 }), ...generateJets(42, 10, { nConstituents: 300 }), ...lattices]) {
+    // Particles and their mirror images in y (pz → −pz negates the rapidity exactly).
+    const rng = new Rng(77);
+    const mirrored: Float64Array[] = [];
+    for (let r = 0; r < 200; r++) {
+      const h = rng.int(1, 15);
+      const p = new Float64Array(8 * h);
+      const f0 = rng.uniform(0, TWO_PI);
+      for (let i = 0; i < h; i++) fromPtYPhiM(rng.int(1, 4) * 10, rng.uniform(0.01, 0.5), f0 + 0.3 * rng.normal(), 0, p, 4 * i);
+      for (let i = 0; i < h; i++) {
+        p.set([p[4 * i], p[4 * i + 1], -p[4 * i + 2], p[4 * i + 3]], 4 * (h + i));
+      }
+      mirrored.push(p);
+    }
+    for (const p of [...generateJets(41, 150, { nConstituents: 60 }), ...generateJets(42, 10, { nConstituents: 300 }), ...lattices, ...mirrored]) {
       const n = p.length / 4;
       const A = new ClusterWorkspace(), B = new ClusterWorkspace();
       loadParticles(A, p, n);
