@@ -2,7 +2,7 @@
 // uploads a generated file through the file picker, watches it processed, reads its counts, plane and jets,
 // meets the duplicate offer, deletes a copy, sees why a broken file failed; a script lists samples with an API
 // token from the profile; a viewer gets no upload or delete controls. Screenshots go to tests/artifacts/.
-import { mkdtempSync, rmSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
@@ -166,11 +166,20 @@ describe('samples in a browser', () => {
     await page.setViewportSize({ width: 1280, height: 900 });
   });
 
-  it('offers the existing sample for the same file, processes it again on request, and deletes the copy', async () => {
+  it('offers the existing sample for the same dropped file, processes it again on request, and deletes the copy', async () => {
     const { page } = browser;
     await page.goto(`${server.baseUrl}/samples/new?studyId=${studyId}`);
     const form = page.getByRole('form', { name: 'Upload a sample' });
-    await form.getByLabel('Particle file').setInputFiles(sampleFile);
+    // This time the file is dropped on the page rather than picked.
+    const dropped = await page.evaluateHandle(
+      ({ text, name }) => {
+        const transfer = new DataTransfer();
+        transfer.items.add(new File([text], name));
+        return transfer;
+      },
+      { text: readFileSync(sampleFile, 'utf8'), name: path.basename(sampleFile) },
+    );
+    await form.getByText('Drop a particle file here').dispatchEvent('drop', { dataTransfer: dropped });
     await expect.poll(() => form.getByLabel('Sample name').inputValue()).toBe(SPEC.name);
     await form.getByLabel('Jet radius R').fill(String(SPEC.settings.R));
     await form.getByRole('button', { name: 'Upload and process' }).click();
