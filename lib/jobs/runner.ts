@@ -212,6 +212,10 @@ export function jobRunner(): Promise<JobRunner> {
     const runner = new JobRunner(readSampleConfig(), sampleStorage(), jobWorkerFile());
     await runner.start();
     return runner;
-  })();
+  })().catch((error: unknown) => {
+    // Not kept: the next use tries again.
+    delete holder[processWideKey];
+    throw error;
+  });
   return holder[processWideKey];
 }

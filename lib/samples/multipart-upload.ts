@@ -97,6 +97,8 @@ export async function receiveUpload(request: Request, options: ReceiveOptions): 
     storage,
     // Keep the name as sent, so that a name with path separators is refused rather than silently shortened.
     preservePath: true,
+    // Browsers and curl send file names as UTF-8 bytes.
+    defParamCharset: 'utf8',
     limits: { fileSize: options.maxBytes, files: 1, fields: MAX_FIELDS, fieldSize: MAX_FIELD_BYTES },
     fileFilter(req, file, accept) {
       options.beforeFile({ ...req.body }, file.originalname).then(() => accept(null, true), accept);

@@ -20,6 +20,8 @@ export interface TestServer {
   databasePath: string;
   /** The demo accounts the first start made: the site admin and the two members. */
   credentials: { admin: DemoAccount; members: DemoAccount[] };
+  /** Process id of the server (`next start`), e.g. to read its memory use. */
+  pid: number;
   /** What the server printed so far, for failure messages. */
   output(): string;
   /** Stops the server and removes its storage. */
@@ -123,6 +125,7 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
     storageDir,
     databasePath: config.databasePath,
     credentials: { admin, members: accounts.filter((account) => account !== admin) },
+    pid: child.pid!,
     output: () => printed,
     stop,
     kill,

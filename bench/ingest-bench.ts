@@ -1,0 +1,214 @@
+// Ingest benchmark, end to end through the server: a generated file of events (lib/physics/test-events.ts via
+// bench/generate-inputs.ts) is first run through the command line engine for reference, then uploaded to a real
+// server (the built app in $NEXT_DIST_DIR under `next start`) by curl with a personal API token, polled until
+// processed, and its plane asked for. Prints events/s end to end, the ratio to the command line, the time until the first plane is served, and the
+// server's peak memory (its whole process tree, worker threads included: they share the process).
+//
+//   npm run bench:ingest [-- --events 2000] [-- --particles 300] [-- --threads N]
+//
+// Goals (issue 4): end to end within 1.5× the command line's time on the same threads; server memory < 600 MB.
+import { execFileSync, spawn, spawnSync } from 'node:child_process';
+import { existsSync, readFileSync, readdirSync, statSync } from 'node:fs';
+import { loadavg } from 'node:os';
+import path from 'node:path';
+import { parseArgs } from 'node:util';
+import { readSampleConfig } from '../lib/samples/config';
+import { signIn, startTestServer, type TestServer } from '../tests/support/server';
+
+const ROOT = path.resolve(__dirname, '..');
+const CLI = path.join(ROOT, 'dist/engine/cli.js');
+const GENERATOR = path.join(ROOT, 'bench/generate-inputs.ts');
+const GOAL_RATIO = 1.5;
+const GOAL_MEMORY_MB = 600;
+
+const { values: args } = parseArgs({
+  options: {
+    events: { type: 'string', default: '20000' },
+    particles: { type: 'string', default: '300' },
+    threads: { type: 'string' },
+  },
+});
+const events = Number(args.events);
+const particles = Number(args.particles);
+const threads = args.threads ? Number(args.threads) : readSampleConfig().jobThreads;
+for (const [name, value] of Object.entries({ events, particles, threads })) {
+  if (!Number.isInteger(value) || value < 1) throw new Error(`--${name} must be a whole number >= 1 (got ${value})`);
+}
+
+function log(text: string): void {
+  process.stderr.write(`${text}\n`);
+}
+
+const seconds = (ms: number) => `${(ms / 1000).toFixed(2)} s`;
+const rate = (count: number, ms: number) => `${Math.round(count / (ms / 1000)).toLocaleString('en')}/s`;
+
+/** The input file, generated once and reused while it is newer than its generator. */
+function inputFile(): string {
+  const file = path.join(ROOT, 'bench/out', `events-${particles}-${events}.jsonl`);
+  if (!existsSync(file) || statSync(file).mtimeMs < statSync(GENERATOR).mtimeMs) {
+    log(`generating ${path.relative(ROOT, file)} (${events} events of about ${particles} particles)…`);
+    const args = ['--kind', 'events', '--count', String(events), '--n', String(particles), '--seed', '20240', '--out', file];
+    execFileSync(process.execPath, ['--import', 'tsx', GENERATOR, ...args], { stdio: 'inherit', cwd: ROOT });
+  }
+  return file;
+}
+
+/** Prints the process's CPU time (all threads) on its last line of stderr when it exits. */
+const CPU_REPORT = `data:text/javascript,process.on('exit',()=>{const u=process.resourceUsage();process.stderr.write('cpu '+(u.userCPUTime+u.systemCPUTime)/1e3+'\\n')})`;
+
+/** The command line on the same file and threads; wall time of the whole process, as for the server. */
+function runCli(file: string): { ms: number; cpuMs: number; jets: number } {
+  const started = performance.now();
+  const command = ['--import', CPU_REPORT, CLI, file, '--threads', String(threads), '--out', '/dev/null'];
+  const run = spawnSync(process.execPath, command, { encoding: 'utf8' });
+  const ms = performance.now() - started;
+  if (run.status !== 0) throw new Error(`the command line failed: ${run.stderr}`);
+  const jets = Number(/jets ([\d,]+)/.exec(run.stderr)?.[1].replace(/,/g, ''));
+  return { ms, cpuMs: Number(/^cpu ([\d.]+)$/m.exec(run.stderr)?.[1]), jets };
+}
+
+/** CPU time of a process so far (all its threads), from /proc, in ms. */
+function cpuMs(pid: number): number {
+  const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
+  return ((Number(fields[11]) + Number(fields[12])) * 1000) / 100;
+}
+
+/** Resident memory of a process and all its descendants, in kB, from /proc. */
+function treeKb(pid: number): number {
+  const children = new Map<number, number[]>();
+  for (const name of readdirSync('/proc')) {
+    if (!/^\d+$/.test(name)) continue;
+    try {
+      const parent = Number(/^PPid:\s+(\d+)/m.exec(readFileSync(`/proc/${name}/status`, 'utf8'))?.[1]);
+      children.set(parent, [...(children.get(parent) ?? []), Number(name)]);
+    } catch {
+      // Gone meanwhile.
+    }
+  }
+  let total = 0;
+  for (const stack = [pid]; stack.length > 0; ) {
+    const current = stack.pop()!;
+    try {
+      total += Number(/^VmRSS:\s+(\d+)/m.exec(readFileSync(`/proc/${current}/status`, 'utf8'))?.[1] ?? 0);
+    } catch {
+      continue;
+    }
+    stack.push(...(children.get(current) ?? []));
+  }
+  return total;
+}
+
+function peakKb(pid: number): number {
+  return Number(/^VmHWM:\s+(\d+)/m.exec(readFileSync(`/proc/${pid}/status`, 'utf8'))?.[1] ?? 0);
+}
+
+async function waitForJobs(server: TestServer, token: string, until: (samples: any[]) => boolean): Promise<any[]> {
+  for (;;) {
+    const response = await fetch(`${server.baseUrl}/api/samples`, { headers: { authorization: `Bearer ${token}` } });
+    const { samples } = await response.json();
+    if (until(samples)) return samples;
+    await new Promise((resolve) => setTimeout(resolve, 100));
+  }
+}
+
+/**
+ * Uploads as a script would, with curl (as in the README): Node's own fetch spends more CPU building the multipart
+ * body than the server spends receiving it, and the two share the machine's cores.
+ */
+async function curlUpload(server: TestServer, token: string, file: string): Promise<any> {
+  const curl = spawn('curl', [
+    '--silent',
+    '--show-error',
+    '--header',
+    `Authorization: Bearer ${token}`,
+    '--form',
+    'studyId=1',
+    '--form',
+    'name=Ingest benchmark',
+    '--form',
+    `file=@${file}`,
+    '--write-out',
+    '\\n%{http_code}',
+    `${server.baseUrl}/api/samples/upload`,
+  ]);
+  let output = '';
+  curl.stdout.on('data', (chunk) => (output += chunk));
+  curl.stderr.on('data', (chunk) => (output += chunk));
+  const code = await new Promise<number | null>((resolve, reject) => {
+    curl.on('error', (error) => reject(new Error(`cannot run curl (is it installed?): ${error.message}`)));
+    curl.on('close', resolve);
+  });
+  const [body, status] = [output.slice(0, output.lastIndexOf('\n')), output.slice(output.lastIndexOf('\n') + 1)];
+  if (code !== 0 || status !== '202') throw new Error(`the upload failed (curl ${code}, HTTP ${status}): ${body}`);
+  return JSON.parse(body);
+}
+
+async function main(): Promise<void> {
+  if (!existsSync(CLI)) throw new Error('the engine is not built: run npm run build:engine');
+  const file = inputFile();
+  const size = statSync(file).size;
+  log(`input ${path.relative(ROOT, file)}: ${(size / 1048576).toFixed(0)} MB, ${events} events; ${threads} thread(s)`);
+
+  const loadAtStart = loadavg()[0].toFixed(1);
+  log('command line…');
+  const cli = runCli(file);
+
+  log('server…');
+  const server = await startTestServer({ env: { SPLITFIELD_JOB_THREADS: String(threads) } });
+  let peakTreeKb = 0;
+  const sampler = setInterval(() => (peakTreeKb = Math.max(peakTreeKb, treeKb(server.pid))), 200);
+  try {
+    const { email, password } = server.credentials.admin;
+    const admin = await signIn(server.baseUrl, email, password);
+    const token = (await admin.post('/api/tokens', { name: 'ingest benchmark' })).body.secret as string;
+    const auth = { authorization: `Bearer ${token}` };
+    // The demo samples of the first start are processed before the clock starts.
+    await waitForJobs(server, token, (samples) => samples.every((sample) => !['queued', 'running'].includes(sample.state)));
+
+    const cpuBefore = cpuMs(server.pid);
+    const started = performance.now();
+    const body = await curlUpload(server, token, file);
+    const uploadMs = performance.now() - started;
+    const id = body.sample.id as number;
+    const [sample] = await waitForJobs(server, token, (samples) => {
+      const mine = samples.find((candidate) => candidate.id === id);
+      return !['queued', 'running'].includes(mine.state);
+    }).then((samples) => samples.filter((candidate) => candidate.id === id));
+    const doneMs = performance.now() - started;
+    const serverCpuMs = cpuMs(server.pid) - cpuBefore;
+    if (sample.state !== 'done') throw new Error(`the sample ended ${sample.state}: ${JSON.stringify(sample)}`);
+    const plane = await fetch(`${server.baseUrl}/api/samples/${id}/plane`, { headers: auth });
+    await plane.arrayBuffer();
+    const planeMs = performance.now() - started;
+    if (plane.status !== 200) throw new Error(`the plane answered ${plane.status}`);
+    clearInterval(sampler);
+    peakTreeKb = Math.max(peakTreeKb, treeKb(server.pid));
+    const serverPeakKb = peakKb(server.pid);
+
+    const ratio = doneMs / cli.ms;
+    const memoryMb = Math.max(peakTreeKb, serverPeakKb) / 1024;
+    const { timings } = (await (await fetch(`${server.baseUrl}/api/samples/${id}`, { headers: auth })).json()).sample.provenance;
+    const lines = [
+      `ingest benchmark: ${events} events of ~${particles} particles (${(size / 1048576).toFixed(0)} MB), ${threads} thread(s)`,
+      `  command line:   ${seconds(cli.ms)}  ${rate(events, cli.ms)} events  (${cli.jets} jets)`,
+      `  server, end to end (upload + queue + processing): ${seconds(doneMs)}  ${rate(events, doneMs)} events  (${sample.counts.jets} jets)`,
+      `    of which upload ${seconds(uploadMs)}, processing job ${seconds(timings.processingSeconds * 1000)}`,
+      `  ratio server / command line (time): ${ratio.toFixed(2)}×  goal ≤ ${GOAL_RATIO}×  ${ratio <= GOAL_RATIO ? 'met' : 'MISSED'}`,
+      `  CPU time: command line ${seconds(cli.cpuMs)}, server ${seconds(serverCpuMs)} (${(serverCpuMs / cli.cpuMs).toFixed(2)}×; ` +
+        `less sensitive than wall time to other load; load average at start ${loadAtStart})`,
+      `  first plane served ${seconds(planeMs)} after the upload started (${seconds(planeMs - doneMs)} after done)`,
+      `  server peak memory: ${memoryMb.toFixed(0)} MB (process tree RSS ${(peakTreeKb / 1024).toFixed(0)} MB, ` +
+        `VmHWM ${(serverPeakKb / 1024).toFixed(0)} MB)  goal < ${GOAL_MEMORY_MB} MB  ${memoryMb < GOAL_MEMORY_MB ? 'met' : 'MISSED'}`,
+    ];
+    if (sample.counts.jets !== cli.jets) lines.push(`  WARNING: the server kept ${sample.counts.jets} jets, the command line ${cli.jets}`);
+    process.stdout.write(`${lines.join('\n')}\n`);
+  } finally {
+    clearInterval(sampler);
+    await server.stop();
+  }
+}
+
+main().catch((error) => {
+  process.stderr.write(`ingest benchmark: ${error?.stack ?? error}\n`);
+  process.exit(1);
+});
