@@ -25,14 +25,25 @@ function FactGroup({ title, facts }: { title: string; facts: Fact[] }) {
   );
 }
 
-/** Free-form header fields (JSON values) as text. */
+/** A free-form header value: text as it is, an object as one line a field, anything deeper as JSON. */
+function MetadataValue({ value, nested = false }: { value: unknown; nested?: boolean }) {
+  if (typeof value === 'string') return <>{value}</>;
+  if (!nested && value && typeof value === 'object' && !Array.isArray(value)) {
+    return (
+      <ul>
+        {Object.entries(value).map(([key, inner]) => (
+          <li key={key}>
+            <span className="text-ink-soft">{key}:</span> <MetadataValue value={inner} nested />
+          </li>
+        ))}
+      </ul>
+    );
+  }
+  return <code className="break-all font-mono text-xs">{JSON.stringify(value)}</code>;
+}
+
 function metadataFacts(metadata: Record<string, unknown>): Fact[] {
-  return Object.entries(metadata).map(([key, value]) => [
-    key,
-    <code key={key} className="font-mono text-xs">
-      {typeof value === 'string' ? value : JSON.stringify(value)}
-    </code>,
-  ]);
+  return Object.entries(metadata).map(([key, value]) => [key, <MetadataValue key={key} value={value} />]);
 }
 
 function settingsFacts(settings: SampleSettings, tree: SampleProvenance['tree']): Fact[] {
@@ -46,8 +57,7 @@ function settingsFacts(settings: SampleSettings, tree: SampleProvenance['tree'])
   ];
 }
 
-const seconds = (value: number | null) => (value === null ? null : `${value.toFixed(1)} s`);
-const when = (iso: string | null) => (iso ? formatDateTime(iso) : null);
+const seconds = (value: number | null) => (value === null ? '–' : `${value.toFixed(1)} s`);
 
 /** Where the sample came from and how it was made, as the server recorded it, with the JSON download. */
 export function ProvenancePanel({ provenance }: { provenance: SampleProvenance }) {
@@ -72,8 +82,8 @@ export function ProvenancePanel({ provenance }: { provenance: SampleProvenance }
           facts={[
             ['Software', `${provenance.software.name} ${provenance.software.version ?? ''}`.trim()],
             ['Uploaded by', provenance.uploadedBy?.name ?? 'a removed account'],
-            ['Uploaded', `${formatDateTime(timings.uploadedAt)} (transfer ${seconds(timings.uploadSeconds)})`],
-            ['Processed', timings.finishedAt && `${when(timings.startedAt)} – ${when(timings.finishedAt)} (${seconds(timings.processingSeconds)})`],
+            ['Uploaded', `${formatDateTime(timings.uploadedAt)}, sent in ${seconds(timings.uploadSeconds)}`],
+            ['Processed', timings.finishedAt && `${formatDateTime(timings.finishedAt)}, in ${seconds(timings.processingSeconds)}`],
           ]}
         />
         <a href={`/api/samples/${provenance.sample.id}/provenance`} download className={buttonClass('secondary', 'sm')}>
