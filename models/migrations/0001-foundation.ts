@@ -1,16 +1,7 @@
 import { DataTypes } from 'sequelize';
 import { SITE_SETTINGS_ID } from '../site-setting';
+import { id, reference, timestamps } from './column-helpers';
 import type { SchemaMigration } from './types';
-
-const timestamps = {
-  created_at: { type: DataTypes.DATE, allowNull: false },
-  updated_at: { type: DataTypes.DATE, allowNull: false },
-};
-const id = { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true };
-
-function reference(table: string, onDelete: 'CASCADE' | 'SET NULL') {
-  return { references: { model: table, key: 'id' }, onDelete, onUpdate: 'CASCADE' };
-}
 
 /** Users, site settings, studies with their members and entries. */
 export const foundation: SchemaMigration = {

@@ -1,15 +1,6 @@
 import { DataTypes } from 'sequelize';
+import { id, reference, timestamps } from './column-helpers';
 import type { SchemaMigration } from './types';
-
-const timestamps = {
-  created_at: { type: DataTypes.DATE, allowNull: false },
-  updated_at: { type: DataTypes.DATE, allowNull: false },
-};
-const id = { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true };
-
-function reference(table: string, onDelete: 'CASCADE' | 'SET NULL') {
-  return { references: { model: table, key: 'id' }, onDelete, onUpdate: 'CASCADE' };
-}
 
 /** Uploaded samples with their processing state and provenance, their cached planes, and personal API tokens. */
 export const samples: SchemaMigration = {
