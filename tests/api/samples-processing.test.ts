@@ -25,7 +25,9 @@ let studyId: number;
 let work: string;
 
 beforeAll(async () => {
-  ({ server } = await serverWithAdmin());
+  // Two threads: the job's pipeline then runs its own pool of worker threads, and must still agree with the
+  // command line on one.
+  ({ server } = await serverWithAdmin({ env: { SPLITFIELD_JOB_THREADS: '2' } }));
   owner = await newPerson(server, 'owner');
   outsider = await newPerson(server, 'outsider');
   studyId = await newStudy(owner.client, 'Processing study');
