@@ -16,8 +16,8 @@ whether that is visible where quark-like and gluon-like jets differ most.
 
 **Plan**
 
-1. Generate two simulated samples: a *quark-enriched* one (jets recoiling against a boson) and a
-   *gluon-enriched* one (dijets), both at 200–400 GeV jet pt, anti-kt R = 0.4.
+1. Generate two samples of 500 GeV jets with R = 0.8 from our leading-order emission generator: a
+   *quark-like* one and a *gluon-like* one (both are in the Samples panel).
 2. Re-cluster every jet with Cambridge/Aachen and follow the harder branch: each primary splitting gives
    one point at (ln 1/Δ, ln kt).
 3. Compare the two per-jet densities, then find the bins that separate them best.
