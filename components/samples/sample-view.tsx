@@ -20,6 +20,7 @@ import { SampleCountsPanel } from './sample-counts';
 import { SampleHeading } from './sample-heading';
 import { isProcessing } from './sample-state';
 import type { SampleDetail } from '@/lib/samples/shapes';
+import { useDocumentTitle } from '@/components/use-document-title';
 
 /** How often a queued or running sample asks for news. */
 const POLL_MS = 1000;
@@ -32,6 +33,7 @@ export function SampleView({ sampleId }: { sampleId: string }) {
   const { data, error, mutate } = useSWR<{ sample: SampleDetail }, ApiError>(url, {
     refreshInterval: (latest) => (latest && isProcessing(latest.sample) ? POLL_MS : 0),
   });
+  useDocumentTitle(data?.sample.name);
 
   if (error) {
     return (

@@ -14,12 +14,14 @@ import { EntryList } from './entry-list';
 import { MembersPanel } from './members-panel';
 import { studyPermissions } from './permissions';
 import { StudyHeading } from './study-heading';
+import { useDocumentTitle } from '@/components/use-document-title';
 
 /** A study: its heading and entries, with the members beside them (below them on narrow screens). */
 export function StudyView({ studyId }: { studyId: string }) {
   const { me } = useMe();
   const router = useRouter();
   const { data, error, mutate } = useSWR<StudyDetail, ApiError>(`/api/studies/${studyId}`);
+  useDocumentTitle(data?.study.title);
 
   if (error) {
     return (

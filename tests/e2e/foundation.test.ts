@@ -91,6 +91,8 @@ describe('the foundation in a browser', () => {
     studyPath = new URL(page.url()).pathname;
     await page.getByRole('heading', { level: 1, name: STUDY_TITLE }).waitFor();
     expect(await page.getByText('No entries yet').isVisible()).toBe(true);
+    // The browser tab is named after the study, not just the kind of page.
+    await page.waitForFunction((title) => document.title === `${title} · Splitfield`, STUDY_TITLE);
   });
 
   it('adds a Markdown note whose HTML stays inert text', async () => {
