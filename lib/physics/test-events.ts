@@ -46,7 +46,27 @@ function rngOf(seed: number | Rng): Rng {
 /** Hadron-like masses (GeV) used when particles are massive: π±, K±, p, and a few heavier "clusters". */
 const MASSES = [0.13957, 0.13957, 0.13957, 0.493677, 0.938272, 1.5, 3.0];
 
-export interface SprayOptions {
+/** A particle mass: one of MASSES with probability `massiveFraction`, else 0. */
+function mass(rng: Rng, massiveFraction: number): number {
+  return rng.next() < massiveFraction ? MASSES[rng.int(0, MASSES.length - 1)] : 0;
+}
+
+/** A spray axis azimuth: uniform, or within ±halfWidth of φ = 0 ≡ 2π when nearWrap. */
+function axisPhi(rng: Rng, nearWrap: boolean | undefined, halfWidth: number): number {
+  return nearWrap ? (rng.uniform(-halfWidth, halfWidth) + TWO_PI) % TWO_PI : rng.uniform(0, TWO_PI);
+}
+
+/** Options of sprays, events and jets. */
+export interface ShapeOptions {
+  /** Angular scale of the sprays (distance of a typical particle from the axis). Default 0.15 (jets: 0.12). */
+  spread?: number;
+  /** Fraction of massive particles (0..1). Default 0. */
+  massiveFraction?: number;
+  /** Place the spray axes close to φ = 0 ≡ 2π, so jets straddle the wrap (events and jets). Default false. */
+  nearPhiWrap?: boolean;
+}
+
+export interface SprayOptions extends ShapeOptions {
   /** Number of particles. */
   n: number;
   /** Total pt (GeV) of the spray (approximately: particles are massive or not). */
@@ -54,10 +74,6 @@ export interface SprayOptions {
   /** Axis rapidity and azimuth. */
   y: number;
   phi: number;
-  /** Angular scale of the spray (distance of a typical particle from the axis). Default 0.15. */
-  spread?: number;
-  /** Fraction of massive particles (0..1). Default 0. */
-  massiveFraction?: number;
 }
 
 /**
@@ -84,12 +100,11 @@ function spray(rng: Rng, o: SprayOptions, out: Float64Array, at: number): void {
     const y = o.y + r * Math.cos(th);
     let phi = o.phi + r * Math.sin(th);
     phi -= TWO_PI * Math.floor(phi / TWO_PI);
-    const m = rng.next() < mf ? MASSES[rng.int(0, MASSES.length - 1)] : 0;
-    fromPtYPhiM(ptI, y, phi, m, out, 4 * (at + i));
+    fromPtYPhiM(ptI, y, phi, mass(rng, mf), out, 4 * (at + i));
   }
 }
 
-export interface EventOptions {
+export interface EventOptions extends ShapeOptions {
   /** Total number of particles (jets + background). */
   nParticles: number;
   /** Number of jets (collimated sprays). Default 3. */
@@ -100,16 +115,10 @@ export interface EventOptions {
   jetPt?: [number, number];
   /** Spray axes have |y| below this. Default 2.2. */
   jetYMax?: number;
-  /** Angular scale of the sprays. Default 0.15. */
-  spread?: number;
   /** Background particles are uniform in |y| < this. Default 4. */
   backgroundYMax?: number;
   /** Mean background pt (GeV; exponential above 0.2). Default 1. */
   backgroundPt?: number;
-  /** Fraction of massive particles. Default 0. */
-  massiveFraction?: number;
-  /** Place the spray axes close to φ = 0 ≡ 2π, so jets straddle the wrap. Default false. */
-  nearPhiWrap?: boolean;
 }
 
 /** One event of N particles: a few collimated sprays plus soft uniform background. px,py,pz,E interleaved. */
@@ -127,7 +136,7 @@ export function generateEvent(seed: number | Rng, o: EventOptions): Float64Array
   let at = 0;
   for (let j = 0; j < nJets; j++) {
     const nj = Math.floor(nInJets / nJets) + (j < nInJets % nJets ? 1 : 0);
-    const phi = o.nearPhiWrap ? (rng.uniform(-0.15, 0.15) + TWO_PI) % TWO_PI : rng.uniform(0, TWO_PI);
+    const phi = axisPhi(rng, o.nearPhiWrap, 0.15);
     spray(rng, {
       n: nj,
       pt: ptLo * Math.pow(ptHi / ptLo, rng.next()),
@@ -139,7 +148,7 @@ export function generateEvent(seed: number | Rng, o: EventOptions): Float64Array
     at += nj;
   }
   for (; at < N; at++) {
-    const m = rng.next() < mf ? MASSES[rng.int(0, MASSES.length - 1)] : 0;
+    const m = mass(rng, mf);
     fromPtYPhiM(0.2 + rng.exponential(bgPt), rng.uniform(-bgY, bgY), rng.uniform(0, TWO_PI), m, out, 4 * at);
   }
   // Shuffle so that jets' particles are not contiguous (Fisher–Yates on particles).
@@ -154,7 +163,7 @@ export function generateEvent(seed: number | Rng, o: EventOptions): Float64Array
   return out;
 }
 
-export interface JetOptions {
+export interface JetOptions extends ShapeOptions {
   /** Number of constituents. */
   nConstituents: number;
   /** Jet pt (GeV). Default: uniform in [100, 1000]. */
@@ -162,9 +171,6 @@ export interface JetOptions {
   /** Axis; defaults: y uniform in ±2, φ uniform (or near 0 with nearPhiWrap). */
   y?: number;
   phi?: number;
-  spread?: number;
-  massiveFraction?: number;
-  nearPhiWrap?: boolean;
 }
 
 /** One pre-clustered jet: a spray of nConstituents particles. px,py,pz,E interleaved. */
@@ -172,7 +178,7 @@ export function generateJet(seed: number | Rng, o: JetOptions): Float64Array {
   const rng = rngOf(seed);
   const n = o.nConstituents;
   const out = new Float64Array(4 * n);
-  const phi = o.phi ?? (o.nearPhiWrap ? (rng.uniform(-0.1, 0.1) + TWO_PI) % TWO_PI : rng.uniform(0, TWO_PI));
+  const phi = o.phi ?? axisPhi(rng, o.nearPhiWrap, 0.1);
   spray(rng, {
     n,
     pt: o.pt ?? rng.uniform(100, 1000),
