@@ -19,6 +19,12 @@ export async function serverWithAdmin(options?: TestServerOptions): Promise<{ se
   return { server, admin: await signIn(server.baseUrl, email, password) };
 }
 
+/** A fresh server, its demo admin and a new member account labelled 'owner', both signed in. */
+export async function serverWithOwner(options?: TestServerOptions): Promise<{ server: TestServer; admin: Client; owner: Person }> {
+  const { server, admin } = await serverWithAdmin(options);
+  return { server, admin, owner: await newPerson(server, 'owner') };
+}
+
 let made = 0;
 
 /** A new member account made through open sign-up, not signed in. */

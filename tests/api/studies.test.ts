@@ -1,15 +1,12 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { STUDY_TITLE_MAX } from '@/models/vocabulary';
 import type { Client, TestServer } from '../support/server';
-import { addMember, newNote, newPerson, newStudy, serverWithAdmin, type Person } from './fixtures';
+import { addMember, newNote, newPerson, newStudy, serverWithOwner, type Person } from './fixtures';
 
-let server: TestServer;
-let admin: Client;
-let owner: Person;
+let server: TestServer, admin: Client, owner: Person;
 
 beforeAll(async () => {
-  ({ server, admin } = await serverWithAdmin());
-  owner = await newPerson(server, 'owner');
+  ({ server, admin, owner } = await serverWithOwner());
 });
 afterAll(() => server?.stop());
 

@@ -4,16 +4,13 @@ import { createHash } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openDatabase } from '@/lib/db';
 import { Client, type TestServer } from '../support/server';
-import { newPerson, newStudy, serverWithAdmin, type Person } from './fixtures';
+import { newPerson, newStudy, serverWithOwner, type Person } from './fixtures';
 import { isFinished, jetsFileText, upload } from './sample-fixtures';
 
-let server: TestServer;
-let admin: Client;
-let owner: Person;
+let server: TestServer, admin: Client, owner: Person;
 
 beforeAll(async () => {
-  ({ server, admin } = await serverWithAdmin());
-  owner = await newPerson(server, 'owner');
+  ({ server, admin, owner } = await serverWithOwner());
 });
 afterAll(() => server?.stop());
 
