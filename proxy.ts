@@ -2,8 +2,8 @@
 // themselves and answer 401 as JSON (and uploads must stream past this layer untouched).
 import { getToken } from 'next-auth/jwt';
 import { NextResponse, type NextRequest } from 'next/server';
-import { isPublicPage, signInRedirect } from '@/lib/auth-paths';
-import { authSecret } from '@/lib/auth-secret';
+import { isPublicPage, signInRedirect } from '@/lib/auth/paths';
+import { authSecret } from '@/lib/auth/secret';
 
 export async function proxy(request: NextRequest) {
   if (isPublicPage(request.nextUrl.pathname)) return NextResponse.next();

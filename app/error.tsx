@@ -4,7 +4,7 @@ import { useEffect } from 'react';
 import { Button } from '@/components/button';
 import { Notice } from '@/components/notice';
 import { StatusPage } from '@/components/status-page';
-import { messageOf } from '@/lib/fetcher';
+import { messageOf } from '@/lib/api/client';
 
 /** Shown when a page fails unexpectedly while rendering. */
 export default function PageError({ error, retry }: { error: unknown; retry: () => void }) {

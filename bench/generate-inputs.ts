@@ -1,10 +1,11 @@
 // Writes a benchmark input file in the splitfield-particles format (JSON Lines, streamed, full double precision)
-// from the seeded generators of lib/physics/test-events.ts.
+// from the seeded generators of tests/support/test-events.ts.
 //   node bench/out/generate-inputs.cjs --kind jets|events --count N --n PARTICLES --seed S --out FILE
 import { createWriteStream } from 'node:fs';
 import { once } from 'node:events';
 import { parseArgs } from 'node:util';
-import { Rng, generateEvent, generateJet } from '../lib/physics/test-events';
+import { generateEvent, generateJet } from '../tests/support/test-events';
+import { Rng } from '../lib/physics/random';
 
 async function main(): Promise<void> {
   const { values: v } = parseArgs({

@@ -1,4 +1,4 @@
-// Ingest benchmark, end to end through the server: a generated file of events (lib/physics/test-events.ts via
+// Ingest benchmark, end to end through the server: a generated file of events (tests/support/test-events.ts via
 // bench/generate-inputs.ts) is first run through the command line engine for reference, then uploaded to a real
 // server (the built app in $NEXT_DIST_DIR under `next start`) by curl with a personal API token, polled until
 // processed, and its plane asked for. Prints events/s end to end, the ratio to the command line, the time until the first plane is served, and the

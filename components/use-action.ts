@@ -1,7 +1,7 @@
 'use client';
 
 import { useCallback, useState } from 'react';
-import { messageOf } from '@/lib/fetcher';
+import { messageOf } from '@/lib/api/client';
 
 /**
  * Runs an async action (usually an API call) and keeps its pending state and the error message to show.

@@ -1,6 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from 'sequelize';
 import type { NonAttribute, Sequelize } from 'sequelize';
-import type { SampleCounts, SampleError, SampleInput, SampleProgress, SampleSettings } from '@/lib/samples/shapes';
+import type { SampleCounts, SampleError, SampleInput, SampleProgress, SampleSettings } from './sample-fields';
 import { idColumn, tableOptions, timestampColumns } from './columns';
 import type { Study } from './study';
 import type { User } from './user';

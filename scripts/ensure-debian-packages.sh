@@ -1,12 +1,13 @@
 #!/usr/bin/env bash
-# Installs the Debian packages the tests use, when missing: chromium (browser tests) and FastJet
-# (the reference library of the physics tests; never used at run time).
+# Installs the Debian packages the tests use, when missing: chromium (browser tests), FastJet (the reference
+# library of the physics tests; never used at run time) and HepMC3 (writes reference event files in that format).
 set -euo pipefail
 need=()
 [ -x /usr/bin/chromium ] || need+=(chromium)
 [ -f /usr/include/fastjet/ClusterSequence.hh ] || need+=(libfastjet-dev)
 [ -f /usr/include/fastjet/tools/Recluster.hh ] || need+=(libfastjettools-dev)
 [ -f /usr/include/nlohmann/json.hpp ] || need+=(nlohmann-json3-dev)
+[ -f /usr/include/HepMC3/WriterAscii.h ] || need+=(libhepmc3-dev)
 if [ ${#need[@]} -eq 0 ]; then echo "all present"; exit 0; fi
 if [ "$(id -u)" -ne 0 ]; then
   echo "Missing Debian packages: ${need[*]}" >&2

@@ -2,10 +2,10 @@
 // storage folder, session secret, schema migrations, and the demo data on the very first start.
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
-import { ensureAuthSecret } from '../lib/auth-secret';
-import type { Environment, ServerConfig } from '../lib/config';
-import { openDatabase } from '../lib/db';
-import { seedOnce, type DemoAccount } from '../lib/seed';
+import { ensureAuthSecret } from '../lib/auth/secret';
+import type { Environment, ServerConfig } from '../lib/config/environment';
+import { openDatabase } from '../lib/db/connection';
+import { seedOnce, type DemoAccount } from '../lib/demo/seed';
 import { migrateUp } from '../models/migrate';
 
 export interface PreparedStorage {

@@ -45,9 +45,9 @@ function publicUrl(host, port) {
   return `http://${name}:${port}`;
 }
 
-const { readConfig } = await tsImport('../lib/config.ts', import.meta.url);
+const { readConfig } = await tsImport('../lib/config/environment.ts', import.meta.url);
 const { prepareStorage } = await tsImport('./prepare-storage.ts', import.meta.url);
-const { demoCredentialsText, DEMO_CREDENTIALS_FILE } = await tsImport('../lib/seed.ts', import.meta.url);
+const { demoCredentialsText, DEMO_CREDENTIALS_FILE } = await tsImport('../lib/demo/seed.ts', import.meta.url);
 
 const config = readConfig();
 const prepared = await prepareStorage(config);

@@ -1,7 +1,7 @@
 'use client';
 
 import useSWR from 'swr';
-import { sendJson, type ApiError } from '@/lib/fetcher';
+import { sendJson, type ApiError } from '@/lib/api/client';
 import { Notice } from '../notice';
 import { Panel } from '../panel';
 import { useAction } from '../use-action';

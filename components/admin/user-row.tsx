@@ -1,6 +1,6 @@
 'use client';
 
-import { sendJson } from '@/lib/fetcher';
+import { sendJson } from '@/lib/api/client';
 import type { AdminUser, SiteRole } from '../api-types';
 import { Button } from '../button';
 import { inlineSelectClass } from '../fields';

@@ -1,7 +1,7 @@
 'use client';
 
 import useSWR from 'swr';
-import type { ApiError } from '@/lib/fetcher';
+import type { ApiError } from '@/lib/api/client';
 import type { AdminUser } from '../api-types';
 import { EmptyState } from '../empty-state';
 import { countOf } from '../format';

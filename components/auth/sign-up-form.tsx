@@ -2,7 +2,7 @@
 
 import { useRouter } from 'next/navigation';
 import useSWR from 'swr';
-import { sendJson, type ApiError } from '@/lib/fetcher';
+import { sendJson, type ApiError } from '@/lib/api/client';
 import { PASSWORD_MIN } from '@/models/vocabulary';
 import { ActionForm, field, SubmitButton } from '../action-form';
 import { TextField } from '../fields';

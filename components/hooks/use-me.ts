@@ -1,7 +1,7 @@
 'use client';
 
 import useSWR from 'swr';
-import type { ApiError } from '@/lib/fetcher';
+import type { ApiError } from '@/lib/api/client';
 import type { Me } from '../api-types';
 
 /** The signed-in user, from GET /api/me (shared by every component through swr's cache). */

@@ -2,7 +2,7 @@
 
 import { useState } from 'react';
 import useSWR from 'swr';
-import type { ApiError } from '@/lib/fetcher';
+import type { ApiError } from '@/lib/api/client';
 import type { PlaneView } from '@/lib/samples/shapes';
 import { EmptyState } from '../empty-state';
 import { LoadingBlock } from '../loading-block';

@@ -2,7 +2,7 @@
 
 import { useState } from 'react';
 import useSWR from 'swr';
-import { sendJson, type ApiError } from '@/lib/fetcher';
+import { sendJson, type ApiError } from '@/lib/api/client';
 import type { ApiTokenView as ApiToken } from '@/lib/samples/shapes';
 import { API_TOKEN_NAME_MAX } from '@/models/vocabulary';
 import { ActionForm, field, SubmitButton } from '../action-form';

@@ -1,6 +1,6 @@
 'use client';
 
-import { sendJson } from '@/lib/fetcher';
+import { sendJson } from '@/lib/api/client';
 import { PASSWORD_MIN } from '@/models/vocabulary';
 import { ActionForm, field, SubmitButton } from '../action-form';
 import { TextField } from '../fields';

@@ -1,4 +1,4 @@
-import type { SampleError } from '@/lib/samples/shapes';
+import type { SampleError } from '@/models/sample-fields';
 import { Panel } from '../panel';
 
 /** Why processing stopped: the reader's exact message (it names the line and particle) and what it means. */

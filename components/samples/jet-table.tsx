@@ -2,7 +2,7 @@
 
 import { useState } from 'react';
 import useSWR from 'swr';
-import type { ApiError } from '@/lib/fetcher';
+import type { ApiError } from '@/lib/api/client';
 import type { JetRowView as JetRow } from '@/lib/samples/shapes';
 import { Button } from '../button';
 import { LoadingBlock } from '../loading-block';

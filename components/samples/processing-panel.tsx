@@ -1,4 +1,5 @@
-import type { SampleDetail, SampleProgress } from '@/lib/samples/shapes';
+import type { SampleDetail } from '@/lib/samples/shapes';
+import type { SampleProgress } from '@/models/sample-fields';
 import { ConfirmButton } from '../confirm-button';
 import { Panel } from '../panel';
 import { formatBytes, formatCount, formatDuration } from './numbers';

@@ -2,7 +2,7 @@
 // (lib/samples/settings.ts), checked here too so that obvious mistakes show before the file is sent.
 
 import { defaultSettings, settingsInputSchema } from '@/lib/samples/settings';
-import type { SampleSettings } from '@/lib/samples/shapes';
+import type { SampleSettings } from '@/models/sample-fields';
 
 export const ALGORITHM_NAMES: Record<SampleSettings['jet']['algorithm'], string> = {
   antikt: 'anti-kt',

@@ -1,5 +1,6 @@
 import type { ReactNode } from 'react';
-import type { SampleProvenance, SampleSettings } from '@/lib/samples/shapes';
+import type { SampleProvenance } from '@/lib/samples/shapes';
+import type { SampleSettings } from '@/models/sample-fields';
 import { buttonClass } from '../button';
 import { formatDateTime } from '../format';
 import { Panel } from '../panel';

@@ -1,4 +1,4 @@
-import type { SampleCounts } from '@/lib/samples/shapes';
+import type { SampleCounts } from '@/models/sample-fields';
 import { Panel } from '../panel';
 import { formatCount } from './numbers';
 import { StatGrid } from './stat-grid';

@@ -2,7 +2,7 @@
 
 import { useRouter } from 'next/navigation';
 import useSWR from 'swr';
-import { sendJson, type ApiError } from '@/lib/fetcher';
+import { sendJson, type ApiError } from '@/lib/api/client';
 import { ConfirmButton } from '../confirm-button';
 import { EmptyState } from '../empty-state';
 import { useMe } from '../hooks/use-me';

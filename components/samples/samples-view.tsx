@@ -3,7 +3,7 @@
 import Link from 'next/link';
 import { useState } from 'react';
 import useSWR from 'swr';
-import type { ApiError } from '@/lib/fetcher';
+import type { ApiError } from '@/lib/api/client';
 import type { SampleSummary } from '@/lib/samples/shapes';
 import { Button, buttonClass } from '../button';
 import { EmptyState } from '../empty-state';

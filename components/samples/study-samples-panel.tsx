@@ -2,7 +2,7 @@
 
 import Link from 'next/link';
 import useSWR from 'swr';
-import type { ApiError } from '@/lib/fetcher';
+import type { ApiError } from '@/lib/api/client';
 import { buttonClass } from '../button';
 import { LoadingBlock } from '../loading-block';
 import { Notice } from '../notice';

@@ -1,6 +1,6 @@
 // Sends an upload with XMLHttpRequest, which (unlike fetch) reports how much of the body has gone out.
 
-import { ApiError } from '@/lib/fetcher';
+import { ApiError } from '@/lib/api/client';
 import type { SampleSummary } from '@/lib/samples/shapes';
 
 export type UploadAnswer = { sample: SampleSummary } | { duplicateOf: SampleSummary };

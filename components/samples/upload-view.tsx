@@ -3,7 +3,7 @@
 import Link from 'next/link';
 import { useRouter } from 'next/navigation';
 import { useRef, useState, type FormEvent } from 'react';
-import { messageOf } from '@/lib/fetcher';
+import { messageOf } from '@/lib/api/client';
 import { Button, buttonClass } from '../button';
 import { EmptyState } from '../empty-state';
 import { LoadingBlock } from '../loading-block';

@@ -1,7 +1,7 @@
 'use client';
 
 import useSWR from 'swr';
-import type { ApiError } from '@/lib/fetcher';
+import type { ApiError } from '@/lib/api/client';
 import type { StudySummary } from '../api-types';
 import { useMe } from '../hooks/use-me';
 import { studyPermissions } from '../study/permissions';

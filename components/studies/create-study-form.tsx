@@ -1,7 +1,7 @@
 'use client';
 
 import { useRouter } from 'next/navigation';
-import { sendJson } from '@/lib/fetcher';
+import { sendJson } from '@/lib/api/client';
 import { ActionForm, SubmitOrCancel } from '../action-form';
 import { Panel } from '../panel';
 import { readStudyFields, StudyFields } from './study-fields';

@@ -2,7 +2,7 @@
 
 import { useState } from 'react';
 import useSWR from 'swr';
-import type { ApiError } from '@/lib/fetcher';
+import type { ApiError } from '@/lib/api/client';
 import type { StudySummary } from '../api-types';
 import { Button } from '../button';
 import { EmptyState } from '../empty-state';

@@ -1,6 +1,6 @@
 'use client';
 
-import { sendJson } from '@/lib/fetcher';
+import { sendJson } from '@/lib/api/client';
 import { ActionForm, field, SubmitButton } from '../action-form';
 import { SelectField, TextField } from '../fields';
 import { RoleOptions } from './role-options';

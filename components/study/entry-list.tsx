@@ -1,7 +1,7 @@
 'use client';
 
 import { useState } from 'react';
-import { sendJson } from '@/lib/fetcher';
+import { sendJson } from '@/lib/api/client';
 import type { Entry } from '../api-types';
 import { Button } from '../button';
 import { EmptyState } from '../empty-state';

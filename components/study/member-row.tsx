@@ -1,6 +1,6 @@
 'use client';
 
-import { sendJson } from '@/lib/fetcher';
+import { sendJson } from '@/lib/api/client';
 import type { Member, StudyRole } from '../api-types';
 import { ConfirmButton } from '../confirm-button';
 import { inlineSelectClass } from '../fields';

@@ -1,6 +1,6 @@
 'use client';
 
-import { sendJson } from '@/lib/fetcher';
+import { sendJson } from '@/lib/api/client';
 import { ActionForm, SubmitOrCancel } from '../action-form';
 import { readStudyFields, StudyFields } from '../studies/study-fields';
 

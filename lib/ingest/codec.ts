@@ -3,7 +3,7 @@
 
 import type { JetResult, ProcessSettings, RecordResult } from '../physics/types';
 import type { PlainIngestError } from './errors';
-import type { RecordContext } from './record';
+import type { RecordContext } from './types';
 import type { RecordMeta } from './sink';
 import type { ParticleRecord } from './types';
 

@@ -5,7 +5,8 @@ import { IngestError } from './errors';
 import { validateParticlesHeader, type IngestHeader } from './header';
 import { jsonErrorOffset, lineAndColumn } from './json-locate';
 import { DEFAULT_MAX_LINE_BYTES, sizeText, type LineSource } from './lines';
-import { parseRecordLine, parseRecordObject, type RecordContext } from './record';
+import { parseRecordLine, parseRecordObject } from './record';
+import type { RecordContext } from './types';
 import { BaseReader } from './reader-base';
 import type { ParticleReader, ParticleRecord, RawLineBatch, RawLineSource, ReaderOptions } from './types';
 

@@ -6,7 +6,8 @@ import { processParticles } from '../physics/process';
 import type { ProcessSettings, RecordResult } from '../physics/types';
 import { IngestError } from './errors';
 import { parseHepMCEventInto } from './hepmc3-reader';
-import { ParticleScratch, parseRecordLineInto, type RecordContext } from './record';
+import { ParticleScratch, parseRecordLineInto } from './record';
+import type { RecordContext } from './types';
 import type { RecordMeta } from './sink';
 
 export interface LineBatchOutcome {

@@ -1,18 +1,12 @@
 // Fast validation of one splitfield-particles record (the hot path): JSON.parse has already run;
 // plain loops check every number, and particleProblem (fourvector.ts) checks the physics.
 
-import { fromPtYPhiM, particleProblem, toGeV, type EnergyUnit, type MomentumConvention } from '../physics/fourvector';
+import { fromPtYPhiM, particleProblem, toGeV } from '../physics/fourvector';
 import { IngestError, type IngestWhere } from './errors';
-import type { ParticleRecord } from './types';
+import type { ParticleRecord, RecordContext } from './types';
 
 const PX_NAMES = ['px', 'py', 'pz', 'E'];
 const PT_NAMES = ['pt', 'y', 'phi', 'm'];
-
-export interface RecordContext {
-  momentum: MomentumConvention;
-  energyUnit: EnergyUnit;
-  where: IngestWhere;
-}
 
 function show(v: unknown): string {
   let s: string;

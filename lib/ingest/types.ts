@@ -1,9 +1,9 @@
 // Shapes shared by the readers, the pipeline and the sinks. Reader output is format-agnostic:
 // px, py, pz, E in GeV whatever the file's convention and unit.
 
-import type { IngestError } from './errors';
+import type { EnergyUnit, MomentumConvention } from '../physics/fourvector';
+import type { IngestError, IngestWhere } from './errors';
 import type { IngestHeader } from './header';
-import type { RecordContext } from './record';
 
 export type { IngestHeader } from './header';
 
@@ -19,6 +19,13 @@ export interface ParticleRecord {
   pid?: Int32Array;
   /** Optional per-particle charges. */
   charge?: Float64Array;
+}
+
+/** How a record's numbers are read: the header's momentum convention and unit, and how errors name the place. */
+export interface RecordContext {
+  momentum: MomentumConvention;
+  energyUnit: EnergyUnit;
+  where: IngestWhere;
 }
 
 export interface ReaderOptions {

@@ -1,6 +1,6 @@
 // A failed job's first error as the sample keeps it: the engine's message (which names the line), and what it
 // means for the person who uploaded the file, in plain words.
-import type { SampleError } from '@/lib/samples/shapes';
+import type { SampleError } from '@/models/sample-fields';
 
 /** What crosses from the job's worker thread: an IngestError's code, message and line, or any other error's text. */
 export interface JobErrorReport {

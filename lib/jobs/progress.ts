@@ -1,6 +1,6 @@
 // A running job's progress as the API shows it: fraction of the upload read, counts, rates and time left.
 import type { PipelineProgress } from '@/lib/ingest/sink';
-import type { SampleProgress } from '@/lib/samples/shapes';
+import type { SampleProgress } from '@/models/sample-fields';
 
 /** Below this fraction read, a time-left estimate says little. */
 const ESTIMATE_FROM_FRACTION = 0.01;

@@ -6,7 +6,7 @@ import { existsSync } from 'node:fs';
 import { mkdir } from 'node:fs/promises';
 import path from 'node:path';
 import { Worker } from 'node:worker_threads';
-import { db } from '@/lib/db';
+import { db } from '@/lib/db/connection';
 import type { PipelineProgress } from '@/lib/ingest/sink';
 import { readSampleConfig, type SampleConfig } from '@/lib/samples/config';
 import {

@@ -2,8 +2,8 @@
 // the state it expects to find, so a late message (progress after a cancel) changes nothing.
 import { Op } from 'sequelize';
 import { SOFTWARE_VERSION } from '@/lib/ingest/export';
-import { db } from '@/lib/db';
-import type { SampleCounts, SampleError, SampleInput, SampleProgress } from '@/lib/samples/shapes';
+import { db } from '@/lib/db/connection';
+import type { SampleCounts, SampleError, SampleInput, SampleProgress } from '@/models/sample-fields';
 import type { Sample } from '@/models/sample';
 import { sampleError } from './failure';
 import type { FinishedPlane } from './messages';

@@ -5,7 +5,7 @@
 import { azimuth, fromPtYPhiM, rapidity, TWO_PI } from './fourvector';
 import { colourFactor, type Parton, splittingWeight } from './lo-density';
 import { alphaS, PERTURBATIVE_KT_MIN } from './running-coupling';
-import { Rng } from './test-events';
+import { Rng } from './random';
 
 export interface SoftBackground {
   /** Mean number of particles per unit area of the (y, φ) plane. */

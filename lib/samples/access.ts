@@ -1,7 +1,7 @@
 // Loading a sample for a user: visible to whoever may see its study, changeable with the study role asked for.
 import type { Transaction } from 'sequelize';
-import { requireStudyRole } from '@/lib/authz';
-import { db } from '@/lib/db';
+import { requireStudyRole } from '@/lib/auth/study-access';
+import { db } from '@/lib/db/connection';
 import type { Sample } from '@/models/sample';
 import type { Study } from '@/models/study';
 import type { User } from '@/models/user';

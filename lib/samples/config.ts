@@ -1,7 +1,7 @@
 // Limits of uploads and processing jobs, read from the environment (README "Configuration").
 import { availableParallelism } from 'node:os';
 import { z } from 'zod';
-import { checkedEnvironment, type Environment } from '@/lib/config';
+import { checkedEnvironment, type Environment } from '@/lib/config/environment';
 
 export interface SampleConfig {
   /** Largest upload accepted, bytes (SPLITFIELD_UPLOAD_MAX_BYTES, default 2 GiB). */

@@ -1,5 +1,5 @@
 // What only a processed sample has: its columns on disk and its cached planes.
-import { ApiError } from '@/lib/api-errors';
+import { ApiError } from '@/lib/api/errors';
 import { ColumnReader } from '@/lib/ingest/columns';
 import type { Sample } from '@/models/sample';
 import { sampleDir, sampleStorage } from './storage';

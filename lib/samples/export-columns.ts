@@ -1,7 +1,7 @@
 // GET …/export: a done sample as splitfield-declusterings JSON Lines, rebuilt from its stored columns chunk by
 // chunk (bounded memory whatever the sample's size) and written by the export writer of lib/ingest/export.ts.
 import { z } from 'zod';
-import { ApiError } from '@/lib/api-errors';
+import { ApiError } from '@/lib/api/errors';
 import {
   type ColumnReader,
   JET_COLUMNS,

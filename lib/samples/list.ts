@@ -1,8 +1,8 @@
 // GET /api/samples: the samples of the studies the user can see, filtered and sorted as the query asks.
 import { Op, type Order, type WhereOptions } from 'sequelize';
 import { z } from 'zod';
-import { idParam } from '@/lib/api-schemas';
-import { db } from '@/lib/db';
+import { idParam } from '@/lib/api/schemas';
+import { db } from '@/lib/db/connection';
 import type { Sample } from '@/models/sample';
 import type { User } from '@/models/user';
 import { SAMPLE_STATES } from '@/models/vocabulary';

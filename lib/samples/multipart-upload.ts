@@ -4,7 +4,7 @@
 import { Readable } from 'node:stream';
 import type { ReadableStream as NodeWebReadableStream } from 'node:stream/web';
 import multer from 'multer';
-import { ApiError, badRequest } from '@/lib/api-errors';
+import { ApiError, badRequest } from '@/lib/api/errors';
 import { sizeText } from '@/lib/ingest/lines';
 import { HashingDiskStorage, StorageWriteError, type StoredUploadInfo } from './hashing-storage';
 

@@ -1,7 +1,7 @@
 // GET …/plane: a done sample's primary-plane density rebinned from the fine histogram cached in SQLite.
 import { z } from 'zod';
-import { ApiError, badRequest } from '@/lib/api-errors';
-import { db } from '@/lib/db';
+import { ApiError, badRequest } from '@/lib/api/errors';
+import { db } from '@/lib/db/connection';
 import { DEFAULT_X_AXIS, DEFAULT_Y_AXIS, PlaneHistogram } from '@/lib/physics/density';
 import type { Sample } from '@/models/sample';
 import { requireDone } from './done-sample';

@@ -1,5 +1,5 @@
 // Deleting samples: a job still to finish is cancelled first, then the row goes, then the files.
-import { db } from '@/lib/db';
+import { db } from '@/lib/db/connection';
 import { jobRunner } from '@/lib/jobs/runner';
 import type { Sample } from '@/models/sample';
 import { UNFINISHED_SAMPLE_STATES } from '@/models/vocabulary';

@@ -2,7 +2,7 @@
 // PHYSICS.md (anti-kt, R = 0.4, pt > 20 GeV, |y| < 2.5) and common practice (SoftDrop z_cut = 0.1, β = 0,
 // R0 = R; multiplicity kt cut 1 GeV).
 import { z } from 'zod';
-import type { SampleSettings } from './shapes';
+import type { SampleSettings } from '@/models/sample-fields';
 
 const finite = (what: string) => z.number({ error: `${what} must be a number` }).refine(Number.isFinite, `${what} must be finite`);
 

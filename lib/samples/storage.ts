@@ -4,7 +4,7 @@
 import { randomUUID } from 'node:crypto';
 import { readdir, rm } from 'node:fs/promises';
 import path from 'node:path';
-import { readConfig } from '@/lib/config';
+import { readConfig } from '@/lib/config/environment';
 
 const UPLOAD_SUFFIX = '.upload';
 

@@ -1,7 +1,7 @@
 // The text fields of an upload (multipart/form-data), checked with zod. Multipart fields are strings, so numbers,
 // the tag list, the settings object and the force flag are decoded here, with messages naming the field.
 import { z } from 'zod';
-import { idParam } from '@/lib/api-schemas';
+import { idParam } from '@/lib/api/schemas';
 import {
   SAMPLE_DESCRIPTION_MAX,
   SAMPLE_LABEL_MAX,

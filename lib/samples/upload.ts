@@ -3,10 +3,10 @@
 // queue a new one for processing. A refused upload leaves neither a row nor a file.
 import { mkdir } from 'node:fs/promises';
 import { Op, type Transaction } from 'sequelize';
-import { badRequest } from '@/lib/api-errors';
-import { checkedInput } from '@/lib/api-validation';
-import { studyAccess } from '@/lib/authz';
-import { db } from '@/lib/db';
+import { badRequest } from '@/lib/api/errors';
+import { checkedInput } from '@/lib/api/validation';
+import { studyAccess } from '@/lib/auth/study-access';
+import { db } from '@/lib/db/connection';
 import { jobRunner } from '@/lib/jobs/runner';
 import type { User } from '@/models/user';
 import { sampleIncludes, visibleStudyIds, type LoadedSample } from './access';

@@ -1,7 +1,7 @@
 // Nothing half-written: a failure in the middle of a change leaves the database as it was. The failure is
 // real: a trigger in the server's own SQLite file aborts one statement of the change.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { openDatabase, type Database } from '@/lib/db';
+import { openDatabase, type Database } from '@/lib/db/connection';
 import { startTestServer, type TestServer } from '../support/server';
 import { newNote, newPerson, newStudy, type Person } from './fixtures';
 

@@ -1,7 +1,7 @@
 // Processing jobs on a real server: one job at a time, live progress, cancelling, a server killed with SIGKILL in
 // the middle of a job and started again on the same storage, and several users uploading at once.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { generateEvents } from '@/lib/physics/test-events';
+import { generateEvents } from '@/tests/support/test-events';
 import { startTestServer, signIn, type Client, type TestServer } from '../support/server';
 import { toRows } from '../unit/ingest/helpers';
 import { addMember, newPerson, newStudy } from './fixtures';

@@ -9,7 +9,7 @@ import path from 'node:path';
 import { gzipSync } from 'node:zlib';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { defaultGrid, PlaneHistogram, type HorizontalCoordinate } from '@/lib/physics/density';
-import { generateEvents } from '@/lib/physics/test-events';
+import { generateEvents } from '@/tests/support/test-events';
 import { SPLIT_STRIDE } from '@/lib/physics/types';
 import type { TestServer } from '../support/server';
 import { hepmc3Text, toRows } from '../unit/ingest/helpers';

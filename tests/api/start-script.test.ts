@@ -6,7 +6,7 @@ import { createServer } from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { DEMO_CREDENTIALS_FILE } from '@/lib/seed';
+import { DEMO_CREDENTIALS_FILE } from '@/lib/demo/seed';
 import { signIn } from '../support/server';
 
 const repoRoot = path.resolve(__dirname, '..', '..');

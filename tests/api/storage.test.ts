@@ -5,9 +5,9 @@ import os from 'node:os';
 import path from 'node:path';
 import { Op, QueryTypes } from 'sequelize';
 import { afterEach, describe, expect, it } from 'vitest';
-import { readConfig } from '@/lib/config';
-import { openDatabase } from '@/lib/db';
-import { DEMO_CREDENTIALS_FILE } from '@/lib/seed';
+import { readConfig } from '@/lib/config/environment';
+import { openDatabase } from '@/lib/db/connection';
+import { DEMO_CREDENTIALS_FILE } from '@/lib/demo/seed';
 import { schemaMigrations } from '@/models/migrations';
 import { prepareStorage } from '@/scripts/prepare-storage';
 

@@ -2,7 +2,7 @@
 // export), revoked, and refused for a disabled account; only a hash of the secret is stored.
 import { createHash } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { openDatabase } from '@/lib/db';
+import { openDatabase } from '@/lib/db/connection';
 import { Client, type TestServer } from '../support/server';
 import { newPerson, newStudy, serverWithOwner, type Person } from './fixtures';
 import { isFinished, jetsFileText, upload } from './sample-fixtures';

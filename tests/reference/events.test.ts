@@ -7,7 +7,8 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { TILED_MIN_PARTICLES } from '../../lib/physics/cluster';
 import { TWO_PI, fromPtYPhiM } from '../../lib/physics/fourvector';
-import { Rng, generateEvents } from '../../lib/physics/test-events';
+import { generateEvents } from '../support/test-events';
+import { Rng } from '../../lib/physics/random';
 import { crossCheck } from './compare';
 import { ensureFastjetRef } from './fastjet';
 

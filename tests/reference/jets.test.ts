@@ -7,7 +7,8 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { GRID_MIN_PARTICLES } from '../../lib/physics/cluster';
 import { fromPtYPhiM, toGeV } from '../../lib/physics/fourvector';
 import { processParticles } from '../../lib/physics/process';
-import { Rng, generateJet, generateJets } from '../../lib/physics/test-events';
+import { generateJet, generateJets } from '../support/test-events';
+import { Rng } from '../../lib/physics/random';
 import { compareWithRef, crossCheck } from './compare';
 import { ensureFastjetRef, runFastjetRef, settingsFor } from './fastjet';
 

@@ -7,8 +7,8 @@ import { createRequire } from 'node:module';
 import { createServer } from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
-import { readConfig } from '@/lib/config';
-import type { DemoAccount } from '@/lib/seed';
+import { readConfig } from '@/lib/config/environment';
+import type { DemoAccount } from '@/lib/demo/seed';
 import { prepareStorage } from '@/scripts/prepare-storage';
 
 const repoRoot = path.resolve(__dirname, '..', '..');

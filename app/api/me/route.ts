@@ -1,11 +1,11 @@
 import { z } from 'zod';
-import { badRequest } from '@/lib/api-errors';
-import { json, signedInRoute } from '@/lib/api';
-import { atLeastOneField, passwordSchema, userNameSchema } from '@/lib/api-schemas';
-import { readJsonBody } from '@/lib/api-validation';
-import { userView } from '@/lib/api-views';
-import { hashPassword, passwordMatches } from '@/lib/auth-password';
-import { db } from '@/lib/db';
+import { badRequest } from '@/lib/api/errors';
+import { json, signedInRoute } from '@/lib/api/route-handlers';
+import { atLeastOneField, passwordSchema, userNameSchema } from '@/lib/api/schemas';
+import { readJsonBody } from '@/lib/api/validation';
+import { userView } from '@/lib/api/views';
+import { hashPassword, passwordMatches } from '@/lib/auth/password';
+import { db } from '@/lib/db/connection';
 
 export const dynamic = 'force-dynamic';
 export const runtime = 'nodejs';

@@ -1,5 +1,5 @@
-import { json, signedInRoute } from '@/lib/api';
-import { readQuery } from '@/lib/api-validation';
+import { json, signedInRoute } from '@/lib/api/route-handlers';
+import { readQuery } from '@/lib/api/validation';
 import { sampleListQuery, visibleSamples } from '@/lib/samples/list';
 
 export const dynamic = 'force-dynamic';

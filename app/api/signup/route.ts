@@ -1,12 +1,12 @@
 import { z } from 'zod';
-import { conflict, forbidden } from '@/lib/api-errors';
-import { json, publicRoute } from '@/lib/api';
-import { emailSchema, passwordSchema, userNameSchema } from '@/lib/api-schemas';
-import { readJsonBody } from '@/lib/api-validation';
-import { userView } from '@/lib/api-views';
-import { siteSettings } from '@/lib/api-settings';
-import { hashPassword } from '@/lib/auth-password';
-import { db } from '@/lib/db';
+import { conflict, forbidden } from '@/lib/api/errors';
+import { json, publicRoute } from '@/lib/api/route-handlers';
+import { emailSchema, passwordSchema, userNameSchema } from '@/lib/api/schemas';
+import { readJsonBody } from '@/lib/api/validation';
+import { userView } from '@/lib/api/views';
+import { siteSettings } from '@/lib/admin/site-settings';
+import { hashPassword } from '@/lib/auth/password';
+import { db } from '@/lib/db/connection';
 
 export const dynamic = 'force-dynamic';
 export const runtime = 'nodejs';

@@ -1,10 +1,10 @@
 import { QueryTypes } from 'sequelize';
 import { z } from 'zod';
-import { json, signedInRoute } from '@/lib/api';
-import { studyDescriptionSchema, studyTitleSchema } from '@/lib/api-schemas';
-import { readJsonBody } from '@/lib/api-validation';
-import { studyView } from '@/lib/api-views';
-import { db } from '@/lib/db';
+import { json, signedInRoute } from '@/lib/api/route-handlers';
+import { studyDescriptionSchema, studyTitleSchema } from '@/lib/api/schemas';
+import { readJsonBody } from '@/lib/api/validation';
+import { studyView } from '@/lib/api/views';
+import { db } from '@/lib/db/connection';
 import type { StudyRole } from '@/models/vocabulary';
 
 export const dynamic = 'force-dynamic';

@@ -1,9 +1,9 @@
 import { z } from 'zod';
-import { json, signedInRoute } from '@/lib/api';
-import { newTokenSecret } from '@/lib/api-tokens';
-import { readJsonBody } from '@/lib/api-validation';
-import { apiTokenView } from '@/lib/api-views';
-import { db } from '@/lib/db';
+import { json, signedInRoute } from '@/lib/api/route-handlers';
+import { newTokenSecret } from '@/lib/auth/api-tokens';
+import { readJsonBody } from '@/lib/api/validation';
+import { apiTokenView } from '@/lib/api/views';
+import { db } from '@/lib/db/connection';
 import { API_TOKEN_NAME_MAX } from '@/models/vocabulary';
 
 export const dynamic = 'force-dynamic';

@@ -14,7 +14,7 @@ import { azimuth, deltaPhiAbs, mass, particleProblem, rapidity } from '@/lib/phy
 import { colourFactor, type Parton, splittingWeight } from '@/lib/physics/lo-density';
 import { processParticles } from '@/lib/physics/process';
 import { alphaS, C_A, C_F } from '@/lib/physics/running-coupling';
-import { Rng } from '@/lib/physics/test-events';
+import { Rng } from '@/lib/physics/random';
 import type { ProcessSettings } from '@/lib/physics/types';
 
 const R = 0.8;

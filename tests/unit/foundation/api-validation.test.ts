@@ -1,8 +1,8 @@
 import { z } from 'zod';
 import { describe, expect, it } from 'vitest';
-import { ApiError } from '@/lib/api-errors';
-import { atLeastOneField, emailSchema, idParam, passwordSchema, studyTitleSchema } from '@/lib/api-schemas';
-import { readJsonBody, readRouteParams } from '@/lib/api-validation';
+import { ApiError } from '@/lib/api/errors';
+import { atLeastOneField, emailSchema, idParam, passwordSchema, studyTitleSchema } from '@/lib/api/schemas';
+import { readJsonBody, readRouteParams } from '@/lib/api/validation';
 
 function post(body: string): Request {
   return new Request('http://localhost/api/x', { method: 'POST', body, headers: { 'content-type': 'application/json' } });

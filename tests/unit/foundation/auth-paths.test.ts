@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { isPublicPage, signInRedirect } from '@/lib/auth-paths';
+import { isPublicPage, signInRedirect } from '@/lib/auth/paths';
 
 describe('public pages', () => {
   it.each(['/sign-in', '/sign-up', '/sign-in/', '/sign-up/confirm'])('%s needs no session', (pathname) => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { canSeeStudy, mayActAs, ownersAfterChange, roleAtLeast } from '@/lib/authz-roles';
+import { canSeeStudy, mayActAs, ownersAfterChange, roleAtLeast } from '@/lib/auth/roles';
 import { STUDY_ROLES } from '@/models/vocabulary';
 
 describe('study roles', () => {

@@ -1,6 +1,6 @@
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { readConfig } from '@/lib/config';
+import { readConfig } from '@/lib/config/environment';
 
 describe('server configuration from the environment', () => {
   it('defaults to ./storage, the database inside it, 127.0.0.1 and port 3000', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { moveInOrder } from '@/lib/api-entry-order';
+import { moveInOrder } from '@/lib/studies/entry-order';
 
 describe('moving an entry in the list', () => {
   const ids = [10, 20, 30, 40];

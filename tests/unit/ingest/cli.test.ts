@@ -3,7 +3,7 @@ import { execFileSync, spawnSync } from 'node:child_process';
 import { existsSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { generateEvents } from '@/lib/physics/test-events';
+import { generateEvents } from '@/tests/support/test-events';
 import { HEADER, gz, hepmc3Text, jsonl, tempDir, toRows } from './helpers';
 
 const ROOT = path.resolve(__dirname, '../../..');

@@ -7,7 +7,7 @@ import path from 'node:path';
 import { Writable } from 'node:stream';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { processParticles } from '@/lib/physics/process';
-import { generateEvents, generateJets } from '@/lib/physics/test-events';
+import { generateEvents, generateJets } from '@/tests/support/test-events';
 import { SPLIT_STRIDE, type ProcessSettings } from '@/lib/physics/types';
 import { IngestError } from '@/lib/ingest/errors';
 import { ExportWriter, PRIMARY_COLUMNS } from '@/lib/ingest/export';

@@ -9,7 +9,8 @@ import {
   ClusterWorkspace, GRID_MIN_PARTICLES, TILED_MIN_PARTICLES, cluster, findJets, loadParticles,
 } from '../../../lib/physics/cluster';
 import { TWO_PI, fromPtYPhiM } from '../../../lib/physics/fourvector';
-import { Rng, generateEvents, generateJets } from '../../../lib/physics/test-events';
+import { generateEvents, generateJets } from '../../support/test-events';
+import { Rng } from '../../../lib/physics/random';
 
 /** Massless particles given as [pt, y, φ] → px,py,pz,E interleaved. */
 function particles(list: [number, number, number][]): Float64Array {

@@ -5,7 +5,8 @@
 import { describe, expect, it } from 'vitest';
 import { fromPtYPhiM, particleProblem, TWO_PI } from '../../../lib/physics/fourvector';
 import { processParticles } from '../../../lib/physics/process';
-import { Rng, generateEvent, generateEvents, generateJet, generateJets } from '../../../lib/physics/test-events';
+import { generateEvent, generateEvents, generateJet, generateJets } from '../../support/test-events';
+import { Rng } from '../../../lib/physics/random';
 import type { ProcessSettings } from '../../../lib/physics/types';
 import { SPLIT_STRIDE, S_GENERATION } from '../../../lib/physics/types';
 

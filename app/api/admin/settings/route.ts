@@ -1,8 +1,8 @@
 import { z } from 'zod';
-import { json, signedInRoute } from '@/lib/api';
-import { readJsonBody } from '@/lib/api-validation';
-import { siteSettings } from '@/lib/api-settings';
-import { db } from '@/lib/db';
+import { json, signedInRoute } from '@/lib/api/route-handlers';
+import { readJsonBody } from '@/lib/api/validation';
+import { siteSettings } from '@/lib/admin/site-settings';
+import { db } from '@/lib/db/connection';
 
 export const dynamic = 'force-dynamic';
 export const runtime = 'nodejs';

@@ -1,6 +1,6 @@
-import { json, signedInRoute } from '@/lib/api';
-import { adminUserView } from '@/lib/api-views';
-import { db } from '@/lib/db';
+import { json, signedInRoute } from '@/lib/api/route-handlers';
+import { adminUserView } from '@/lib/api/views';
+import { db } from '@/lib/db/connection';
 
 export const dynamic = 'force-dynamic';
 export const runtime = 'nodejs';

@@ -1,7 +1,7 @@
 // next-auth's own endpoints: csrf, session, sign-in callback, sign-out.
 import NextAuth from 'next-auth';
 import type { NextRequest } from 'next/server';
-import { authOptions } from '@/lib/auth';
+import { authOptions } from '@/lib/auth/options';
 
 export const dynamic = 'force-dynamic';
 export const runtime = 'nodejs';

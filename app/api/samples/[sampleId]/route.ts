@@ -1,6 +1,6 @@
 import { z } from 'zod';
-import { json, noContent, signedInRoute } from '@/lib/api';
-import { idParam } from '@/lib/api-schemas';
+import { json, noContent, signedInRoute } from '@/lib/api/route-handlers';
+import { idParam } from '@/lib/api/schemas';
 import { sampleAccess } from '@/lib/samples/access';
 import { deleteSample } from '@/lib/samples/removal';
 import { sampleDetail } from '@/lib/samples/views';

@@ -1,4 +1,4 @@
-import { json, signedInRoute } from '@/lib/api';
+import { json, signedInRoute } from '@/lib/api/route-handlers';
 import { acceptUpload } from '@/lib/samples/upload';
 
 export const dynamic = 'force-dynamic';

@@ -1,11 +1,11 @@
 import { z } from 'zod';
-import { json, noContent, signedInRoute } from '@/lib/api';
-import { atLeastOneField, idParam, studyDescriptionSchema, studyTitleSchema } from '@/lib/api-schemas';
-import { studyEntries, studyMembers } from '@/lib/api-studies';
-import { readJsonBody } from '@/lib/api-validation';
-import { studyView } from '@/lib/api-views';
-import { studyAccess } from '@/lib/authz';
-import { db } from '@/lib/db';
+import { json, noContent, signedInRoute } from '@/lib/api/route-handlers';
+import { atLeastOneField, idParam, studyDescriptionSchema, studyTitleSchema } from '@/lib/api/schemas';
+import { studyEntries, studyMembers } from '@/lib/studies/queries';
+import { readJsonBody } from '@/lib/api/validation';
+import { studyView } from '@/lib/api/views';
+import { studyAccess } from '@/lib/auth/study-access';
+import { db } from '@/lib/db/connection';
 import { deleteStudyWithSamples } from '@/lib/samples/removal';
 
 export const dynamic = 'force-dynamic';

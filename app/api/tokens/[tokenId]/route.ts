@@ -1,8 +1,8 @@
 import { z } from 'zod';
-import { noContent, signedInRoute } from '@/lib/api';
-import { notFound } from '@/lib/api-errors';
-import { idParam } from '@/lib/api-schemas';
-import { db } from '@/lib/db';
+import { noContent, signedInRoute } from '@/lib/api/route-handlers';
+import { notFound } from '@/lib/api/errors';
+import { idParam } from '@/lib/api/schemas';
+import { db } from '@/lib/db/connection';
 
 export const dynamic = 'force-dynamic';
 export const runtime = 'nodejs';

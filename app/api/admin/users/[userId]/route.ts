@@ -1,10 +1,10 @@
 import { z } from 'zod';
-import { conflict, notFound } from '@/lib/api-errors';
-import { json, signedInRoute } from '@/lib/api';
-import { atLeastOneField, idParam } from '@/lib/api-schemas';
-import { readJsonBody } from '@/lib/api-validation';
-import { adminUserView } from '@/lib/api-views';
-import { db } from '@/lib/db';
+import { conflict, notFound } from '@/lib/api/errors';
+import { json, signedInRoute } from '@/lib/api/route-handlers';
+import { atLeastOneField, idParam } from '@/lib/api/schemas';
+import { readJsonBody } from '@/lib/api/validation';
+import { adminUserView } from '@/lib/api/views';
+import { db } from '@/lib/db/connection';
 import { SITE_ROLES } from '@/models/vocabulary';
 
 export const dynamic = 'force-dynamic';

@@ -1,7 +1,7 @@
 import { z } from 'zod';
-import { signedInRoute } from '@/lib/api';
-import { idParam } from '@/lib/api-schemas';
-import { readQuery } from '@/lib/api-validation';
+import { signedInRoute } from '@/lib/api/route-handlers';
+import { idParam } from '@/lib/api/schemas';
+import { readQuery } from '@/lib/api/validation';
 import { sampleAccess } from '@/lib/samples/access';
 import { openSampleColumns } from '@/lib/samples/done-sample';
 import { exportLines, exportQuery } from '@/lib/samples/export-columns';

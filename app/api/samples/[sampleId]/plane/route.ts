@@ -1,7 +1,7 @@
 import { z } from 'zod';
-import { json, signedInRoute } from '@/lib/api';
-import { idParam } from '@/lib/api-schemas';
-import { readQuery } from '@/lib/api-validation';
+import { json, signedInRoute } from '@/lib/api/route-handlers';
+import { idParam } from '@/lib/api/schemas';
+import { readQuery } from '@/lib/api/validation';
 import { sampleAccess } from '@/lib/samples/access';
 import { planeQuery, samplePlane } from '@/lib/samples/plane';
 

@@ -1,6 +1,6 @@
 import { z } from 'zod';
-import { signedInRoute } from '@/lib/api';
-import { idParam } from '@/lib/api-schemas';
+import { signedInRoute } from '@/lib/api/route-handlers';
+import { idParam } from '@/lib/api/schemas';
 import { sampleAccess } from '@/lib/samples/access';
 import { sampleProvenance } from '@/lib/samples/views';
 

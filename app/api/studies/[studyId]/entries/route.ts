@@ -1,10 +1,10 @@
 import { z } from 'zod';
-import { json, signedInRoute } from '@/lib/api';
-import { entryTitleSchema, idParam, noteBodySchema } from '@/lib/api-schemas';
-import { entryWithAuthors, studyEntries, touchStudy } from '@/lib/api-studies';
-import { readJsonBody } from '@/lib/api-validation';
-import { studyAccess } from '@/lib/authz';
-import { db } from '@/lib/db';
+import { json, signedInRoute } from '@/lib/api/route-handlers';
+import { entryTitleSchema, idParam, noteBodySchema } from '@/lib/api/schemas';
+import { entryWithAuthors, studyEntries, touchStudy } from '@/lib/studies/queries';
+import { readJsonBody } from '@/lib/api/validation';
+import { studyAccess } from '@/lib/auth/study-access';
+import { db } from '@/lib/db/connection';
 
 export const dynamic = 'force-dynamic';
 export const runtime = 'nodejs';

@@ -1,12 +1,12 @@
 import { z } from 'zod';
-import { conflict, notFound } from '@/lib/api-errors';
-import { json, signedInRoute } from '@/lib/api';
-import { emailSchema, idParam, studyRoleSchema } from '@/lib/api-schemas';
-import { touchStudy } from '@/lib/api-studies';
-import { readJsonBody } from '@/lib/api-validation';
-import { memberView } from '@/lib/api-views';
-import { studyAccess } from '@/lib/authz';
-import { db } from '@/lib/db';
+import { conflict, notFound } from '@/lib/api/errors';
+import { json, signedInRoute } from '@/lib/api/route-handlers';
+import { emailSchema, idParam, studyRoleSchema } from '@/lib/api/schemas';
+import { touchStudy } from '@/lib/studies/queries';
+import { readJsonBody } from '@/lib/api/validation';
+import { memberView } from '@/lib/api/views';
+import { studyAccess } from '@/lib/auth/study-access';
+import { db } from '@/lib/db/connection';
 
 export const dynamic = 'force-dynamic';
 export const runtime = 'nodejs';

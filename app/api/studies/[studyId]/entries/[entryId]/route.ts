@@ -1,13 +1,13 @@
 import type { Transaction } from 'sequelize';
 import { z } from 'zod';
-import { notFound } from '@/lib/api-errors';
-import { json, noContent, signedInRoute } from '@/lib/api';
-import { moveInOrder } from '@/lib/api-entry-order';
-import { atLeastOneField, entryTitleSchema, idParam, noteBodySchema } from '@/lib/api-schemas';
-import { entryOrder, entryWithAuthors, renumberEntries, touchStudy } from '@/lib/api-studies';
-import { readJsonBody } from '@/lib/api-validation';
-import { studyAccess } from '@/lib/authz';
-import { db } from '@/lib/db';
+import { notFound } from '@/lib/api/errors';
+import { json, noContent, signedInRoute } from '@/lib/api/route-handlers';
+import { moveInOrder } from '@/lib/studies/entry-order';
+import { atLeastOneField, entryTitleSchema, idParam, noteBodySchema } from '@/lib/api/schemas';
+import { entryOrder, entryWithAuthors, renumberEntries, touchStudy } from '@/lib/studies/queries';
+import { readJsonBody } from '@/lib/api/validation';
+import { studyAccess } from '@/lib/auth/study-access';
+import { db } from '@/lib/db/connection';
 
 export const dynamic = 'force-dynamic';
 export const runtime = 'nodejs';

@@ -1,15 +1,15 @@
 import type { Transaction } from 'sequelize';
 import { z } from 'zod';
 import type { StudyRole } from '@/models/vocabulary';
-import { conflict, notFound } from '@/lib/api-errors';
-import { json, noContent, signedInRoute } from '@/lib/api';
-import { idParam, studyRoleSchema } from '@/lib/api-schemas';
-import { touchStudy } from '@/lib/api-studies';
-import { readJsonBody } from '@/lib/api-validation';
-import { memberView } from '@/lib/api-views';
-import { ownersAfterChange } from '@/lib/authz-roles';
-import { studyAccess } from '@/lib/authz';
-import { db } from '@/lib/db';
+import { conflict, notFound } from '@/lib/api/errors';
+import { json, noContent, signedInRoute } from '@/lib/api/route-handlers';
+import { idParam, studyRoleSchema } from '@/lib/api/schemas';
+import { touchStudy } from '@/lib/studies/queries';
+import { readJsonBody } from '@/lib/api/validation';
+import { memberView } from '@/lib/api/views';
+import { ownersAfterChange } from '@/lib/auth/roles';
+import { studyAccess } from '@/lib/auth/study-access';
+import { db } from '@/lib/db/connection';
 
 export const dynamic = 'force-dynamic';
 export const runtime = 'nodejs';

@@ -2,9 +2,9 @@ import type { Transaction } from 'sequelize';
 import type { Study } from '@/models/study';
 import type { User } from '@/models/user';
 import type { StudyRole } from '@/models/vocabulary';
-import { forbidden, notFound } from './api-errors';
-import { canSeeStudy, mayActAs } from './authz-roles';
-import { db } from './db';
+import { forbidden, notFound } from '../api/errors';
+import { canSeeStudy, mayActAs } from './roles';
+import { db } from '../db/connection';
 
 export interface StudyAccess {
   study: Study;

@@ -1,9 +1,9 @@
 import type { NextAuthOptions } from 'next-auth';
 import CredentialsProvider from 'next-auth/providers/credentials';
-import { verifyCredentials } from './auth-credentials';
-import { authSecret } from './auth-secret';
-import { activeUserForToken } from './auth-session';
-import { SIGN_IN_PATH } from './auth-constants';
+import { verifyCredentials } from './credentials';
+import { authSecret } from './secret';
+import { activeUserForToken } from './session';
+import { SIGN_IN_PATH } from './paths';
 
 /** Thrown from the jwt callback so next-auth clears the cookie of a session that no longer counts. */
 class SessionRevoked extends Error {

@@ -2,8 +2,8 @@
 import type { Transaction } from 'sequelize';
 import type { User } from '@/models/user';
 import { STUDY_ROLES } from '@/models/vocabulary';
-import { entryView, memberView } from './api-views';
-import { db } from './db';
+import { entryView, memberView } from '../api/views';
+import { db } from '../db/connection';
 
 function authorIncludes() {
   const { User } = db().models;

@@ -1,4 +1,4 @@
-import { db } from './db';
+import { db } from '../db/connection';
 import { SITE_SETTINGS_ID } from '@/models/site-setting';
 
 /** The site settings row (the first migration creates it). */

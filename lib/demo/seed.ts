@@ -1,11 +1,11 @@
 import { randomBytes } from 'node:crypto';
 import { writeFileSync } from 'node:fs';
 import path from 'node:path';
-import { seedDemoSamples } from '@/lib/samples/demo-samples';
+import { seedDemoSamples } from '@/lib/demo/samples';
 import type { SiteRole, StudyRole } from '@/models/vocabulary';
-import { hashPassword } from './auth-password';
-import type { Database } from './db';
-import { DEMO_NOTES, DEMO_STUDY } from './seed-demo-study';
+import { hashPassword } from '../auth/password';
+import type { Database } from '../db/connection';
+import { DEMO_NOTES, DEMO_STUDY } from './study-text';
 
 export interface DemoAccount {
   name: string;

@@ -3,10 +3,10 @@ import type { NextRequest } from 'next/server';
 import { UniqueConstraintError } from 'sequelize';
 import type { z } from 'zod';
 import type { User } from '@/models/user';
-import { ApiError, conflict, unauthenticated } from './api-errors';
-import { readRouteParams } from './api-validation';
-import { requestUser } from './auth-session';
-import { requireSiteAdmin } from './authz';
+import { ApiError, conflict, unauthenticated } from './errors';
+import { readRouteParams } from './validation';
+import { requestUser } from '../auth/session';
+import { requireSiteAdmin } from '../auth/study-access';
 
 interface NextRouteContext {
   params: Promise<Record<string, string | string[]>>;

@@ -1,7 +1,7 @@
 import { z } from 'zod';
-import { db } from './db';
-import { passwordMatches } from './auth-password';
-import { emailSchema } from './api-schemas';
+import { db } from '../db/connection';
+import { passwordMatches } from './password';
+import { emailSchema } from '../api/schemas';
 import type { User } from '@/models/user';
 
 /** Thrown for a right password on a disabled account; next-auth passes the message on as the sign-in error code. */

@@ -1,7 +1,7 @@
 import sqlite3 from 'sqlite3';
 import { Sequelize, Transaction } from 'sequelize';
 import { defineModels, type Models } from '@/models';
-import { readConfig } from './config';
+import { readConfig } from '../config/environment';
 
 export interface Database {
   sequelize: Sequelize;

@@ -8,8 +8,8 @@ import { writeGeneratedSampleFile } from '@/lib/ingest/generated-sample-file';
 import { demoSampleSpec } from '@/lib/physics/emission-generator';
 import type { Parton } from '@/lib/physics/lo-density';
 import type { Models } from '@/models';
-import { settingsInputSchema, settingsKey } from './settings';
-import { newUploadFileName, sampleStorage, uploadPath } from './storage';
+import { settingsInputSchema, settingsKey } from '../samples/settings';
+import { newUploadFileName, sampleStorage, uploadPath } from '../samples/storage';
 
 export const DEMO_SAMPLE_JETS = 3000;
 const DEMO_SAMPLES: Array<{ parton: Parton; seed: number }> = [

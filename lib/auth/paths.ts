@@ -1,5 +1,5 @@
 // Which pages need a session, and where someone without one is sent. Pure, for proxy.ts.
-import { SIGN_IN_PATH } from './auth-constants';
+export const SIGN_IN_PATH = '/sign-in';
 
 const PUBLIC_PAGES = [SIGN_IN_PATH, '/sign-up'];
 

@@ -3,8 +3,8 @@ import { cookies, headers } from 'next/headers';
 import type { NextRequest } from 'next/server';
 import type { User } from '@/models/user';
 import { bearerSecret, userForTokenSecret } from './api-tokens';
-import { authSecret } from './auth-secret';
-import { db } from './db';
+import { authSecret } from './secret';
+import { db } from '../db/connection';
 
 /**
  * The user a session token speaks for, read afresh from the database: null once the account is disabled,

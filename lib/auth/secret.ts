@@ -1,7 +1,7 @@
 import { randomBytes } from 'node:crypto';
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
-import { readConfig, type Environment } from './config';
+import { readConfig, type Environment } from '../config/environment';
 
 // The key that signs and encrypts session tokens. It lives in storage/ (never in the repository) unless the
 // environment gives one, so restarts keep people signed in and each installation has its own.

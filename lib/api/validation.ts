@@ -1,5 +1,5 @@
 import type { z } from 'zod';
-import { ApiError, badRequest, notFound, type ErrorDetail } from './api-errors';
+import { ApiError, badRequest, notFound, type ErrorDetail } from './errors';
 
 /** zod's issues as the error body's details, each naming where in the input it is (`root`: the input itself). */
 export function issueDetails(error: z.ZodError, root = '(body)'): ErrorDetail[] {

@@ -2,7 +2,7 @@
 // shown once when made; the database keeps only its SHA-256, so a copy of the database cannot be used to sign in.
 import { createHash, randomBytes } from 'node:crypto';
 import type { User } from '@/models/user';
-import { db } from './db';
+import { db } from '../db/connection';
 
 const SECRET_PREFIX = 'sft_';
 /** Characters of the secret shown in token lists to tell tokens apart. */

@@ -1,1 +1,0 @@
-export const SIGN_IN_PATH = '/sign-in';
