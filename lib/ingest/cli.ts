@@ -8,7 +8,7 @@ import { parseArgs } from 'node:util';
 import type { Algorithm } from '../physics/types';
 import { IngestAbortError, IngestError } from './errors';
 import { ExportWriter, SOFTWARE_VERSION } from './export';
-import { defaultThreads, runPipeline, type PipelineSettings } from './pipeline';
+import { defaultThreads, runPipeline, type PipelineSettings } from './pipeline/run';
 import { ProgressLine, fmtInt } from './progress';
 import { openParticleFile, openParticleStream } from './reader';
 

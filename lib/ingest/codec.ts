@@ -4,7 +4,7 @@
 import type { JetResult, ProcessSettings, RecordResult } from '../physics/types';
 import type { PlainIngestError } from './errors';
 import type { RecordContext } from './types';
-import type { RecordMeta } from './sink';
+import type { RecordMeta } from './pipeline/sink';
 import type { ParticleRecord } from './types';
 
 /** Records already parsed (in the main thread), particles back to back. */

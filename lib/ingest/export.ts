@@ -7,7 +7,7 @@ import type { Writable } from 'node:stream';
 import pkg from '../../package.json';
 import { SPLIT_STRIDE, type ProcessSettings, type RecordResult } from '../physics/types';
 import type { IngestHeader } from './header';
-import type { PipelineSummary, RecordMeta, ResultSink } from './sink';
+import type { PipelineSummary, RecordMeta, ResultSink } from './pipeline/sink';
 
 export const DECLUSTERINGS_FORMAT = 'splitfield-declusterings';
 export const DECLUSTERINGS_VERSION = 1;

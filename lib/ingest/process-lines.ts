@@ -8,7 +8,7 @@ import { IngestError } from './errors';
 import { parseHepMCEventInto } from './hepmc3-reader';
 import { ParticleScratch, parseRecordLineInto } from './record';
 import type { RecordContext } from './types';
-import type { RecordMeta } from './sink';
+import type { RecordMeta } from './pipeline/sink';
 
 export interface LineBatchOutcome {
   /** The good records, in order, and their results. */

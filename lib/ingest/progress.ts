@@ -1,7 +1,7 @@
 // A small progress line for a terminal (stderr): bar, bytes, records, jets, rate, ETA.
 
 import { Presets, SingleBar } from 'cli-progress';
-import type { PipelineProgress } from './sink';
+import type { PipelineProgress } from './pipeline/sink';
 
 function mb(n: number): string {
   return (n / 1048576).toFixed(n < 10 * 1048576 ? 1 : 0);

@@ -4,8 +4,8 @@
 // records the outcome, so that a job killed at any point leaves nothing the server would take for finished.
 import { parentPort, workerData } from 'node:worker_threads';
 import { IngestAbortError, IngestError } from '@/lib/ingest/errors';
-import { runPipeline } from '@/lib/ingest/pipeline';
-import type { PipelineProgress } from '@/lib/ingest/sink';
+import { runPipeline } from '@/lib/ingest/pipeline/run';
+import type { PipelineProgress } from '@/lib/ingest/pipeline/sink';
 import { openParticleFile } from '@/lib/ingest/reader';
 import type { JobErrorReport } from './failure';
 import type { JobControlMessage, JobWorkerInput, JobWorkerMessage } from './messages';

@@ -1,5 +1,5 @@
 // What the server and a job's worker thread (dist/engine/job-worker.js) tell each other.
-import type { PipelineProgress } from '@/lib/ingest/sink';
+import type { PipelineProgress } from '@/lib/ingest/pipeline/sink';
 import type { HorizontalCoordinate } from '@/lib/physics/density';
 import type { SampleCounts, SampleInput, SampleSettings } from '@/models/sample-fields';
 import type { JobErrorReport } from './failure';

@@ -1,5 +1,5 @@
 // A running job's progress as the API shows it: fraction of the upload read, counts, rates and time left.
-import type { PipelineProgress } from '@/lib/ingest/sink';
+import type { PipelineProgress } from '@/lib/ingest/pipeline/sink';
 import type { SampleProgress } from '@/models/sample-fields';
 
 /** Below this fraction read, a time-left estimate says little. */

@@ -7,7 +7,7 @@ import { mkdir } from 'node:fs/promises';
 import path from 'node:path';
 import { Worker } from 'node:worker_threads';
 import { db } from '@/lib/db/connection';
-import type { PipelineProgress } from '@/lib/ingest/sink';
+import type { PipelineProgress } from '@/lib/ingest/pipeline/sink';
 import { readSampleConfig, type SampleConfig } from '@/lib/samples/config';
 import {
   removeSampleFiles,

@@ -2,7 +2,7 @@
 // and the fine primary-plane histograms in both horizontal coordinates, for the cache in SQLite.
 import { ColumnWriter } from '@/lib/ingest/columns';
 import type { IngestHeader } from '@/lib/ingest/header';
-import type { RecordMeta, ResultSink } from '@/lib/ingest/sink';
+import type { RecordMeta, ResultSink } from '@/lib/ingest/pipeline/sink';
 import { defaultGrid, PlaneHistogram } from '@/lib/physics/density';
 import type { ProcessSettings, RecordResult } from '@/lib/physics/types';
 import type { FinishedPlane } from './messages';

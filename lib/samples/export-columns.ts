@@ -12,7 +12,7 @@ import {
 } from '@/lib/ingest/columns';
 import { exportHeader, formatJets } from '@/lib/ingest/export';
 import type { IngestHeader } from '@/lib/ingest/header';
-import type { RecordMeta } from '@/lib/ingest/sink';
+import type { RecordMeta } from '@/lib/ingest/pipeline/sink';
 import { type JetResult, type RecordResult, S_GENERATION, SPLIT_STRIDE } from '@/lib/physics/types';
 import type { Sample } from '@/models/sample';
 

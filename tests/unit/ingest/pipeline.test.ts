@@ -11,9 +11,9 @@ import { generateEvents, generateJets } from '@/tests/support/test-events';
 import { SPLIT_STRIDE, type ProcessSettings } from '@/lib/physics/types';
 import { IngestError } from '@/lib/ingest/errors';
 import { ExportWriter, PRIMARY_COLUMNS } from '@/lib/ingest/export';
-import { runPipeline, type PipelineOptions, type PipelineSettings } from '@/lib/ingest/pipeline';
+import { runPipeline, type PipelineOptions, type PipelineSettings } from '@/lib/ingest/pipeline/run';
 import { openParticleFile } from '@/lib/ingest/reader';
-import type { PipelineProgress } from '@/lib/ingest/sink';
+import type { PipelineProgress } from '@/lib/ingest/pipeline/sink';
 import type { ReaderOptions } from '@/lib/ingest/types';
 import { HEADER, gz, hepmc3Text, jsonl, tempDir, toRows } from './helpers';
 

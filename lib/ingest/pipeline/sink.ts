@@ -1,7 +1,7 @@
 // What the pipeline hands to its consumers (the export writer here, the server's column writer later).
 
-import type { ProcessSettings, RecordResult } from '../physics/types';
-import type { IngestHeader } from './header';
+import type { ProcessSettings, RecordResult } from '../../physics/types';
+import type { IngestHeader } from '../header';
 
 /** A record as the sinks see it (its particles are not kept). */
 export interface RecordMeta {

@@ -1,0 +1,34 @@
+// What the two ways of processing (this thread, or a pool of worker threads) share: the batches they read, how
+// a failure inside the physics is reported, and how a record is described to the sink.
+
+import type { ProcessSettings } from '../../physics/types';
+import { IngestAbortError, IngestError } from '../errors';
+import type { ParticleReader, ParticleRecord } from '../types';
+import type { ResultDelivery } from './delivery';
+import type { RecordMeta } from './sink';
+
+/** One run's reading and delivery, handed to the step that processes its batches. */
+export interface BatchRun {
+  reader: ParticleReader;
+  settings: ProcessSettings;
+  delivery: ResultDelivery;
+  /** How errors name a record's place: by line (JSON Lines, HepMC3) or by record (the one-document form). */
+  where: 'line' | 'record';
+  /** Batch sizes: particles and records of parsed batches, characters of raw text batches. */
+  batchParticles: number;
+  batchRecords: number;
+  batchChars: number;
+  signal?: AbortSignal;
+}
+
+export function checkAbort(run: BatchRun): void {
+  if (run.signal?.aborted) throw new IngestAbortError();
+}
+
+export function recordMeta(r: ParticleRecord): RecordMeta {
+  return { line: r.line, id: r.id, weight: r.weight, nParticles: r.particles.length >> 2 };
+}
+
+export function processingError(line: number, where: 'line' | 'record', message: string): IngestError {
+  return new IngestError(`processing failed: ${message}`, { line, where, code: 'process' });
+}

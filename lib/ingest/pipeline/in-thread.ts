@@ -1,0 +1,39 @@
+// Processing in the calling thread (threads = 1): each batch is parsed and processed where it is read, with the
+// same code the worker threads run, so one thread and many give identical results.
+
+import { processParticles } from '../../physics/process';
+import type { RecordResult } from '../../physics/types';
+import { processLineBatch } from '../process-lines';
+import { ParticleScratch } from '../record';
+import { checkAbort, processingError, recordMeta, type BatchRun } from './batches';
+
+export async function processInThisThread(run: BatchRun): Promise<void> {
+  const { reader, settings, delivery, where } = run;
+  const raw = reader.raw;
+  if (raw) {
+    // Raw records (JSON Lines, HepMC3): parse into a reused buffer and process at once (the workers' code).
+    const scratch = new ParticleScratch();
+    for await (const b of raw.rawBatches(run.batchChars, run.batchRecords)) {
+      checkAbort(run);
+      const o = processLineBatch(raw.kind, b.lines, b.lineNos, raw.context, settings, raw.skipBad, scratch);
+      for (const pr of o.problems) raw.rejected(pr.error);
+      if (o.error) throw processingError(o.metas[o.error.index].line, where, o.error.message);
+      raw.accepted(o.results.length);
+      await delivery.deliver(o.metas, o.results);
+    }
+    raw.finish();
+    return;
+  }
+  for await (const batch of reader.batches(run.batchParticles, run.batchRecords)) {
+    checkAbort(run);
+    const results: RecordResult[] = new Array(batch.length);
+    for (let i = 0; i < batch.length; i++) {
+      try {
+        results[i] = processParticles(batch[i].particles, settings);
+      } catch (e) {
+        throw processingError(batch[i].line, where, e instanceof Error ? e.message : String(e));
+      }
+    }
+    await delivery.deliver(batch.map(recordMeta), results);
+  }
+}
