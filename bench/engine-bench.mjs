@@ -1,7 +1,7 @@
-// Engine benchmark: Splitfield's command line against the FastJet reference program (tests/reference/fastjet-ref.cc,
-// FastJet 3.4.0 from Debian) on the same generated inputs, whole processes (reading the file and writing the
-// export included on both sides), one core each (Splitfield --threads 1), plus Splitfield on all cores for
-// information. Prints throughput, the ratio Splitfield/FastJet against the goals, and peak memory (max RSS).
+// Engine benchmark: the command a user types, `splitfield decluster` (node_modules/.bin/splitfield, the installed
+// bin), against the FastJet reference program (tests/reference/fastjet-ref.cc, FastJet 3.4.0 from Debian) on the
+// same generated inputs, whole processes (reading the file and writing the export included on both sides), one
+// core each (Splitfield --threads 1), plus Splitfield on all cores for information. Prints throughput, the ratio Splitfield/FastJet against the goals, and peak memory (max RSS).
 //
 //   npm run bench [-- --scale 0.2] [-- --cases a,b300,b1000] [-- --no-threads]
 //
@@ -19,7 +19,7 @@ import { parseArgs } from 'node:util';
 
 const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 const OUT = path.join(ROOT, 'bench/out');
-const CLI = path.join(ROOT, 'dist/engine/cli.js');
+const BIN = path.join(ROOT, 'node_modules/.bin/splitfield');
 const REF_SRC = path.join(ROOT, 'tests/reference/fastjet-ref.cc');
 const REF_BIN = path.join(ROOT, 'tests/reference/bin/fastjet-ref');
 const GEN_SRC = path.join(ROOT, 'bench/generate-inputs.ts');
@@ -164,7 +164,10 @@ async function compareExports(a, b, limit = 3000) {
 const fmt = (x, d = 0) => (Number.isFinite(x) ? x.toLocaleString('en-US', { maximumFractionDigits: d, minimumFractionDigits: d }) : '-');
 
 async function main() {
-  if (!existsSync(CLI)) throw new Error('dist/engine/cli.js is missing: run npm run build:engine (npm run bench does it)');
+  if (!existsSync(BIN)) throw new Error('node_modules/.bin/splitfield is missing: run npm install (it links the command)');
+  // Builds the engine bundle now if it is stale, so that no timed run includes a build.
+  execFileSync(BIN, ['decluster', '--version'], { stdio: 'ignore' });
+  log('timing the installed command: node_modules/.bin/splitfield decluster …');
   await buildGenerator();
   const ref = ensureRef();
   if (!ref.ok) log(`FastJet reference unavailable (${ref.why}): Splitfield only.`);
@@ -183,7 +186,7 @@ async function main() {
     const outOurs = path.join(OUT, `${key}-splitfield.jsonl`);
     const outRef = path.join(OUT, `${key}-fastjet.jsonl`);
     log(`${c.label}: ${count} records, ${fmt(sizeMB)} MB`);
-    const ours = await measure(process.execPath, [CLI, file, '--threads', '1', '--out', outOurs, ...c.flags]);
+    const ours = await measure(BIN, ['decluster', file, '--threads', '1', '--out', outOurs, ...c.flags]);
     const jets = (await countLines(outOurs)) - 1;
     const oursRate = jets / ours.wall;
     log(`  splitfield --threads 1: ${ours.wall.toFixed(2)} s (CPU ${ours.cpu.toFixed(2)} s), ${fmt(oursRate)} jets/s, peak RSS ${fmt(ours.rssMB)} MB`);
@@ -199,14 +202,14 @@ async function main() {
     }
     let multi = null;
     if (!args['no-threads'] && cores > 1) {
-      multi = await measure(process.execPath, [CLI, file, '--threads', String(cores), '--out', outOurs, ...c.flags]);
+      multi = await measure(BIN, ['decluster', file, '--threads', String(cores), '--out', outOurs, ...c.flags]);
       multi.rate = jets / multi.wall;
       log(`  splitfield --threads ${cores}: ${multi.wall.toFixed(2)} s (CPU ${multi.cpu.toFixed(2)} s), ${fmt(multi.rate)} jets/s, peak RSS ${fmt(multi.rssMB)} MB`);
     }
     rows.push({ key, c, count, sizeMB, jets, ours, oursRate, fj, agree, multi });
     if (key === 'a' && !args['no-memory']) {
       const small = input(c, Math.max(10, Math.round(count / 10)));
-      const m = await measure(process.execPath, [CLI, small, '--threads', '1', '--out', outOurs]);
+      const m = await measure(BIN, ['decluster', small, '--threads', '1', '--out', outOurs]);
       memory = { smallCount: Math.round(count / 10), smallRss: m.rssMB, bigCount: count, bigRss: ours.rssMB, bigMB: sizeMB };
     }
     if (!args.keep) for (const f of [outOurs, outRef]) if (existsSync(f)) unlinkSync(f);
@@ -255,14 +258,14 @@ async function main() {
   });
   const widths = head.map((h, i) => Math.max(h.length, ...body.map((b) => b[i].length)));
   const line = (cells) => '| ' + cells.map((c, i) => c.padEnd(widths[i])).join(' | ') + ' |';
-  console.log('\nSplitfield engine benchmark (whole processes: read file + compute + write export; one core unless noted)');
+  console.log('\nSplitfield engine benchmark: `splitfield decluster` (the installed command) against fastjet-ref, whole processes (read file + compute + write export; one core unless noted)');
   console.log('jets/s and the goal use wall-clock time; "ratio by CPU time" uses user+system CPU seconds of each process.');
   console.log(line(head));
   console.log('|' + widths.map((w) => '-'.repeat(w + 2)).join('|') + '|');
   for (const b of body) console.log(line(b));
   if (memory) {
     console.log(
-      `\nBounded memory of \`npm run decluster\` (--threads 1): peak RSS ${fmt(memory.smallRss)} MB on ${fmt(memory.smallCount)} jets, ` +
+      `\nBounded memory of \`splitfield decluster\` (--threads 1): peak RSS ${fmt(memory.smallRss)} MB on ${fmt(memory.smallCount)} jets, ` +
         `${fmt(memory.bigRss)} MB on ${fmt(memory.bigCount)} jets (input ${fmt(memory.bigMB)} MB): ` +
         (memory.bigRss < 1.5 * memory.smallRss + 50 ? 'bounded (does not grow with the file).' : 'GROWS with the file size!'),
     );

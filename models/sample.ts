@@ -41,6 +41,8 @@ export function defineSample(sequelize: Sequelize) {
     declare softwareVersion: CreationOptional<string | null>;
     declare startedAt: CreationOptional<Date | null>;
     declare finishedAt: CreationOptional<Date | null>;
+    /** Time from the job's start to its end on a monotonic clock (null until it ends). */
+    declare processingMs: CreationOptional<number | null>;
     declare createdAt: CreationOptional<Date>;
     declare updatedAt: CreationOptional<Date>;
     declare study?: NonAttribute<Study>;
@@ -71,6 +73,7 @@ export function defineSample(sequelize: Sequelize) {
       softwareVersion: { type: DataTypes.STRING, allowNull: true },
       startedAt: { type: DataTypes.DATE, allowNull: true },
       finishedAt: { type: DataTypes.DATE, allowNull: true },
+      processingMs: { type: DataTypes.INTEGER, allowNull: true },
       ...timestampColumns,
     },
     tableOptions(sequelize, 'samples'),

@@ -1,4 +1,5 @@
-// Command line: npm run decluster -- INPUT [options]
+// Command line: splitfield decluster INPUT [options] (bin/splitfield.mjs runs this bundle; `npm run -s decluster --`
+// is a shorthand).
 // Reads a splitfield-particles (or HepMC3) file, finds/reclusters jets, declusters them and writes the
 // splitfield-declusterings export (JSON Lines) to stdout or a file; counts and throughput go to stderr.
 
@@ -12,10 +13,9 @@ import { defaultThreads, runPipeline, type PipelineSettings } from './pipeline/r
 import { ProgressLine, fmtInt } from './progress';
 import { openParticleFile, openParticleStream } from './reader';
 
-const USAGE = `Usage: npm run decluster -- INPUT [options]
+const USAGE = `Usage: splitfield decluster INPUT [options]
 Reads INPUT (splitfield-particles JSON Lines or one document, or HepMC3 ASCII; gzip or plain; "-" for stdin),
 declusters every selected jet with Cambridge/Aachen and writes the splitfield-declusterings export.
-(npm prints its own banner on stdout: with the export on stdout use \`npm run -s decluster\` or --out FILE.)
 
 Jet finding (content "events") and selection:
   --algorithm antikt|kt|ca   jet algorithm (default antikt)
@@ -33,7 +33,8 @@ Running:
   --skip-bad                 skip bad records and report how many, instead of stopping at the first
   --progress                 show a progress bar on stderr
   --quiet, -q                no report on stderr (errors are still printed)
-  --help, -h  --version`;
+  --help, -h  --version
+Exit codes: 0 done, 1 bad input or processing error, 2 usage error, 130 interrupted.`;
 
 class UsageError extends Error {}
 

@@ -35,6 +35,8 @@ type Ending = Extract<JobWorkerMessage, { type: 'done' | 'failed' | 'cancelled' 
 
 interface RunningJob {
   sample: Sample;
+  /** performance.now() when the job was launched: processing time is measured on this monotonic clock. */
+  launchedAt: number;
   worker: Worker;
   cancelRequested: boolean;
   /** Settles once the outcome is recorded and the job's files are cleaned up. */
@@ -128,7 +130,7 @@ export class JobRunner {
       threads: this.config.jobThreads,
     };
     const worker = new Worker(this.workerFile, { workerData: input });
-    const job: RunningJob = { sample, worker, cancelRequested: false, finished: Promise.resolve() };
+    const job: RunningJob = { sample, launchedAt: performance.now(), worker, cancelRequested: false, finished: Promise.resolve() };
     let ending: Ending | null = null;
     let crash: Error | null = null;
     let lastWrite = 0;
@@ -178,20 +180,23 @@ export class JobRunner {
 
   private async conclude(job: RunningJob, ending: Ending): Promise<void> {
     const { sample } = job;
+    const processingMs = Math.round(performance.now() - job.launchedAt);
     try {
       if (ending.type === 'done') {
         const { counts, planes } = ending;
-        if (!(await recordDone(sample.id, { counts, planes, progress: this.progressOf(sample, ending.progress) }))) {
+        const progress = this.progressOf(sample, ending.progress);
+        if (!(await recordDone(sample.id, { counts, planes, progress, processingMs }))) {
           await removeSampleFiles(this.storage, sample.id);
         }
         return;
       }
       // Files first: once the sample reads as failed or cancelled, nothing of it is left on disk.
       await removeSampleFiles(this.storage, sample.id);
-      await recordEnded(sample.id, ending.type, ending.type === 'failed' ? sampleError(ending.error) : null);
+      await recordEnded(sample.id, ending.type, ending.type === 'failed' ? sampleError(ending.error) : null, processingMs);
     } catch (error) {
       await removeSampleFiles(this.storage, sample.id);
-      await recordEnded(sample.id, 'failed', sampleError({ code: 'internal', message: String(error), line: null }));
+      const internal = sampleError({ code: 'internal', message: String(error), line: null });
+      await recordEnded(sample.id, 'failed', internal, processingMs);
       throw error;
     } finally {
       await removeUpload(this.storage, sample.uploadFile);

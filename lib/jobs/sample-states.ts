@@ -47,7 +47,7 @@ export function recordInput(sampleId: number, input: SampleInput): Promise<boole
  */
 export async function recordDone(
   sampleId: number,
-  outcome: { counts: SampleCounts; progress: SampleProgress; planes: FinishedPlane[] },
+  outcome: { counts: SampleCounts; progress: SampleProgress; planes: FinishedPlane[]; processingMs: number },
 ): Promise<boolean> {
   const { models, write } = db();
   return write(async (transaction) => {
@@ -57,6 +57,7 @@ export async function recordDone(
         counts: outcome.counts,
         progress: outcome.progress,
         finishedAt: new Date(),
+        processingMs: outcome.processingMs,
         softwareVersion: SOFTWARE_VERSION,
         uploadFile: null,
       },
@@ -76,11 +77,17 @@ export async function recordDone(
 }
 
 /** Ends an unfinished sample as failed (keeping the row as the record of the failure) or cancelled. */
-export async function recordEnded(sampleId: number, state: 'failed' | 'cancelled', error: SampleError | null) {
+/** Marks a queued or running sample failed or cancelled; `processingMs` is null when it never ran. */
+export async function recordEnded(
+  sampleId: number,
+  state: 'failed' | 'cancelled',
+  error: SampleError | null,
+  processingMs: number | null = null,
+) {
   const { models, write } = db();
   const [updated] = await write((transaction) =>
     models.Sample.update(
-      { state, error, finishedAt: new Date(), softwareVersion: SOFTWARE_VERSION, uploadFile: null },
+      { state, error, finishedAt: new Date(), processingMs, softwareVersion: SOFTWARE_VERSION, uploadFile: null },
       { where: { id: sampleId, state: { [Op.in]: ['queued', 'running'] } }, transaction },
     ),
   );

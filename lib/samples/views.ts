@@ -26,10 +26,6 @@ export function sampleSummary(sample: LoadedSample): SampleSummary {
   };
 }
 
-function seconds(from: Date | null, to: Date | null): number | null {
-  return from && to ? (to.getTime() - from.getTime()) / 1000 : null;
-}
-
 export function sampleProvenance(sample: LoadedSample): SampleProvenance {
   return {
     sample: { id: sample.id, name: sample.name, label: sample.label, state: sample.state },
@@ -44,7 +40,7 @@ export function sampleProvenance(sample: LoadedSample): SampleProvenance {
       uploadSeconds: sample.uploadMs / 1000,
       startedAt: sample.startedAt?.toISOString() ?? null,
       finishedAt: sample.finishedAt?.toISOString() ?? null,
-      processingSeconds: seconds(sample.startedAt, sample.finishedAt),
+      processingSeconds: sample.processingMs === null ? null : sample.processingMs / 1000,
     },
     counts: sample.counts,
     tree: sample.settings.fullTree ? 'full' : 'primary',

@@ -100,11 +100,12 @@ describe('decluster command line', () => {
     for (const args of [[], ['a', 'b'], [file, '--R', '-1'], [file, '--threads', '0'], [file, '--algorithm', 'siscone'], [file, '--bogus']]) {
       const r = run(args);
       expect(r.code).toBe(2);
-      expect(r.err).toMatch(/^decluster: .*\nUsage: npm run decluster -- INPUT/);
+      expect(r.err).toMatch(/^decluster: .*\nUsage: splitfield decluster INPUT/);
     }
     expect(run([file, '--R', '-1']).err).toMatch(/^decluster: --R -1: must be a number in \(0, 10\]/);
     const h = run(['--help']);
     expect([h.code, h.out]).toEqual([0, expect.stringContaining('--skip-bad')]);
+    expect(h.out).toContain('Exit codes: 0 done, 1 bad input or processing error, 2 usage error, 130 interrupted.');
     expect(run(['--version']).out).toMatch(/^splitfield \d+\.\d+\.\d+\n$/);
   });
 
