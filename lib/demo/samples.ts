@@ -5,7 +5,7 @@ import { createReadStream } from 'node:fs';
 import { mkdir, rm } from 'node:fs/promises';
 import type { Transaction } from 'sequelize';
 import { writeGeneratedSampleFile } from '@/lib/ingest/generated-sample-file';
-import { demoSampleSpec } from '@/lib/physics/emission-generator';
+import { demoSampleSpec } from './scenario';
 import type { Parton } from '@/lib/physics/lo-density';
 import type { Models } from '@/models';
 import { settingsInputSchema, settingsKey } from '../samples/settings';

@@ -3,7 +3,29 @@
 import { randomUUID } from 'node:crypto';
 import { link, open, rm } from 'node:fs/promises';
 import path from 'node:path';
-import { type GeneratedSampleSpec, particlesFileLines } from '../physics/emission-generator';
+import { generateEmissionRecords, type EmissionSettings } from '../physics/emission-generator';
+import { particlesHeaderLine, particlesRecordLine } from './particle-file-writer';
+
+/** What a generated sample says about itself in its file header. */
+export interface GeneratedSampleSpec {
+  name: string;
+  label: string;
+  description: string;
+  tags: string[];
+  /** Free-form facts of the (fictional) scenario, kept by readers as header metadata. */
+  scenario: Record<string, string>;
+  settings: EmissionSettings;
+}
+
+/** The `splitfield-particles` JSON Lines of a generated sample (content "jets"), without newlines. */
+export function* particlesFileLines(spec: GeneratedSampleSpec, count: number, seed: number): Generator<string> {
+  yield particlesHeaderLine('jets', {
+    sample: { name: spec.name, label: spec.label, description: spec.description, tags: spec.tags },
+    scenario: spec.scenario,
+    generator: { name: 'splitfield emission generator', seed, jets: count, settings: spec.settings },
+  });
+  for (const record of generateEmissionRecords(spec.settings, count, seed, `${spec.label}-`)) yield particlesRecordLine(record);
+}
 
 /** Text is handed to the file in pieces of about this many characters, so memory stays bounded. */
 const WRITE_CHUNK_CHARS = 1 << 20;

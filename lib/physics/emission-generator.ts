@@ -116,11 +116,20 @@ function emit(leader: Leader, z: number, delta: number, psi: number, out: number
   leader.pz -= out[at + 2];
 }
 
-/** One jet's particles (px, py, pz, E), leading parton first, then the emissions in order, then background. */
-export function generateEmissionJet(rng: Rng, settings: EmissionSettings): Float64Array {
+/** A direction in the (y, φ) plane. */
+export interface JetAxis {
+  y: number;
+  phi: number;
+}
+
+/**
+ * One jet's particles (px, py, pz, E), leading parton first, then the emissions in order, then background. The
+ * leading parton starts along `axis`, or along a direction drawn uniformly in |y| ≤ yMax and φ.
+ */
+export function generateEmissionJet(rng: Rng, settings: EmissionSettings, axis?: JetAxis): Float64Array {
   const s = checkedSettings(settings);
-  const y0 = rng.uniform(-s.yMax, s.yMax);
-  const phi0 = rng.uniform(0, TWO_PI);
+  const y0 = axis ? axis.y : rng.uniform(-s.yMax, s.yMax);
+  const phi0 = axis ? axis.phi : rng.uniform(0, TWO_PI);
   const start = new Float64Array(4);
   fromPtYPhiM(s.pt, y0, phi0, 0, start, 0);
   const leader: Leader = { px: start[0], py: start[1], pz: start[2] };
@@ -175,62 +184,75 @@ export function* generateEmissionRecords(
   for (let k = 0; k < count; k++) yield { id: `${idPrefix}${k + 1}`, weight: 1, particles: generateEmissionJet(rng, settings) };
 }
 
-/** What a generated sample says about itself in its file header. */
-export interface GeneratedSampleSpec {
-  name: string;
-  label: string;
-  description: string;
-  tags: string[];
-  /** Free-form facts of the (fictional) scenario, kept by readers as header metadata. */
-  scenario: Record<string, string>;
-  settings: EmissionSettings;
+/** Whole events of two jets recoiling against each other, with a uniform soft underlying activity. */
+export interface DijetEventSettings {
+  /** Each jet's initiating parton is a quark with this probability, else a gluon. */
+  quarkFraction: number;
+  /** The leading parton's pt is drawn from dN/dpt ∝ pt^(−spectrumPower) in [ptMin, ptMax] (GeV). */
+  ptMin: number;
+  ptMax: number;
+  spectrumPower: number;
+  /** Radiation of each jet (its parton and pt come from the event; no per-jet background). */
+  jet: Omit<EmissionSettings, 'parton' | 'pt' | 'background'>;
+  /** Soft particles uniform in |y| < yMax and φ, exponential in pt; null for none. */
+  underlying: (SoftBackground & { yMax: number }) | null;
 }
 
-/** The `splitfield-particles` JSON Lines of a generated sample (DESIGN.md format, content "jets"), without newlines. */
-export function* particlesFileLines(spec: GeneratedSampleSpec, count: number, seed: number): Generator<string> {
-  yield JSON.stringify({
-    format: 'splitfield-particles',
-    version: 1,
-    content: 'jets',
-    momentum: 'px,py,pz,E',
-    energyUnit: 'GeV',
-    sample: { name: spec.name, label: spec.label, description: spec.description, tags: spec.tags },
-    scenario: spec.scenario,
-    generator: { name: 'splitfield emission generator', seed, jets: count, settings: spec.settings },
-  });
-  for (const record of generateEmissionRecords(spec.settings, count, seed, `${spec.label}-`)) {
-    const particles: number[][] = [];
-    for (let at = 0; at < record.particles.length; at += 4) particles.push(Array.from(record.particles.subarray(at, at + 4)));
-    yield JSON.stringify({ id: record.id, weight: record.weight, particles });
+/** Why the settings cannot generate events, or null when they can. */
+export function dijetSettingsProblem(s: DijetEventSettings): string | null {
+  if (!(s.quarkFraction >= 0 && s.quarkFraction <= 1)) return `quarkFraction must be in [0, 1] (got ${s.quarkFraction})`;
+  if (!(s.ptMin > 0 && s.ptMax >= s.ptMin && Number.isFinite(s.ptMax))) return `need 0 < ptMin <= ptMax (got ${s.ptMin}, ${s.ptMax})`;
+  if (!(s.spectrumPower > 1 && Number.isFinite(s.spectrumPower))) return `spectrumPower must be a number above 1 (got ${s.spectrumPower})`;
+  const jetProblem = emissionSettingsProblem({ ...s.jet, parton: 'quark', pt: s.ptMin, background: null });
+  if (jetProblem) return jetProblem;
+  if (s.underlying !== null) {
+    const { perUnitArea, meanPt, yMax } = s.underlying;
+    if (!(perUnitArea >= 0 && Number.isFinite(perUnitArea))) return `underlying perUnitArea must be >= 0 (got ${perUnitArea})`;
+    if (!(meanPt > 0 && Number.isFinite(meanPt))) return `underlying meanPt must be a positive number of GeV (got ${meanPt})`;
+    if (!(yMax > 0 && Number.isFinite(yMax))) return `underlying yMax must be a positive number (got ${yMax})`;
+    if (perUnitArea * 2 * yMax * TWO_PI > MAX_BACKGROUND_MEAN) {
+      return `underlying activity of ${perUnitArea} per unit area gives more than ${MAX_BACKGROUND_MEAN} particles an event`;
+    }
   }
+  return null;
 }
 
-const DEMO_SCENARIO: Record<string, string> = {
-  detector: 'Brackenfield forward calorimeter (fictional)',
-  campaign: 'granularity upgrade, phase B study (fictional)',
-  team: 'Kestrel Lane substructure group (fictional)',
-};
+/** Inverse of the power-law spectrum's cumulative distribution at u in [0, 1). */
+function powerLawPt(u: number, s: DijetEventSettings): number {
+  const k = 1 - s.spectrumPower;
+  const a = Math.pow(s.ptMin, k);
+  return Math.pow(a + u * (Math.pow(s.ptMax, k) - a), 1 / k);
+}
 
-/** The demo study's quark-like or gluon-like sample: 500 GeV jets, R = 0.8, light soft background. */
-export function demoSampleSpec(parton: Parton): GeneratedSampleSpec {
-  const kind = parton === 'quark' ? 'quark-like' : 'gluon-like';
-  return {
-    name: `Brackenfield upgrade B: ${kind} jets`,
-    label: parton === 'quark' ? 'q-demo' : 'g-demo',
-    description:
-      `${kind} jets of 500 GeV from Splitfield's leading-order emission generator (hard-collinear splitting ` +
-      'functions, one-loop running coupling, kt > 1 GeV) with a light uniform soft background, prepared for a ' +
-      'made-up granularity upgrade of a made-up calorimeter.',
-    tags: ['demo', 'generated', kind],
-    scenario: DEMO_SCENARIO,
-    settings: {
-      parton,
-      pt: 500,
-      R: 0.8,
-      yMax: 2,
-      ktCut: 1,
-      hardCollinear: true,
-      background: { perUnitArea: 3, meanPt: 0.4 },
-    },
-  };
+/**
+ * One event's particles (px, py, pz, E): two jets, the second with 70–100 % of the first one's pt and roughly
+ * opposite in azimuth (a Gaussian spread of 0.1 rad), each at a rapidity uniform in |y| ≤ jet.yMax, then the
+ * underlying activity. Not a physics simulation: a plausible event shape with known ingredients.
+ */
+export function generateDijetEvent(rng: Rng, settings: DijetEventSettings): Float64Array {
+  const problem = dijetSettingsProblem(settings);
+  if (problem) throw new RangeError(`event generator: ${problem}`);
+  const s = settings;
+  const pt1 = powerLawPt(rng.next(), s);
+  const phi1 = rng.uniform(0, TWO_PI);
+  const legs = [
+    { pt: pt1, axis: { y: rng.uniform(-s.jet.yMax, s.jet.yMax), phi: phi1 } },
+    { pt: pt1 * rng.uniform(0.7, 1), axis: { y: rng.uniform(-s.jet.yMax, s.jet.yMax), phi: (phi1 + Math.PI + 0.1 * rng.normal() + TWO_PI) % TWO_PI } },
+  ];
+  const parts: Float64Array[] = [];
+  for (const leg of legs) {
+    const parton: Parton = rng.next() < s.quarkFraction ? 'quark' : 'gluon';
+    parts.push(generateEmissionJet(rng, { ...s.jet, parton, pt: leg.pt, background: null }, leg.axis));
+  }
+  const soft: number[] = [];
+  if (s.underlying !== null) {
+    const { perUnitArea, meanPt, yMax } = s.underlying;
+    const n = poisson(rng, perUnitArea * 2 * yMax * TWO_PI);
+    for (let k = 0; k < n; k++) pushMassless(soft, rng.exponential(meanPt), rng.uniform(-yMax, yMax), rng.uniform(0, TWO_PI));
+  }
+  const out = new Float64Array(parts[0].length + parts[1].length + soft.length);
+  out.set(parts[0], 0);
+  out.set(parts[1], parts[0].length);
+  out.set(soft, parts[0].length + parts[1].length);
+  return out;
 }

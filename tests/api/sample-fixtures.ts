@@ -3,7 +3,8 @@
 import { existsSync, readdirSync } from 'node:fs';
 import path from 'node:path';
 import { expect } from 'vitest';
-import { demoSampleSpec, particlesFileLines } from '@/lib/physics/emission-generator';
+import { particlesFileLines } from '@/lib/ingest/generated-sample-file';
+import { demoSampleSpec } from '@/lib/demo/scenario';
 import type { Client } from '../support/server';
 
 /** A splitfield-particles JSON Lines file of `count` generated quark-like jets (content "jets"), as text. */

@@ -4,9 +4,10 @@ import { mkdtemp, readdir, rm, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { writeGeneratedSampleFile } from '@/lib/ingest/generated-sample-file';
+import { demoSampleSpec } from '@/lib/demo/scenario';
+import { writeGeneratedSampleFile, type GeneratedSampleSpec } from '@/lib/ingest/generated-sample-file';
 import { openParticleFile } from '@/lib/ingest/reader';
-import { demoSampleSpec, generateEmissionRecords, type GeneratedSampleSpec } from '@/lib/physics/emission-generator';
+import { generateEmissionRecords } from '@/lib/physics/emission-generator';
 
 let root: string;
 beforeEach(async () => {
