@@ -21,7 +21,7 @@ mkdirSync(OUT, { recursive: true });
 const bundle = path.join(OUT, 'physics-micro-lib.mjs');
 await build({
   stdin: {
-    contents: `export * from './lib/physics/process'; export * from './tests/support/test-events'; export * from './lib/physics/cluster';`,
+    contents: `export * from './lib/physics/process'; export * from './tests/support/test-events'; export * from './lib/physics/clustering';`,
     resolveDir: ROOT,
     loader: 'ts',
   },

@@ -2,12 +2,13 @@
 // (PHYSICS.md "Declustering and the emission plane"; source: the primary-emission-plane paper,
 // JHEP 12 (2018) 064, arXiv:1807.04758).
 //
-// The C/A tree is the clustering history kept by cluster.ts in typed arrays (parent1/parent2 of each node);
-// a splitting j → a, b (pt_a ≥ pt_b) is written as SPLIT_STRIDE doubles (types.ts):
+// The C/A tree is the clustering history kept in typed arrays by the clustering workspace
+// (clustering/workspace.ts: parent1/parent2 of each node); a splitting j → a, b (pt_a ≥ pt_b) is written as
+// SPLIT_STRIDE doubles (types.ts):
 //   Δ = ΔR_ab in (y, φ), kt = pt_b Δ, z = pt_b / (pt_a + pt_b), m = m_{a+b} (= m_j, E-scheme), κ = z Δ,
 //   ψ = atan2(y_b − y_a, φ_b − φ_a folded into (−π, π]), ln(1/Δ), ln(kt/GeV), generation.
 
-import { ClusterWorkspace, cluster, loadParticles } from './cluster';
+import { ClusterWorkspace, cluster, loadParticles } from './clustering';
 import { TWO_PI } from './fourvector';
 import {
   SPLIT_STRIDE, S_DELTA, S_GENERATION, S_KAPPA, S_KT, S_LN_INV_DELTA, S_LN_KT, S_M, S_PSI, S_Z,

@@ -4,7 +4,7 @@
 // Scratch memory is module-level and only grows, so processing a stream of records allocates nothing but the
 // results themselves (one Float64Array per jet for its splittings, one for the full tree when asked).
 
-import { ClusterWorkspace, algorithmExponent, cluster, loadConstituents, loadParticles } from './cluster';
+import { ClusterWorkspace, algorithmExponent, cluster, loadConstituents, loadParticles } from './clustering';
 import { declusterAll, declusterPrimary, reclusterCA } from './decluster';
 import { primaryMultiplicity, softDrop } from './observables';
 import type { JetResult, ProcessSettings, RecordResult } from './types';

@@ -5,7 +5,7 @@
 // arXiv:1111.6097; emission plane arXiv:1807.04758; SoftDrop arXiv:1402.2657).
 
 import { beforeAll, describe, expect, it } from 'vitest';
-import { TILED_MIN_PARTICLES } from '../../lib/physics/cluster';
+import { TILED_MIN_PARTICLES } from '../../lib/physics/clustering';
 import { TWO_PI, fromPtYPhiM } from '../../lib/physics/fourvector';
 import { generateEvents } from '../support/test-events';
 import { Rng } from '../../lib/physics/random';

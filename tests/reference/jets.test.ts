@@ -4,7 +4,7 @@
 // arXiv:1807.04758; SoftDrop arXiv:1402.2657; C/A arXiv:hep-ph/9707323).
 
 import { beforeAll, describe, expect, it } from 'vitest';
-import { GRID_MIN_PARTICLES } from '../../lib/physics/cluster';
+import { GRID_MIN_PARTICLES } from '../../lib/physics/clustering';
 import { fromPtYPhiM, toGeV } from '../../lib/physics/fourvector';
 import { processParticles } from '../../lib/physics/process';
 import { generateJet, generateJets } from '../support/test-events';

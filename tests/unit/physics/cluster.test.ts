@@ -7,7 +7,7 @@
 import { describe, expect, it } from 'vitest';
 import {
   ClusterWorkspace, GRID_MIN_PARTICLES, TILED_MIN_PARTICLES, cluster, findJets, loadParticles,
-} from '../../../lib/physics/cluster';
+} from '../../../lib/physics/clustering';
 import { TWO_PI, fromPtYPhiM } from '../../../lib/physics/fourvector';
 import { generateEvents, generateJets } from '../../support/test-events';
 import { Rng } from '../../../lib/physics/random';
