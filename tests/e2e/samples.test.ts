@@ -197,6 +197,20 @@ describe('samples in a browser', () => {
     expect(await page.getByRole('table', { name: 'Samples' }).getByRole('link', { name: SPEC.name }).count()).toBe(1);
   });
 
+  it('offers the example files for download on the upload page', async () => {
+    const { page } = browser;
+    await page.goto(`${server.baseUrl}/samples/new?studyId=${studyId}`);
+    const examples = panel(page, 'No file at hand?');
+    for (const name of ['tallis-quark-jets.jsonl', 'tallis-dijet-events.jsonl.gz', 'tallis-dijet-events.hepmc3.gz']) {
+      const [download] = await Promise.all([page.waitForEvent('download'), examples.getByRole('link', { name }).click()]);
+      expect(download.suggestedFilename()).toBe(name);
+      const saved = path.join(folder, `downloaded-${name}`);
+      await download.saveAs(saved);
+      expect(readFileSync(saved).equals(readFileSync(path.join(__dirname, '../../public/examples', name)))).toBe(true);
+    }
+    await screenshot(page, 'upload-examples-1280', 1280);
+  });
+
   it('shows where a broken file went wrong and what that means', async () => {
     const { page } = browser;
     const header = JSON.stringify({ format: 'splitfield-particles', version: 1, content: 'jets', momentum: 'px,py,pz,E' });
