@@ -16,7 +16,12 @@ export interface ThrottleConfig {
   trustProxy: boolean;
 }
 
-const count = z.string().trim().regex(/^\d+$/, 'must be a whole number').transform(Number).refine((n) => n >= 1, 'must be at least 1');
+/** A whole number of at least 1; empty means unset (the default). */
+const count = z
+  .string()
+  .trim()
+  .transform((text) => (text === '' ? undefined : text))
+  .pipe(z.string().regex(/^\d+$/, 'must be a whole number').transform(Number).refine((n) => n >= 1, 'must be at least 1').optional());
 
 const environmentSchema = z.object({
   SPLITFIELD_SIGNIN_ACCOUNT_FAILURES: count.optional(),
