@@ -1,4 +1,4 @@
-// The server's processing queue: takes queued samples in upload order, runs at most SPLITFIELD_MAX_JOBS at once,
+// The server's processing queue: takes queued samples fairly between the people who queued them (fair-order.ts), runs at most SPLITFIELD_MAX_JOBS at once,
 // each in its own worker thread (dist/engine/job-worker.js), records progress (throttled) and the outcome, and
 // removes every file of a job that did not finish. One runner per process, started by instrumentation.ts; at
 // start it requeues the jobs a stop of the server cut short and sweeps storage of what no sample owns.
@@ -128,6 +128,7 @@ export class JobRunner {
       sampleDir: sampleDir(this.storage, sample.id),
       settings: sample.settings,
       threads: this.config.jobThreads,
+      limits: { maxRecords: this.config.maxRecords, maxTextBytes: this.config.maxDecompressedBytes },
     };
     const worker = new Worker(this.workerFile, { workerData: input });
     const job: RunningJob = { sample, launchedAt: performance.now(), worker, cancelRequested: false, finished: Promise.resolve() };

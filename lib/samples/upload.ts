@@ -3,12 +3,13 @@
 // queue a new one for processing. A refused upload leaves neither a row nor a file.
 import { mkdir } from 'node:fs/promises';
 import { Op, type Transaction } from 'sequelize';
-import { badRequest } from '@/lib/api/errors';
+import { ApiError, badRequest } from '@/lib/api/errors';
 import { checkedInput } from '@/lib/api/validation';
 import { studyAccess } from '@/lib/auth/study-access';
 import { db } from '@/lib/db/connection';
 import { jobRunner } from '@/lib/jobs/runner';
 import type { User } from '@/models/user';
+import { UNFINISHED_SAMPLE_STATES } from '@/models/vocabulary';
 import { sampleIncludes, visibleStudyIds, type LoadedSample } from './access';
 import { readSampleConfig } from './config';
 import { fileNameProblem } from './file-name';
@@ -28,9 +29,26 @@ function checkFileName(name: string): void {
   if (problem) throw badRequest(`Invalid upload: ${problem}.`, [{ path: UPLOAD_FILE_FIELD, message: problem }]);
 }
 
+/** 429 when the user already has as many samples queued or running as one person may. */
+async function requireQueueRoom(user: User, maxJobs: number, transaction?: Transaction): Promise<void> {
+  const waiting = await db().models.Sample.count({
+    where: { uploadedById: user.id, state: { [Op.in]: [...UNFINISHED_SAMPLE_STATES] } },
+    transaction,
+  });
+  if (waiting >= maxJobs) {
+    throw new ApiError(
+      429,
+      'too_many_jobs',
+      `You have ${waiting} samples queued or being processed, the most one person may have at once on this server; ` +
+        'wait for one to finish, or cancel one, then upload again.',
+    );
+  }
+}
+
 /** The fields sent before the file, checked as far as they go, and the study role when the study is known. */
-async function checkEarly(user: User, fieldsSoFar: Record<string, unknown>, fileName: string): Promise<void> {
+async function checkEarly(user: User, fieldsSoFar: Record<string, unknown>, fileName: string, maxJobs: number): Promise<void> {
   checkFileName(fileName);
+  await requireQueueRoom(user, maxJobs);
   const known = checkedInput(uploadFieldsSchema.partial(), fieldsSoFar, 'upload', '(form)');
   if (known.studyId !== undefined) await studyAccess(user, known.studyId, 'editor');
 }
@@ -60,7 +78,7 @@ export async function acceptUpload(user: User, request: Request): Promise<Upload
     uploadsDir: storage.uploadsDir,
     maxBytes: config.uploadMaxBytes,
     fileField: UPLOAD_FILE_FIELD,
-    beforeFile: (fieldsSoFar, fileName) => checkEarly(user, fieldsSoFar, fileName),
+    beforeFile: (fieldsSoFar, fileName) => checkEarly(user, fieldsSoFar, fileName, config.maxJobsPerUser),
   });
   let kept = false;
   try {
@@ -79,6 +97,7 @@ export async function acceptUpload(user: User, request: Request): Promise<Upload
     const outcome = await write(async (transaction) => {
       const duplicate = fields.force ? null : await findDuplicate(user, file, fields, transaction);
       if (duplicate) return { duplicateOf: sampleSummary(duplicate) };
+      await requireQueueRoom(user, config.maxJobsPerUser, transaction);
       const sample = await models.Sample.create(
         {
           studyId: study.id,
