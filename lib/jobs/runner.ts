@@ -18,6 +18,7 @@ import {
   uploadPath,
   type SampleStorage,
 } from '@/lib/samples/storage';
+import { tablesFolderOf } from '@/lib/samples/sharing';
 import type { Sample } from '@/models/sample';
 import { sampleError, type JobErrorReport } from './failure';
 import type { JobControlMessage, JobWorkerInput, JobWorkerMessage } from './messages';
@@ -67,8 +68,8 @@ export class JobRunner {
     await mkdir(this.storage.uploadsDir, { recursive: true });
     await mkdir(this.storage.samplesDir, { recursive: true });
     const unfinished = await requeueInterrupted((name) => existsSync(uploadPath(this.storage, name)));
-    const done = await db().models.Sample.findAll({ where: { state: 'done' }, attributes: ['id'] });
-    const removed = await sweepUnowned(this.storage, unfinished.waitingUploads, new Set(done.map((sample) => sample.id)));
+    const done = await db().models.Sample.findAll({ where: { state: 'done' }, attributes: ['id', 'tablesId'] });
+    const removed = await sweepUnowned(this.storage, unfinished.waitingUploads, new Set(done.map(tablesFolderOf)));
     if (unfinished.requeued.length > 0) console.log(`[jobs] requeued interrupted samples ${unfinished.requeued.join(', ')}`);
     if (unfinished.abandoned.length > 0) console.log(`[jobs] marked failed: samples ${unfinished.abandoned.join(', ')}`);
     if (removed.length > 0) console.log(`[jobs] removed ${removed.length} unowned file(s) from storage: ${removed.join(', ')}`);

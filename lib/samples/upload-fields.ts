@@ -58,16 +58,18 @@ const flagField = z
   .enum(['', '0', '1', 'false', 'true'], { error: 'must be 1, 0, true or false' })
   .transform((value) => value === '1' || value === 'true');
 
+export const sampleNameSchema = plainName(
+  z
+    .string({ error: 'name is required' })
+    .trim()
+    .min(1, 'name must not be empty')
+    .max(SAMPLE_NAME_MAX, `name must be at most ${SAMPLE_NAME_MAX} characters`),
+  'name',
+);
+
 export const uploadFieldsSchema = z.strictObject({
   studyId: z.string({ error: 'studyId is required: the study to attach the sample to' }).pipe(idParam),
-  name: plainName(
-    z
-      .string({ error: 'name is required' })
-      .trim()
-      .min(1, 'name must not be empty')
-      .max(SAMPLE_NAME_MAX, `name must be at most ${SAMPLE_NAME_MAX} characters`),
-    'name',
-  ),
+  name: sampleNameSchema,
   label: plainName(
     z.string().trim().max(SAMPLE_LABEL_MAX, `label must be at most ${SAMPLE_LABEL_MAX} characters`),
     'label',

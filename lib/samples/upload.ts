@@ -15,6 +15,7 @@ import { readSampleConfig } from './config';
 import { fileNameProblem } from './file-name';
 import { receiveUpload, type ReceivedFile } from './multipart-upload';
 import { settingsKey } from './settings';
+import { createSharingSample } from './sharing';
 import { sampleStorage } from './storage';
 import { uploadFieldsSchema, type UploadFields } from './upload-fields';
 import { sampleSummary } from './views';
@@ -22,7 +23,12 @@ import type { SampleSummary } from './shapes';
 
 export const UPLOAD_FILE_FIELD = 'file';
 
-export type UploadOutcome = { queued: SampleSummary } | { duplicateOf: SampleSummary };
+/**
+ * queued: a new sample waits for processing; duplicateOf: the caller can already see a sample of this file and
+ * settings; shared: a new, done sample that uses the tables of the same file processed for a study the caller
+ * cannot see (which is never named).
+ */
+export type UploadOutcome = { queued: SampleSummary } | { duplicateOf: SampleSummary } | { shared: SampleSummary };
 
 function checkFileName(name: string): void {
   const problem = fileNameProblem(name);
@@ -70,6 +76,15 @@ async function findDuplicate(user: User, file: ReceivedFile, fields: UploadField
   return candidates.find((sample) => sample.studyId === fields.studyId) ?? candidates[0] ?? null;
 }
 
+/** A done sample of the same bytes and settings anywhere (the caller may not see it). */
+function findProcessed(file: ReceivedFile, fields: UploadFields, transaction: Transaction) {
+  return db().models.Sample.findOne({
+    where: { fileHash: file.sha256, settingsKey: settingsKey(fields.settings), state: 'done' },
+    order: [['id', 'ASC']],
+    transaction,
+  });
+}
+
 export async function acceptUpload(user: User, request: Request): Promise<UploadOutcome> {
   const config = readSampleConfig();
   const storage = sampleStorage();
@@ -97,28 +112,34 @@ export async function acceptUpload(user: User, request: Request): Promise<Upload
     const outcome = await write(async (transaction) => {
       const duplicate = fields.force ? null : await findDuplicate(user, file, fields, transaction);
       if (duplicate) return { duplicateOf: sampleSummary(duplicate) };
+      const own = {
+        studyId: study.id,
+        uploadedById: user.id,
+        name: fields.name,
+        label: fields.label,
+        description: fields.description,
+        tags: fields.tags,
+        fileName: file.originalName,
+        uploadMs: Math.round(upload.elapsedMs),
+      };
+      const load = async (id: number) =>
+        sampleSummary((await models.Sample.findByPk(id, { include: sampleIncludes(), transaction })) as LoadedSample);
+      const processed = fields.force ? null : await findProcessed(file, fields, transaction);
+      if (processed) return { shared: await load((await createSharingSample(processed, own, transaction)).id) };
       await requireQueueRoom(user, config.maxJobsPerUser, transaction);
       const sample = await models.Sample.create(
         {
-          studyId: study.id,
-          uploadedById: user.id,
-          name: fields.name,
-          label: fields.label,
-          description: fields.description,
-          tags: fields.tags,
+          ...own,
           state: 'queued',
           settings: fields.settings,
           settingsKey: settingsKey(fields.settings),
-          fileName: file.originalName,
           fileSize: file.size,
           fileHash: file.sha256,
-          uploadMs: Math.round(upload.elapsedMs),
           uploadFile: file.storedName,
         },
         { transaction },
       );
-      const loaded = (await models.Sample.findByPk(sample.id, { include: sampleIncludes(), transaction })) as LoadedSample;
-      return { queued: sampleSummary(loaded) };
+      return { queued: await load(sample.id) };
     });
     kept = 'queued' in outcome;
     if (kept) (await jobRunner()).wake();

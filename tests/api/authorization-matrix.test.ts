@@ -382,6 +382,13 @@ const ROWS: Row[] = [
     },
     expected: statuses(401, 404, 404, 404, 404, 204, 404),
   },
+  {
+    method: 'POST',
+    route: '/api/samples/[sampleId]/attach',
+    // Into a fresh study where the actor has the same role as in the matrix study.
+    call: async (world) => ({ path: inSample(world, '/attach'), body: { studyId: await freshStudy(world) } }),
+    expected: statuses(401, 404, 403, 403, 201, 201, 201),
+  },
   // Last: it ends every session of each actor's person, so no row may come after it.
   {
     method: 'DELETE',
