@@ -23,10 +23,10 @@ describe('samples of a file processed elsewhere', () => {
   let originalId: number, studyA: number;
 
   it('attaches a visible done sample to another study of the uploader, without processing again', async () => {
-    studyA = await newStudy(owner.client, 'Larkspur study A');
+    studyA = await newStudy(owner.client, 'Original study A');
     const original = await uploadDone(owner.client, { studyId: studyA, name: 'Quark-like run', file });
     originalId = original.id;
-    const studyB = await newStudy(owner.client, 'Larkspur study B');
+    const studyB = await newStudy(owner.client, 'Original study B');
     const again = await upload(owner.client, { studyId: studyB, name: 'Same file', file });
     expect(again.status).toBe(200);
     expect(again.body.duplicateOf).toMatchObject({ id: originalId, studyId: studyA });
@@ -46,7 +46,7 @@ describe('samples of a file processed elsewhere', () => {
   });
 
   it('never attaches from a study the caller cannot see', async () => {
-    const own = await newStudy(stranger.client, 'Tallis study');
+    const own = await newStudy(stranger.client, 'Own study');
     const refused = await stranger.client.post(`/api/samples/${originalId}/attach`, { studyId: own });
     expect(refused.status).toBe(404);
   });
@@ -56,7 +56,7 @@ describe('samples of a file processed elsewhere', () => {
     const shared = await upload(stranger.client, { studyId: own, name: 'My copy', file, fileName: 'mine.jsonl' });
     expect(shared.status, shared.text).toBe(201);
     expect(shared.body.sample).toMatchObject({ studyId: own, state: 'done', name: 'My copy', fileName: 'mine.jsonl' });
-    expect(shared.text).not.toContain('Larkspur');
+    expect(shared.text).not.toContain('Original study');
     expect(shared.text).not.toContain(`"id":${originalId},`);
     const detail = await stranger.client.get(`/api/samples/${shared.body.sample.id}`);
     expect(detail.body.sample.provenance.study).toEqual({ id: own, title: 'Stranger study' });
