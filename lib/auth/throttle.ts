@@ -3,6 +3,7 @@
 // A request over a limit gets 429 with the seconds until it may be tried again (Retry-After).
 import { RateLimiterMemory, RateLimiterRes } from 'rate-limiter-flexible';
 import { ApiError } from '../api/errors';
+import { retryAfterText } from './retry-after';
 import { readThrottleConfig, type ThrottleConfig } from './throttle-config';
 
 export type ThrottleKind = 'accountFailure' | 'addressFailure' | 'signup' | 'newToken';
@@ -60,11 +61,6 @@ export async function countAttempt(kind: ThrottleKind, key: string): Promise<voi
 /** Forgets the attempts of `key` (after a successful sign-in, an account's failures no longer count). */
 export async function forgetAttempts(kind: ThrottleKind, key: string): Promise<void> {
   await throttles().limiters[kind].delete(key);
-}
-
-export function retryAfterText(seconds: number): string {
-  if (seconds < 90) return `${seconds} seconds`;
-  return `${Math.ceil(seconds / 60)} minutes`;
 }
 
 /** 429 with the time to wait, in the message, in `retryAfterSeconds` and in the Retry-After header. */
