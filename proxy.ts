@@ -4,7 +4,7 @@
 import { getToken } from 'next-auth/jwt';
 import { NextResponse, type NextRequest } from 'next/server';
 import { pageContentSecurityPolicy } from '@/lib/api/security-headers';
-import { isPublicPage, signInRedirect } from '@/lib/auth/paths';
+import { isPublicPage, PATHNAME_HEADER, signInRedirect } from '@/lib/auth/paths';
 import { authSecret } from '@/lib/auth/secret';
 
 const CSP = 'Content-Security-Policy';
@@ -22,6 +22,8 @@ export async function proxy(request: NextRequest) {
   }
   const headers = new Headers(request.headers);
   headers.set(CSP, policy);
+  // For the layout's 404 of an unknown study or sample page (lib/auth/page-access.ts); always the real path.
+  headers.set(PATHNAME_HEADER, request.nextUrl.pathname);
   return withPolicy(NextResponse.next({ request: { headers } }));
 }
 

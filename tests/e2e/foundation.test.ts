@@ -243,10 +243,10 @@ describe('the foundation in a browser', () => {
     const { page } = owner;
     const study = await page.goto(`${server.baseUrl}/studies/999999`);
     expect(study?.status()).toBe(404);
-    await page.getByText('Study not found').waitFor();
+    await page.getByRole('heading', { name: 'Page not found' }).waitFor();
     const sample = await page.goto(`${server.baseUrl}/samples/999999`);
     expect(sample?.status()).toBe(404);
-    await page.getByText('Sample not found').waitFor();
+    await page.getByRole('heading', { name: 'Page not found' }).waitFor();
     const missing = await page.goto(`${server.baseUrl}/no-such-page`);
     expect(missing?.status()).toBe(404);
     expect(await page.getByRole('heading', { name: 'Page not found' }).isVisible()).toBe(true);
