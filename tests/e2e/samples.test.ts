@@ -147,7 +147,7 @@ describe('samples in a browser', () => {
     expect(await plane.locator('figure').textContent()).toContain('emissions per jet per unit area');
     const axisText = () => plane.locator('figure svg').last().textContent();
     expect(await axisText()).toContain('ln(1/Δ)');
-    expect(await axisText()).toContain('ln(k_t / GeV)');
+    expect(await axisText()).toContain('ln(kₜ / GeV)');
 
     await plane.getByRole('button', { name: 'ln(R/Δ)' }).click();
     await expect.poll(axisText).toContain('ln(R/Δ)');
