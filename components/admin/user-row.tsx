@@ -62,9 +62,7 @@ export function UserRow({ user, isMe, onChanged }: UserRowProps) {
           <option value="admin">Admin</option>
         </select>
         <div className={userColumns.action}>
-          {isMe ? (
-            <span className="text-xs text-ink-faint">You</span>
-          ) : (
+          {isMe ? null : (
           <Button
             size="sm"
             variant={user.disabled ? 'secondary' : 'danger'}
