@@ -1,8 +1,11 @@
-// Next.js calls register() once when a server starts: the processing queue starts with it, so that jobs a stop
-// cut short are requeued and queued samples run without waiting for a request. Node.js runtime only (worker
-// threads), and never while `next build` loads the app.
+// Next.js calls register() once when a server starts: the process makes its files private and stamps client
+// addresses on requests, and the processing queue starts, so that jobs a stop cut short are requeued and queued
+// samples run without waiting for a request. Node.js runtime only (worker threads), and never while
+// `next build` loads the app.
 export async function register(): Promise<void> {
   if (process.env.NEXT_RUNTIME !== 'nodejs' || process.env.NEXT_PHASE === 'phase-production-build') return;
+  const { prepareServerProcess } = await import('./lib/config/server-process');
+  prepareServerProcess();
   const { jobRunner } = await import('./lib/jobs/runner');
   await jobRunner();
 }

@@ -1,6 +1,6 @@
 'use client';
 
-import { useEffect, useState, type ReactNode } from 'react';
+import { useEffect, useRef, useState, type ReactNode } from 'react';
 import { usePathname, useRouter } from 'next/navigation';
 import { BrandMark } from './brand-mark';
 import { Button } from './button';
@@ -14,11 +14,23 @@ import type { Me } from './api-types';
 /** Narrow screens: a top bar whose menu button opens the navigation below it. */
 function TopBar({ me }: { me: Me }) {
   const [open, setOpen] = useState(false);
+  const toggle = useRef<HTMLButtonElement>(null);
+  // Escape closes the open menu and gives the focus back to its button.
+  useEffect(() => {
+    if (!open) return;
+    const onKey = (event: KeyboardEvent) => {
+      if (event.key !== 'Escape') return;
+      setOpen(false);
+      toggle.current?.focus();
+    };
+    document.addEventListener('keydown', onKey);
+    return () => document.removeEventListener('keydown', onKey);
+  }, [open]);
   return (
     <div className="sticky top-0 z-20 border-b border-ink/10 bg-paper-raised md:hidden">
       <div className="flex h-14 items-center justify-between px-4">
         <BrandMark />
-        <Button variant="ghost" size="sm" aria-expanded={open} aria-controls="top-menu" onClick={() => setOpen(!open)}>
+        <Button ref={toggle} variant="ghost" size="sm" aria-expanded={open} aria-controls="top-menu" onClick={() => setOpen(!open)}>
           {open ? 'Close' : 'Menu'}
         </Button>
       </div>

@@ -1,4 +1,4 @@
-import type { ButtonHTMLAttributes } from 'react';
+import type { ComponentProps } from 'react';
 
 type Variant = 'primary' | 'secondary' | 'ghost' | 'danger';
 type Size = 'sm' | 'md';
@@ -24,7 +24,7 @@ export function buttonClass(variant: Variant = 'secondary', size: Size = 'md', e
   return `${base} ${variants[variant]} ${sizes[size]} ${extra}`.trim();
 }
 
-interface ButtonProps extends ButtonHTMLAttributes<HTMLButtonElement> {
+interface ButtonProps extends ComponentProps<'button'> {
   variant?: Variant;
   size?: Size;
 }

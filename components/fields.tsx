@@ -11,23 +11,39 @@ export const controlClass = `${controlLook} block w-full px-3 py-2`;
 export const inlineSelectClass = `${controlLook} h-8 px-2`;
 
 interface LabelProps {
-  label: string;
+  label: ReactNode;
   hint?: ReactNode;
+  /** What is wrong with the value: shown under the control, which is marked invalid for screen readers. */
+  error?: string;
 }
 
-/** A label above a control and an optional hint under it; `control` receives the id and styling. */
-function Labelled({
-  label,
-  hint,
-  control,
-}: LabelProps & { control: (props: { id: string; className: string; 'aria-describedby'?: string }) => ReactNode }) {
+interface ControlProps {
+  id: string;
+  className: string;
+  'aria-describedby'?: string;
+  'aria-invalid'?: true;
+}
+
+/** A label above a control, an optional hint and error under it; `control` receives the id and styling. */
+function Labelled({ label, hint, error, control }: LabelProps & { control: (props: ControlProps) => ReactNode }) {
   const id = useId();
+  const described = [error && `${id}-error`, hint && `${id}-hint`].filter(Boolean).join(' ');
   return (
     <div className="space-y-1.5">
       <label htmlFor={id} className="block text-sm font-medium text-ink">
         {label}
       </label>
-      {control({ id, className: controlClass, 'aria-describedby': hint ? `${id}-hint` : undefined })}
+      {control({
+        id,
+        className: `${controlClass}${error ? ' border-danger' : ''}`,
+        'aria-describedby': described || undefined,
+        'aria-invalid': error ? true : undefined,
+      })}
+      {error && (
+        <p id={`${id}-error`} className="text-xs font-medium text-danger">
+          {error}
+        </p>
+      )}
       {hint && (
         <p id={`${id}-hint`} className="text-xs text-ink-soft">
           {hint}
@@ -37,14 +53,14 @@ function Labelled({
   );
 }
 
-export function TextField({ label, hint, ...input }: LabelProps & InputHTMLAttributes<HTMLInputElement>) {
-  return <Labelled label={label} hint={hint} control={(props) => <input {...props} {...input} />} />;
+export function TextField({ label, hint, error, ...input }: LabelProps & InputHTMLAttributes<HTMLInputElement>) {
+  return <Labelled label={label} hint={hint} error={error} control={(props) => <input {...props} {...input} />} />;
 }
 
-export function TextArea({ label, hint, ...area }: LabelProps & TextareaHTMLAttributes<HTMLTextAreaElement>) {
-  return <Labelled label={label} hint={hint} control={(props) => <textarea {...props} {...area} />} />;
+export function TextArea({ label, hint, error, ...area }: LabelProps & TextareaHTMLAttributes<HTMLTextAreaElement>) {
+  return <Labelled label={label} hint={hint} error={error} control={(props) => <textarea {...props} {...area} />} />;
 }
 
-export function SelectField({ label, hint, ...select }: LabelProps & SelectHTMLAttributes<HTMLSelectElement>) {
-  return <Labelled label={label} hint={hint} control={(props) => <select {...props} {...select} />} />;
+export function SelectField({ label, hint, error, ...select }: LabelProps & SelectHTMLAttributes<HTMLSelectElement>) {
+  return <Labelled label={label} hint={hint} error={error} control={(props) => <select {...props} {...select} />} />;
 }

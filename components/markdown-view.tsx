@@ -4,8 +4,17 @@ import remarkGfm from 'remark-gfm';
 // react-markdown builds React elements from the Markdown syntax tree and never injects HTML: raw HTML in the
 // source (a <script>, an onclick attribute) stays visible as plain text, and its default URL filter empties
 // javascript:, data: and other unsafe link targets; such a link is shown as its plain text. Other links leave
-// the app in a new tab without a referrer.
+// the app in a new tab without a referrer. Images are never loaded (a remote image tells its server who reads the
+// note, and when): each is shown as a link to its address, labelled with its description.
 const components: Components = {
+  img: ({ src, alt }) =>
+    typeof src === 'string' && src ? (
+      <a href={src} target="_blank" rel="noopener noreferrer nofollow" className="note-image-link" title={src}>
+        Image: {alt || src}
+      </a>
+    ) : (
+      <span title="Image removed: its address is not allowed">Image: {alt}</span>
+    ),
   a: ({ href, children }) =>
     href ? (
       <a href={href} target="_blank" rel="noopener noreferrer nofollow">

@@ -4,6 +4,7 @@ import { defineEntry } from './entry';
 import { defineMembership } from './membership';
 import { defineSample } from './sample';
 import { defineSamplePlane } from './sample-plane';
+import { defineSignInSession } from './sign-in-session';
 import { defineSiteSetting } from './site-setting';
 import { defineStudy } from './study';
 import { defineUser } from './user';
@@ -21,6 +22,7 @@ export function defineModels(sequelize: Sequelize) {
   const Sample = defineSample(sequelize);
   const SamplePlane = defineSamplePlane(sequelize);
   const ApiToken = defineApiToken(sequelize);
+  const SignInSession = defineSignInSession(sequelize);
 
   Study.hasMany(Membership, { foreignKey: 'studyId', as: 'memberships' });
   Membership.belongsTo(Study, { foreignKey: 'studyId', as: 'study' });
@@ -36,7 +38,7 @@ export function defineModels(sequelize: Sequelize) {
   Sample.hasMany(SamplePlane, { foreignKey: 'sampleId', as: 'planes' });
   ApiToken.belongsTo(User, { foreignKey: 'userId', as: 'user' });
 
-  return { User, SiteSetting, Study, Membership, Entry, Sample, SamplePlane, ApiToken };
+  return { User, SiteSetting, Study, Membership, Entry, Sample, SamplePlane, ApiToken, SignInSession };
 }
 
 export type Models = ReturnType<typeof defineModels>;

@@ -43,6 +43,11 @@ export function defineSample(sequelize: Sequelize) {
     declare finishedAt: CreationOptional<Date | null>;
     /** Time from the job's start to its end on a monotonic clock (null until it ends). */
     declare processingMs: CreationOptional<number | null>;
+    /**
+     * The sample whose folder under storage/samples/ holds this sample's tables, when it shares them (the same
+     * file processed with the same settings, attached to another study); null when the folder is its own.
+     */
+    declare tablesId: CreationOptional<number | null>;
     declare createdAt: CreationOptional<Date>;
     declare updatedAt: CreationOptional<Date>;
     declare study?: NonAttribute<Study>;
@@ -74,6 +79,7 @@ export function defineSample(sequelize: Sequelize) {
       startedAt: { type: DataTypes.DATE, allowNull: true },
       finishedAt: { type: DataTypes.DATE, allowNull: true },
       processingMs: { type: DataTypes.INTEGER, allowNull: true },
+      tablesId: { type: DataTypes.INTEGER, allowNull: true },
       ...timestampColumns,
     },
     tableOptions(sequelize, 'samples'),

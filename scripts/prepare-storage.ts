@@ -1,9 +1,11 @@
 // What every start does before the web server runs (npm start and the test harness alike):
-// storage folder, session secret, schema migrations, and the demo data on the very first start.
+// storage folder, session secret, schema migrations, the demo data on the very first start, and private modes
+// (folders 0700, files 0600) on everything in storage.
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { ensureAuthSecret } from '../lib/auth/secret';
 import type { Environment, ServerConfig } from '../lib/config/environment';
+import { makeStoragePrivate } from '../lib/config/private-files';
 import { openDatabase } from '../lib/db/connection';
 import { seedOnce, type DemoAccount } from '../lib/demo/seed';
 import { migrateUp } from '../models/migrate';
@@ -29,5 +31,6 @@ export async function prepareStorage(
     return { secret, appliedMigrations, demoAccounts };
   } finally {
     await database.sequelize.close();
+    makeStoragePrivate(config.storageDir, config.databasePath);
   }
 }

@@ -32,7 +32,10 @@ interface UserRowProps {
   onChanged: () => Promise<unknown>;
 }
 
-/** One account: its site role and whether it may sign in. On narrow screens the controls wrap under the name. */
+/**
+ * One account: its site role and whether it may sign in. On narrow screens the controls wrap under the name. An
+ * admin's own row offers neither demotion nor "Disable" (the server refuses both: nobody locks themselves out).
+ */
 export function UserRow({ user, isMe, onChanged }: UserRowProps) {
   const update = useAction(async (change: { siteRole?: SiteRole; disabled?: boolean }) => {
     await sendJson('PATCH', `/api/admin/users/${user.id}`, change);
@@ -50,7 +53,8 @@ export function UserRow({ user, isMe, onChanged }: UserRowProps) {
         <select
           aria-label={`Site role of ${user.name}`}
           value={user.siteRole}
-          disabled={update.pending}
+          disabled={update.pending || isMe}
+          title={isMe ? 'Another admin can change your role' : undefined}
           onChange={(event) => update.run({ siteRole: event.target.value as SiteRole })}
           className={`${inlineSelectClass} ${userColumns.role}`}
         >
@@ -58,6 +62,7 @@ export function UserRow({ user, isMe, onChanged }: UserRowProps) {
           <option value="admin">Admin</option>
         </select>
         <div className={userColumns.action}>
+          {isMe ? null : (
           <Button
             size="sm"
             variant={user.disabled ? 'secondary' : 'danger'}
@@ -67,6 +72,7 @@ export function UserRow({ user, isMe, onChanged }: UserRowProps) {
           >
             {user.disabled ? 'Enable' : 'Disable'}
           </Button>
+          )}
         </div>
       </div>
       {update.error && (

@@ -9,7 +9,8 @@ export const HORIZONTAL_LABELS: Record<HorizontalCoordinate, string> = {
   lnRoverDelta: 'ln(R/Δ)',
 };
 
-export const VERTICAL_LABEL = 'ln(k_t / GeV)';
+// Unicode subscript: the axis label is SVG text, where markup does not go.
+export const VERTICAL_LABEL = 'ln(kₜ / GeV)';
 export const DENSITY_LABEL = 'emissions per jet per unit area';
 
 /** Width of the server's fine bins in both coordinates (lib/physics/density.ts); coarse bins merge whole fine ones. */

@@ -7,10 +7,12 @@ interface FileDropProps {
   file: File | null;
   onFile: (file: File) => void;
   disabled?: boolean;
+  /** What is wrong with the file (or its absence): shown in the zone, the picker marked invalid. */
+  error?: string;
 }
 
 /** A zone that takes a dropped file, with a file picker inside it for those who prefer to browse. */
-export function FileDrop({ file, onFile, disabled }: FileDropProps) {
+export function FileDrop({ file, onFile, disabled, error }: FileDropProps) {
   const inputId = useId();
   const [over, setOver] = useState(false);
 
@@ -30,7 +32,7 @@ export function FileDrop({ file, onFile, disabled }: FileDropProps) {
       onDragLeave={() => setOver(false)}
       onDrop={take}
       className={`rounded-lg border-2 border-dashed px-4 py-8 text-center transition-colors ${
-        over ? 'border-accent bg-accent-soft/50' : 'border-ink/20 bg-paper-raised'
+        over ? 'border-accent bg-accent-soft/50' : error ? 'border-danger/60 bg-paper-raised' : 'border-ink/20 bg-paper-raised'
       }`}
     >
       {file ? (
@@ -53,6 +55,8 @@ export function FileDrop({ file, onFile, disabled }: FileDropProps) {
         id={inputId}
         type="file"
         aria-label="Particle file"
+        aria-invalid={error ? true : undefined}
+        aria-describedby={error ? `${inputId}-error` : undefined}
         accept=".jsonl,.json,.gz,.hepmc,.hepmc3,.txt"
         className="sr-only"
         disabled={disabled}
@@ -61,6 +65,11 @@ export function FileDrop({ file, onFile, disabled }: FileDropProps) {
           if (chosen) onFile(chosen);
         }}
       />
+      {error && (
+        <p id={`${inputId}-error`} className="mt-3 text-xs font-medium text-danger">
+          {error}
+        </p>
+      )}
       <p className="mt-3 text-xs text-ink-faint">
         splitfield-particles (JSON Lines or one JSON document) or HepMC3 text, optionally gzip-compressed.
       </p>

@@ -8,6 +8,7 @@ import { Button } from '../button';
 import { LoadingBlock } from '../loading-block';
 import { Notice } from '../notice';
 import { Panel } from '../panel';
+import { Typeset } from '../typeset';
 import { formatCount, formatValue } from './numbers';
 import { cellClass, DataTable, nextSort, numberCellClass, SortHeader, type SortState } from './table';
 
@@ -21,8 +22,9 @@ interface JetPage {
 type JetSortKey = 'row' | 'pt' | 'y' | 'phi' | 'm' | 'n' | 'mg' | 'zg' | 'Rg' | 'mult';
 
 /** Numeric columns after the record: heading, tooltip, and how to write the value of a jet. */
+// Headings are typeset (components/typeset.tsx): "m_g" reads as m with a subscript g.
 const COLUMNS: { key: Exclude<JetSortKey, 'row'>; heading: string; title: string; value: (jet: JetRow) => string }[] = [
-  { key: 'pt', heading: 'pt', title: 'Transverse momentum (GeV)', value: (jet) => formatValue(jet.pt) },
+  { key: 'pt', heading: 'p_T', title: 'Transverse momentum (GeV)', value: (jet) => formatValue(jet.pt) },
   { key: 'y', heading: 'y', title: 'Rapidity', value: (jet) => formatValue(jet.y) },
   { key: 'phi', heading: 'φ', title: 'Azimuth, 0 to 2π', value: (jet) => formatValue(jet.phi) },
   { key: 'm', heading: 'm', title: 'Mass (GeV)', value: (jet) => formatValue(jet.m) },
@@ -30,7 +32,7 @@ const COLUMNS: { key: Exclude<JetSortKey, 'row'>; heading: string; title: string
   { key: 'mg', heading: 'm_g', title: 'SoftDrop groomed mass (GeV)', value: (jet) => formatValue(jet.mg) },
   { key: 'zg', heading: 'z_g', title: 'SoftDrop momentum fraction', value: (jet) => formatValue(jet.zg) },
   { key: 'Rg', heading: 'R_g', title: 'SoftDrop opening angle', value: (jet) => formatValue(jet.Rg) },
-  { key: 'mult', heading: 'mult', title: 'Primary splittings above the multiplicity kt cut', value: (jet) => formatCount(jet.mult) },
+  { key: 'mult', heading: 'mult', title: 'Primary splittings above the multiplicity kₜ cut', value: (jet) => formatCount(jet.mult) },
 ];
 
 function JetRows({ jets }: { jets: JetRow[] }) {
@@ -66,7 +68,7 @@ export function JetTable({ sampleId }: { sampleId: number }) {
   }
 
   const header = (key: JetSortKey, heading: string, title: string, align: 'left' | 'right') => (
-    <SortHeader key={key} label={heading} title={title} align={align} className="normal-case" active={sort.key === key} order={sort.order} onSort={() => sortBy(key)} />
+    <SortHeader key={key} label={<Typeset text={heading} />} title={title} align={align} className="normal-case!" active={sort.key === key} order={sort.order} onSort={() => sortBy(key)} />
   );
   return (
     <Panel title="Jets" aside={data && `${formatCount(data.total)} kept`} lead="Values in GeV where they have a unit. A dash: no splitting passed SoftDrop.">

@@ -35,15 +35,20 @@ interface ProcessingPanelProps {
   onCancel?: () => Promise<unknown>;
 }
 
-/** Live news of a queued or running sample, refreshed by the page about once a second. */
+/** Live news of a queued or running sample, refreshed by the page about once a second; it says what the state badge says. */
 export function ProcessingPanel({ sample, onCancel }: ProcessingPanelProps) {
   const { progress } = sample;
-  const running = sample.state === 'running' && progress !== null;
+  const running = sample.state === 'running';
   return (
-    <Panel title={running ? 'Processing' : 'Waiting to be processed'} aside={running ? `${Math.round(progress.fraction * 100)} %` : undefined}>
+    <Panel
+      title={running ? 'Processing' : 'Waiting to be processed'}
+      aside={running && progress ? `${Math.round(progress.fraction * 100)} %` : undefined}
+    >
       <div className="space-y-4">
-        {running ? (
+        {running && progress ? (
           <RunningProgress progress={progress} />
+        ) : running ? (
+          <p className="text-sm text-ink-soft">Processing has started: the file is being opened. Progress appears in a moment.</p>
         ) : (
           <p className="text-sm text-ink-soft">Waiting for its turn in the processing queue. This page follows it by itself.</p>
         )}

@@ -20,6 +20,7 @@ interface NumericField {
   /** Where the value goes in the settings object: a group of it, or the top level. */
   group: Group;
   key: string;
+  /** Shown typeset (components/typeset.tsx): "z_cut" has a subscript. */
   label: string;
   hint: string;
   /** The shown default; blank means "not set" (all jets, R0 = R). */
@@ -34,7 +35,7 @@ export const NUMERIC_FIELDS: NumericField[] = [
     name: 'ptMin',
     group: 'jet',
     key: 'ptMin',
-    label: 'pt min (GeV)',
+    label: 'p_T min (GeV)',
     hint: `Keeps jets above it. ${withDefault(DEFAULTS.jet.ptMin)}`,
     initial: String(DEFAULTS.jet.ptMin),
   },
@@ -49,44 +50,54 @@ export const NUMERIC_FIELDS: NumericField[] = [
   { name: 'maxJets', group: 'jet', key: 'maxJets', label: 'Leading jets per record', hint: 'Blank keeps every jet that passes.', initial: '' },
   { name: 'zCut', group: 'softDrop', key: 'zCut', label: 'SoftDrop z_cut', hint: withDefault(DEFAULTS.softDrop.zCut), initial: String(DEFAULTS.softDrop.zCut) },
   { name: 'beta', group: 'softDrop', key: 'beta', label: 'SoftDrop β', hint: `${withDefault(DEFAULTS.softDrop.beta)} 0 is the modified mass drop.`, initial: String(DEFAULTS.softDrop.beta) },
-  { name: 'R0', group: 'softDrop', key: 'R0', label: 'SoftDrop R0', hint: 'Blank uses the jet radius R.', initial: '' },
+  { name: 'R0', group: 'softDrop', key: 'R0', label: 'SoftDrop R_0', hint: 'Blank uses the jet radius R.', initial: '' },
   {
     name: 'ktCut',
     group: null,
     key: 'multiplicityKtCut',
-    label: 'Multiplicity kt cut (GeV)',
+    label: 'Multiplicity k_t cut (GeV)',
     hint: `Counts primary splittings above it. ${withDefault(DEFAULTS.multiplicityKtCut)}`,
     initial: String(DEFAULTS.multiplicityKtCut),
   },
 ];
 
-export type SettingsResult = { settings: Record<string, unknown>; problems: null } | { settings: null; problems: string[] };
+/** What is wrong, by the name of the form field it belongs to. */
+export type FieldProblems = Record<string, string>;
+
+export type SettingsResult = { settings: Record<string, unknown>; problems: null } | { settings: null; problems: FieldProblems };
 
 /** Reads the settings fields of the upload form: the settings to send, or what is wrong with them. */
 export function readSettings(data: FormData): SettingsResult {
   const jet: Record<string, unknown> = { algorithm: data.get('algorithm') };
   const softDrop: Record<string, unknown> = {};
   const settings: Record<string, unknown> = { jet, softDrop, fullTree: data.get('fullTree') === 'on' };
-  const problems: string[] = [];
+  const problems: FieldProblems = {};
   for (const field of NUMERIC_FIELDS) {
     const text = String(data.get(field.name) ?? '').trim();
     if (text === '') {
-      if (field.initial !== '') problems.push(`${field.label}: enter a number.`);
+      if (field.initial !== '') problems[field.name] = 'Enter a number.';
       continue;
     }
     const target = field.group === 'jet' ? jet : field.group === 'softDrop' ? softDrop : settings;
     target[field.key] = Number(text);
   }
-  if (problems.length) return { settings: null, problems };
+  if (Object.keys(problems).length > 0) return { settings: null, problems };
   const checked = settingsInputSchema.safeParse(settings);
   if (checked.success) return { settings, problems: null };
-  return { settings: null, problems: checked.error.issues.map(({ path, message }) => problemText(path, message)) };
+  const found: FieldProblems = {};
+  for (const { path, message } of checked.error.issues) found[settingsFieldName(path)] ??= problemText(path, message);
+  return { settings: null, problems: found };
 }
 
-/** "jet.R must be in (0, 10]" → "Jet radius R must be in (0, 10]": the server's rule in the form's words. */
-function problemText(path: PropertyKey[], message: string): string {
+/** The form field of a settings path: ["jet", "R"] → "R", ["multiplicityKtCut"] → "ktCut". */
+export function settingsFieldName(path: readonly PropertyKey[]): string {
   const key = String(path[path.length - 1]);
-  const label = NUMERIC_FIELDS.find((field) => field.key === key)?.label ?? key;
+  return NUMERIC_FIELDS.find((field) => field.key === key)?.name ?? key;
+}
+
+/** "jet.R must be in (0, 10]" → "Must be in (0, 10].": the server's rule, shown beside its field. */
+function problemText(path: readonly PropertyKey[], message: string): string {
   const dotted = path.join('.');
-  return message.startsWith(`${dotted} `) ? `${label} ${message.slice(dotted.length + 1)}.` : `${label}: ${message}.`;
+  const rule = message.startsWith(`${dotted} `) ? message.slice(dotted.length + 1) : message;
+  return `${rule.charAt(0).toUpperCase()}${rule.slice(1)}.`;
 }

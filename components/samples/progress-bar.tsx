@@ -1,4 +1,4 @@
-/** A labelled bar from 0 to 1. */
+/** A labelled bar from 0 to 1. No width animation: the bar shows the fraction the text beside it names. */
 export function ProgressBar({ label, fraction }: { label: string; fraction: number }) {
   const percent = Math.round(Math.min(1, Math.max(0, fraction)) * 100);
   return (
@@ -10,7 +10,7 @@ export function ProgressBar({ label, fraction }: { label: string; fraction: numb
       aria-valuenow={percent}
       className="h-2.5 w-full overflow-hidden rounded-full bg-paper-sunk"
     >
-      <div className="h-full rounded-full bg-accent transition-[width] duration-300" style={{ width: `${percent}%` }} />
+      <div className="h-full rounded-full bg-accent" style={{ width: `${percent}%` }} />
     </div>
   );
 }

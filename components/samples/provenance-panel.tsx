@@ -4,6 +4,7 @@ import type { SampleSettings } from '@/models/sample-fields';
 import { buttonClass } from '../button';
 import { formatDateTime } from '../format';
 import { Panel } from '../panel';
+import { Typeset } from '../typeset';
 import { formatBytes } from './numbers';
 import { ALGORITHM_NAMES } from './processing-settings';
 
@@ -51,9 +52,9 @@ function settingsFacts(settings: SampleSettings, tree: SampleProvenance['tree'])
   const { jet, softDrop } = settings;
   return [
     ['Jets', `${ALGORITHM_NAMES[jet.algorithm]}, R = ${jet.R}`],
-    ['Cuts', `pt > ${jet.ptMin} GeV, |y| < ${jet.yMax}, ${jet.maxJets === null ? 'all jets' : `${jet.maxJets} leading jets`} per record`],
-    ['SoftDrop', `z_cut = ${softDrop.zCut}, β = ${softDrop.beta}, R0 = ${softDrop.R0}`],
-    ['Multiplicity', `primary splittings with kt > ${settings.multiplicityKtCut} GeV`],
+    ['Cuts', <Typeset key="cuts" text={`p_T > ${jet.ptMin} GeV, |y| < ${jet.yMax}, ${jet.maxJets === null ? 'all jets' : `${jet.maxJets} leading jets`} per record`} />],
+    ['SoftDrop', <Typeset key="softdrop" text={`z_cut = ${softDrop.zCut}, β = ${softDrop.beta}, R_0 = ${softDrop.R0}`} />],
+    ['Multiplicity', <Typeset key="multiplicity" text={`primary splittings with k_t > ${settings.multiplicityKtCut} GeV`} />],
     ['Stored', tree === 'full' ? 'every splitting of the C/A tree' : 'primary splittings'],
   ];
 }

@@ -1,5 +1,6 @@
 import type { SampleCounts } from '@/models/sample-fields';
 import { Panel } from '../panel';
+import { Typeset } from '../typeset';
 import { formatCount } from './numbers';
 import { StatGrid } from './stat-grid';
 
@@ -16,7 +17,7 @@ export function SampleCountsPanel({ counts }: { counts: SampleCounts }) {
           {
             label: 'Jets rejected',
             value: formatCount(rejected.pt + rejected.y + rejected.rank),
-            note: `pt ${formatCount(rejected.pt)} · |y| ${formatCount(rejected.y)} · leading-N ${formatCount(rejected.rank)}`,
+            note: <Typeset text={`p_T ${formatCount(rejected.pt)} · |y| ${formatCount(rejected.y)} · leading-N ${formatCount(rejected.rank)}`} />,
           },
           {
             label: 'Primary splittings',

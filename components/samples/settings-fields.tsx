@@ -1,8 +1,9 @@
 import { SelectField, TextField } from '../fields';
-import { ALGORITHM_NAMES, DEFAULTS, NUMERIC_FIELDS } from './processing-settings';
+import { Typeset } from '../typeset';
+import { ALGORITHM_NAMES, DEFAULTS, NUMERIC_FIELDS, type FieldProblems } from './processing-settings';
 
-/** The processing settings of an upload, prefilled with the defaults. */
-export function SettingsFields({ disabled }: { disabled?: boolean }) {
+/** The processing settings of an upload, prefilled with the defaults; a problem shows beside its field. */
+export function SettingsFields({ disabled, errors = {} }: { disabled?: boolean; errors?: FieldProblems }) {
   return (
     <fieldset disabled={disabled} className="space-y-4">
       <p className="text-xs text-ink-soft">
@@ -10,7 +11,7 @@ export function SettingsFields({ disabled }: { disabled?: boolean }) {
         used, and R sets ln(R/Δ) and SoftDrop&apos;s default R0.
       </p>
       <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
-        <SelectField label="Jet algorithm" name="algorithm" defaultValue={DEFAULTS.jet.algorithm} hint="Finds the jets in events.">
+        <SelectField label="Jet algorithm" name="algorithm" defaultValue={DEFAULTS.jet.algorithm} hint="Finds the jets in events." error={errors.algorithm}>
           {Object.entries(ALGORITHM_NAMES).map(([value, name]) => (
             <option key={value} value={value}>
               {name}
@@ -18,7 +19,15 @@ export function SettingsFields({ disabled }: { disabled?: boolean }) {
           ))}
         </SelectField>
         {NUMERIC_FIELDS.map((field) => (
-          <TextField key={field.name} label={field.label} name={field.name} hint={field.hint} inputMode="decimal" defaultValue={field.initial} />
+          <TextField
+            key={field.name}
+            label={<Typeset text={field.label} />}
+            name={field.name}
+            hint={field.hint}
+            error={errors[field.name]}
+            inputMode="decimal"
+            defaultValue={field.initial}
+          />
         ))}
       </div>
       <label className="flex items-start gap-2 text-sm text-ink">

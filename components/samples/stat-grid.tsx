@@ -4,7 +4,7 @@ export interface Stat {
   label: string;
   value: ReactNode;
   /** A line under the value, e.g. what a count includes. */
-  note?: string;
+  note?: ReactNode;
 }
 
 /** A few headline numbers side by side (two a row on narrow screens). */

@@ -21,7 +21,7 @@ export function DataTable({ label, head, children }: { label: string; head: Reac
 export type SortOrder = 'asc' | 'desc';
 
 interface SortHeaderProps {
-  label: string;
+  label: ReactNode;
   active: boolean;
   order: SortOrder;
   onSort: () => void;

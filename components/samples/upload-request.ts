@@ -3,6 +3,7 @@
 import { ApiError } from '@/lib/api/client';
 import type { SampleSummary } from '@/lib/samples/shapes';
 
+/** 202 queued or 201 done on tables of the same file processed elsewhere: `sample`; 200: `duplicateOf`. */
 export type UploadAnswer = { sample: SampleSummary } | { duplicateOf: SampleSummary };
 
 export interface UploadHandle {
@@ -27,7 +28,8 @@ export function sendUpload(form: FormData, onProgress: (fraction: number) => voi
       const body = request.response;
       if (request.status >= 200 && request.status < 300 && body) return resolve(body as UploadAnswer);
       const message = typeof body?.error?.message === 'string' ? body.error.message : `The server answered ${request.status}.`;
-      reject(new ApiError(message, request.status, body?.error?.code));
+      const details = Array.isArray(body?.error?.details) ? body.error.details : [];
+      reject(new ApiError(message, request.status, body?.error?.code, details));
     };
     request.onerror = () => reject(new ApiError('The upload did not reach the server. Check the connection and try again.', 0));
     request.onabort = () => reject(new ApiError(UPLOAD_CANCELLED, 0, 'cancelled'));

@@ -2,8 +2,8 @@
 
 import Link from 'next/link';
 import { useRouter } from 'next/navigation';
-import { useRef, useState, type FormEvent } from 'react';
-import { messageOf } from '@/lib/api/client';
+import { useEffect, useRef, useState, type FormEvent } from 'react';
+import { ApiError, messageOf, sendJson } from '@/lib/api/client';
 import { Button, buttonClass } from '../button';
 import { EmptyState } from '../empty-state';
 import { LoadingBlock } from '../loading-block';
@@ -13,7 +13,7 @@ import { Panel } from '../panel';
 import { DuplicateNotice } from './duplicate-notice';
 import { describeFile, type SampleDescription } from './file-header';
 import { FileDrop } from './file-drop';
-import { readSettings } from './processing-settings';
+import { readSettings, settingsFieldName, type FieldProblems } from './processing-settings';
 import type { SampleSummary } from '@/lib/samples/shapes';
 import { SampleFields } from './sample-fields';
 import { SettingsFields } from './settings-fields';
@@ -28,6 +28,29 @@ type Phase =
 
 const EMPTY_DESCRIPTION: SampleDescription = { name: '', label: '', description: '', tags: '' };
 
+/** Fields of the form by the names the server uses in its error details. */
+const FORM_FIELDS = new Set(['file', 'studyId', 'name', 'label', 'description', 'tags']);
+
+/** What the form shows: problems beside their fields, and those that belong to no field. */
+interface Problems {
+  fields: FieldProblems;
+  general: string[];
+}
+
+const NO_PROBLEMS: Problems = { fields: {}, general: [] };
+
+/** The server's refusal as problems beside the fields it names ("settings.jet.R" is the field R). */
+function serverProblems(error: unknown): Problems {
+  const fields: FieldProblems = {};
+  const details = error instanceof ApiError ? error.details : [];
+  for (const { path, message } of details) {
+    const [head, ...rest] = path.split('.');
+    const field = head === 'settings' && rest.length > 0 ? settingsFieldName(rest) : head;
+    if (FORM_FIELDS.has(field) || (head === 'settings' && rest.length > 0)) fields[field] ??= message;
+  }
+  return Object.keys(fields).length > 0 ? { fields, general: [] } : { fields: {}, general: [messageOf(error)] };
+}
+
 /** The upload page: a file, what to call it, the study it belongs to and how to process it. */
 export function UploadView({ studyId }: { studyId?: string }) {
   const router = useRouter();
@@ -35,9 +58,16 @@ export function UploadView({ studyId }: { studyId?: string }) {
   const [file, setFile] = useState<File | null>(null);
   const [description, setDescription] = useState(EMPTY_DESCRIPTION);
   const [phase, setPhase] = useState<Phase>({ kind: 'editing' });
-  const [problems, setProblems] = useState<string[]>([]);
+  const [problems, setProblems] = useState<Problems>(NO_PROBLEMS);
   const [cancelled, setCancelled] = useState(false);
   const chosenFile = useRef<File | null>(null);
+  const form = useRef<HTMLFormElement>(null);
+
+  // The first field with a problem takes the focus, so a keyboard or screen-reader user lands on it.
+  useEffect(() => {
+    if (Object.keys(problems.fields).length === 0) return;
+    form.current?.querySelector<HTMLElement>('[aria-invalid="true"]')?.focus();
+  }, [problems]);
 
   async function chooseFile(next: File) {
     chosenFile.current = next;
@@ -48,7 +78,7 @@ export function UploadView({ studyId }: { studyId?: string }) {
   }
 
   async function send(body: FormData) {
-    setProblems([]);
+    setProblems(NO_PROBLEMS);
     setCancelled(false);
     const upload = sendUpload(body, (fraction) => setPhase({ kind: 'sending', fraction, cancel: upload.cancel }));
     setPhase({ kind: 'sending', fraction: 0, cancel: upload.cancel });
@@ -59,7 +89,7 @@ export function UploadView({ studyId }: { studyId?: string }) {
     } catch (caught) {
       setPhase({ kind: 'editing' });
       if (messageOf(caught) === UPLOAD_CANCELLED) setCancelled(true);
-      else setProblems([messageOf(caught)]);
+      else setProblems(serverProblems(caught));
     }
   }
 
@@ -67,14 +97,30 @@ export function UploadView({ studyId }: { studyId?: string }) {
     event.preventDefault();
     const data = new FormData(event.currentTarget);
     const { settings, problems: settingProblems } = readSettings(data);
-    const missing = [!file && 'Choose a file to upload.', !data.get('studyId') && 'Choose the study the sample belongs to.'];
-    const found = [...missing.filter((text): text is string => !!text), ...(settingProblems ?? [])];
-    if (!file || !settings || found.length > 0) return setProblems(found);
+    const found: FieldProblems = {};
+    if (!file) found.file = 'Choose a file to upload.';
+    if (!String(data.get('name') ?? '').trim()) found.name = 'Give the sample a name.';
+    if (!data.get('studyId')) found.studyId = 'Choose the study the sample belongs to.';
+    Object.assign(found, settingProblems);
+    if (!file || !settings || Object.keys(found).length > 0) return setProblems({ fields: found, general: [] });
     const body = new FormData();
     for (const name of ['studyId', 'name', 'label', 'description', 'tags']) body.append(name, String(data.get(name) ?? '').trim());
     body.append('settings', JSON.stringify(settings));
     body.append('file', file); // last, so the server knows the study and settings before the bytes arrive
     void send(body);
+  }
+
+  async function attach(existing: SampleSummary, body: FormData) {
+    try {
+      const answer = await sendJson<{ sample: SampleSummary }>('POST', `/api/samples/${existing.id}/attach`, {
+        studyId: Number(body.get('studyId')),
+        name: String(body.get('name') ?? '').trim() || undefined,
+      });
+      router.push(`/samples/${answer.sample.id}`);
+    } catch (caught) {
+      setPhase({ kind: 'editing' });
+      setProblems(serverProblems(caught));
+    }
   }
 
   function processAnyway(body: FormData) {
@@ -101,36 +147,40 @@ export function UploadView({ studyId }: { studyId?: string }) {
       />
       <form
         onSubmit={submit}
-        onChange={() => problems.length > 0 && setProblems([])}
+        ref={form}
         aria-label="Upload a sample"
         className="space-y-6"
         noValidate
       >
         <Panel title="File and description">
           <div className="space-y-4">
-            <FileDrop file={file} onFile={chooseFile} disabled={busy} />
+            <FileDrop file={file} onFile={chooseFile} disabled={busy} error={problems.fields.file} />
             <SampleFields
               studies={editable}
               studyId={studyId}
               description={description}
               onDescription={setDescription}
               disabled={busy}
+              errors={problems.fields}
             />
           </div>
         </Panel>
         <Panel title="How to process it">
-          <SettingsFields disabled={busy} />
+          <SettingsFields disabled={busy} errors={problems.fields} />
         </Panel>
-        {problems.length > 0 && (
-          <Notice tone="error">
-            {problems.length === 1 ? problems[0] : <ul className="list-disc pl-4">{problems.map((text) => <li key={text}>{text}</li>)}</ul>}
-          </Notice>
+        {problems.general.length > 0 && <Notice tone="error">{problems.general.join(' ')}</Notice>}
+        {Object.keys(problems.fields).length > 0 && (
+          <p role="alert" className="text-sm font-medium text-danger">
+            {Object.keys(problems.fields).length === 1 ? 'One field needs attention' : `${Object.keys(problems.fields).length} fields need attention`}: see the messages beside them.
+          </p>
         )}
         {cancelled && <Notice>{UPLOAD_CANCELLED} Nothing was stored.</Notice>}
         {phase.kind === 'sending' && file && <TransferProgress file={file} fraction={phase.fraction} onCancel={phase.cancel} />}
         {phase.kind === 'duplicate' && (
           <DuplicateNotice
             existing={phase.existing}
+            targetStudyId={Number(phase.body.get('studyId'))}
+            onAttach={() => void attach(phase.existing, phase.body)}
             onProcessAnyway={() => processAnyway(phase.body)}
             onDismiss={() => setPhase({ kind: 'editing' })}
           />

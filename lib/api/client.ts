@@ -1,11 +1,18 @@
 // Browser-side access to Splitfield's JSON API. Every failure becomes an ApiError that carries the
 // server's own message ({"error":{"code","message","details"}}), so screens can show it as is.
 
+/** Where in the request a problem is, as the server names it (a field, or a dotted path into the body). */
+export interface ApiErrorDetail {
+  path: string;
+  message: string;
+}
+
 export class ApiError extends Error {
   constructor(
     message: string,
     readonly status: number,
     readonly code?: string,
+    readonly details: ApiErrorDetail[] = [],
   ) {
     super(message);
     this.name = 'ApiError';
@@ -21,7 +28,7 @@ async function readResponse<T>(response: Response): Promise<T> {
       typeof error?.message === 'string' && error.message
         ? error.message
         : `The server answered ${response.status} ${response.statusText}`.trim();
-    throw new ApiError(message, response.status, error?.code);
+    throw new ApiError(message, response.status, error?.code, Array.isArray(error?.details) ? error.details : []);
   }
   return body as T;
 }

@@ -4,7 +4,9 @@ import { UniqueConstraintError } from 'sequelize';
 import type { z } from 'zod';
 import type { User } from '@/models/user';
 import { ApiError, conflict, unauthenticated } from './errors';
+import { requireSameOrigin } from './request-origin';
 import { readRouteParams } from './validation';
+import { bearerSecret } from '../auth/api-tokens';
 import { requestUser } from '../auth/session';
 import { requireSiteAdmin } from '../auth/study-access';
 
@@ -50,9 +52,13 @@ async function answer(work: () => Promise<Response>): Promise<Response> {
   }
 }
 
-/** A route anyone may call, signed in or not. */
+/** A route anyone may call, signed in or not; a data-changing call must come from this site (or no browser). */
 export function publicRoute(handler: (request: NextRequest) => Promise<Response>): RouteHandler {
-  return (request) => answer(() => handler(request));
+  return (request) =>
+    answer(() => {
+      requireSameOrigin(request);
+      return handler(request);
+    });
 }
 
 /** A route for signed-in users (401 otherwise), optionally site admins only (403 otherwise). */
@@ -62,6 +68,8 @@ export function signedInRoute<P = Record<string, never>>(
 ): RouteHandler {
   return (request, context) =>
     answer(async () => {
+      // A session cookie is sent by the browser whoever asks for it; a bearer token only by who holds it.
+      if (bearerSecret(request) === null) requireSameOrigin(request);
       const user = await requestUser(request);
       if (!user) throw unauthenticated();
       if (options.adminOnly) requireSiteAdmin(user);

@@ -10,6 +10,16 @@ import {
   STUDY_TITLE_MAX,
   USER_NAME_MAX,
 } from '@/models/vocabulary';
+import { bidiControlIn, bidiControlMessage } from './text-rules';
+
+/** Refuses text with bidirectional control characters (see text-rules.ts), naming the field and the character. */
+export function plainName<T extends z.ZodType<string>>(schema: T, what: string) {
+  return schema.check((context) => {
+    if (bidiControlIn(context.value) !== null) {
+      context.issues.push({ code: 'custom', message: bidiControlMessage(what, context.value), input: context.value });
+    }
+  });
+}
 
 export const emailSchema = z
   .string({ error: 'E-mail is required' })
@@ -23,17 +33,23 @@ export const passwordSchema = z
   .min(PASSWORD_MIN, `Password must be at least ${PASSWORD_MIN} characters`)
   .refine((password) => Buffer.byteLength(password) <= PASSWORD_MAX, `Password must be at most ${PASSWORD_MAX} bytes`);
 
-export const userNameSchema = z
-  .string({ error: 'Name is required' })
-  .trim()
-  .min(1, 'Name must not be empty')
-  .max(USER_NAME_MAX, `Name must be at most ${USER_NAME_MAX} characters`);
+export const userNameSchema = plainName(
+  z
+    .string({ error: 'Name is required' })
+    .trim()
+    .min(1, 'Name must not be empty')
+    .max(USER_NAME_MAX, `Name must be at most ${USER_NAME_MAX} characters`),
+  'Name',
+);
 
-export const studyTitleSchema = z
-  .string({ error: 'Title is required' })
-  .trim()
-  .min(1, 'Title must not be empty')
-  .max(STUDY_TITLE_MAX, `Title must be at most ${STUDY_TITLE_MAX} characters`);
+export const studyTitleSchema = plainName(
+  z
+    .string({ error: 'Title is required' })
+    .trim()
+    .min(1, 'Title must not be empty')
+    .max(STUDY_TITLE_MAX, `Title must be at most ${STUDY_TITLE_MAX} characters`),
+  'Title',
+);
 
 export const studyDescriptionSchema = z
   .string({ error: 'Description must be text' })
@@ -54,10 +70,13 @@ export function atLeastOneField<T extends z.ZodRawShape>(shape: T) {
     .refine((value) => Object.values(value).some((field) => field !== undefined), 'Give at least one field to change');
 }
 
-export const entryTitleSchema = z
-  .string({ error: 'Title must be text' })
-  .trim()
-  .max(ENTRY_TITLE_MAX, `Title must be at most ${ENTRY_TITLE_MAX} characters`);
+export const entryTitleSchema = plainName(
+  z
+    .string({ error: 'Title must be text' })
+    .trim()
+    .max(ENTRY_TITLE_MAX, `Title must be at most ${ENTRY_TITLE_MAX} characters`),
+  'Title',
+);
 
 export const noteBodySchema = z
   .string({ error: 'Body is required and must be text (Markdown)' })

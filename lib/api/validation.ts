@@ -1,5 +1,8 @@
 import type { z } from 'zod';
+import { readLimitedText } from './body';
+import { BODY_LIMITS } from './body-limits';
 import { ApiError, badRequest, notFound, type ErrorDetail } from './errors';
+import { requireJsonContentType } from './request-origin';
 
 /** zod's issues as the error body's details, each naming where in the input it is (`root`: the input itself). */
 export function issueDetails(error: z.ZodError, root = '(body)'): ErrorDetail[] {
@@ -13,9 +16,17 @@ function summary(details: ErrorDetail[]): string {
   return details.map((detail) => `${detail.path}: ${detail.message}`).join('; ');
 }
 
-/** The request's JSON body checked against the schema; 400 when it is not JSON or does not fit. */
-export async function readJsonBody<T>(request: Request, schema: z.ZodType<T>): Promise<T> {
-  const text = await request.text();
+/**
+ * The request's JSON body checked against the schema: 415 without a JSON content type, 413 above `limit` bytes
+ * (enforced while reading), 400 when it is not JSON or does not fit.
+ */
+export async function readJsonBody<T>(
+  request: Request,
+  schema: z.ZodType<T>,
+  limit: number = BODY_LIMITS.standard,
+): Promise<T> {
+  requireJsonContentType(request);
+  const text = await readLimitedText(request, limit);
   let body: unknown;
   try {
     body = JSON.parse(text);

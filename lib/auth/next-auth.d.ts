@@ -16,5 +16,7 @@ declare module 'next-auth/jwt' {
     siteRole?: SiteRole;
     /** The user's sessionVersion when this token was issued. */
     sessionVersion?: number;
+    /** The key of the session's row on the server (lib/auth/server-sessions.ts). */
+    sid?: string;
   }
 }

@@ -2,6 +2,7 @@ import type { NextAuthOptions } from 'next-auth';
 import CredentialsProvider from 'next-auth/providers/credentials';
 import { verifyCredentials } from './credentials';
 import { authSecret } from './secret';
+import { endServerSession, SESSION_MAX_AGE_SECONDS, startServerSession } from './server-sessions';
 import { activeUserForToken } from './session';
 import { SIGN_IN_PATH } from './paths';
 
@@ -9,9 +10,6 @@ import { SIGN_IN_PATH } from './paths';
 class SessionRevoked extends Error {
   override name = 'SessionRevoked';
 }
-
-// Sessions last a working fortnight; every use re-reads the user, so revocation does not wait for expiry.
-const SESSION_MAX_AGE_SECONDS = 14 * 24 * 60 * 60;
 
 let options: NextAuthOptions | undefined;
 
@@ -38,7 +36,11 @@ export function authOptions(): NextAuthOptions {
     ],
     callbacks: {
       async jwt({ token, user }) {
-        if (user) return { ...token, siteRole: user.siteRole, sessionVersion: user.sessionVersion };
+        if (user) {
+          // Every use re-reads the user and this row, so ending a session does not wait for the token's expiry.
+          const sid = await startServerSession(Number(user.id));
+          return { ...token, siteRole: user.siteRole, sessionVersion: user.sessionVersion, sid };
+        }
         const current = await activeUserForToken(token);
         if (!current) throw new SessionRevoked('The account was disabled or its sessions were ended.');
         return { ...token, name: current.name, email: current.email, siteRole: current.siteRole };
@@ -51,6 +53,12 @@ export function authOptions(): NextAuthOptions {
           siteRole: token.siteRole ?? 'member',
         };
         return session;
+      },
+    },
+    events: {
+      // The browser forgets its cookie; the server forgets the session, so a copy of the cookie stops working.
+      async signOut({ token }) {
+        await endServerSession(token?.sid);
       },
     },
     logger: {

@@ -1,6 +1,9 @@
 // Which pages need a session, and where someone without one is sent. Pure, for proxy.ts.
 export const SIGN_IN_PATH = '/sign-in';
 
+/** The request header in which proxy.ts tells the signed-in pages' layout the requested path. */
+export const PATHNAME_HEADER = 'x-splitfield-pathname';
+
 const PUBLIC_PAGES = [SIGN_IN_PATH, '/sign-up'];
 
 export function isPublicPage(pathname: string): boolean {

@@ -5,7 +5,7 @@ import { generateDijetEvent, generateEmissionRecords, type DijetEventSettings } 
 import { Rng } from '@/lib/physics/random';
 import { particlesFileLines } from '@/lib/ingest/generated-sample-file';
 import { hepmc3Lines, particlesHeaderLine, particlesRecordLine, type HepMC3EventOut } from '@/lib/ingest/particle-file-writer';
-import { DEMO_SCENARIO, demoSampleSpec } from './scenario';
+import { DEMO_NAMES, DEMO_SCENARIO, demoSampleSpec } from './scenario';
 
 export interface ExampleFile {
   /** File name under public/examples/; `.gz` ones are written gzip-compressed. */
@@ -69,7 +69,7 @@ function* exampleEvents(): Generator<ExampleEvent> {
 }
 
 const EVENTS_SAMPLE = {
-  name: 'Tallis upgrade B: example dijet events',
+  name: `${DEMO_NAMES.campaign}: example dijet events`,
   label: 'dijet-example',
   description: `${EXAMPLE_EVENTS} generated dijet events (a half-and-half mix of quark and gluon jets of 150-600 GeV, with soft underlying activity), a small example input.`,
   tags: ['example', 'generated', 'events'],
@@ -80,7 +80,7 @@ export const EXAMPLE_FILES: ExampleFile[] = [
     name: 'tallis-quark-jets.jsonl',
     holds: `${EXAMPLE_JETS} generated quark-like jets of 500 GeV (R = 0.8, content "jets": each record is one jet's constituents)`,
     command: 'splitfield decluster tallis-quark-jets.jsonl --R 0.8 --out quark-declusterings.jsonl',
-    lines: () => particlesFileLines({ ...demoSampleSpec('quark'), name: 'Tallis upgrade B: example quark-like jets', label: 'q-example' }, EXAMPLE_JETS, 4201),
+    lines: () => particlesFileLines({ ...demoSampleSpec('quark'), name: `${DEMO_NAMES.campaign}: example quark-like jets`, label: 'q-example' }, EXAMPLE_JETS, 4201),
   },
   {
     name: 'tallis-dijet-events.jsonl.gz',
@@ -101,7 +101,7 @@ export const EXAMPLE_FILES: ExampleFile[] = [
         let k = 0;
         for (const event of exampleEvents()) yield { number: ++k, weight: 1, particles: event.particles, pid: event.pid };
       })();
-      return hepmc3Lines(events, 'nominal', 'splitfield dijet generator (Tallis upgrade B example, fictional)');
+      return hepmc3Lines(events, 'nominal', `splitfield dijet generator (${DEMO_NAMES.campaign} example, fictional)`);
     },
   },
 ];

@@ -3,22 +3,30 @@
 import type { GeneratedSampleSpec } from '@/lib/ingest/generated-sample-file';
 import type { Parton } from '@/lib/physics/lo-density';
 
+/** The names as the demo's texts use them: one team, one detector, one campaign, everywhere. */
+export const DEMO_NAMES = {
+  team: 'Larkspur jet group',
+  detector: 'Tallis inner tracker',
+  campaign: 'Tallis upgrade, phase B',
+} as const;
+
+/** The same names as files carry them in their header metadata, marked as invented. */
 export const DEMO_SCENARIO = {
-  team: 'Larkspur jet group (fictional)',
-  detector: 'Tallis inner tracker (fictional)',
-  campaign: 'Tallis upgrade study, phase B (fictional)',
+  team: `${DEMO_NAMES.team} (fictional)`,
+  detector: `${DEMO_NAMES.detector} (fictional)`,
+  campaign: `${DEMO_NAMES.campaign} (fictional)`,
 } as const;
 
 /** The demo study's quark-like or gluon-like sample: 500 GeV jets, R = 0.8, light soft background. */
 export function demoSampleSpec(parton: Parton): GeneratedSampleSpec {
   const kind = parton === 'quark' ? 'quark-like' : 'gluon-like';
   return {
-    name: `Tallis upgrade B: ${kind} jets`,
+    name: `${DEMO_NAMES.campaign}: ${kind} jets`,
     label: parton === 'quark' ? 'q-demo' : 'g-demo',
     description:
       `${kind} jets of 500 GeV from Splitfield's leading-order emission generator (hard-collinear splitting ` +
-      'functions, one-loop running coupling, kt > 1 GeV) with a light uniform soft background, prepared by the ' +
-      'Larkspur jet group for the upgrade of the Tallis inner tracker (all fictional).',
+      `functions, one-loop running coupling, kt > 1 GeV) with a light uniform soft background, prepared by the ` +
+      `${DEMO_NAMES.team} for the ${DEMO_NAMES.campaign} of the ${DEMO_NAMES.detector} (all fictional).`,
     tags: ['demo', 'generated', kind],
     scenario: { ...DEMO_SCENARIO },
     settings: {

@@ -1,17 +1,18 @@
 // The demo study's words: an invented team (the Larkspur jet group) preparing for an invented detector
-// upgrade (the Tallis inner tracker). Every name here is fictional.
+// upgrade (the Tallis inner tracker). Every name here is fictional, and comes from scenario.ts.
+import { DEMO_NAMES } from './scenario';
 
 export const DEMO_STUDY = {
-  title: 'Quark-like vs gluon-like jets with the Tallis tracker',
+  title: `Quark-like vs gluon-like jets for the ${DEMO_NAMES.campaign}`,
   description:
-    'Does the finer angular resolution of the planned Tallis inner tracker sharpen quark/gluon separation ' +
-    'in the primary emission plane? Larkspur jet group, upgrade working study.',
+    `Does the finer angular resolution of the ${DEMO_NAMES.detector} after the ${DEMO_NAMES.campaign} sharpen ` +
+    `quark/gluon separation in the primary emission plane? A working study of the ${DEMO_NAMES.team}.`,
 };
 
 export const DEMO_NOTES: { title: string; body: string }[] = [
   {
     title: 'Goal and plan',
-    body: `The Tallis upgrade halves the track angular resolution in the core of high-pt jets. We want to know
+    body: `The ${DEMO_NAMES.campaign} halves the angular resolution of the ${DEMO_NAMES.detector} in the core of high-pt jets. We want to know
 whether that is visible where quark-like and gluon-like jets differ most.
 
 **Plan**

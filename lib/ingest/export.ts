@@ -18,19 +18,34 @@ export const PRIMARY_COLUMNS = ['lnInvDelta', 'lnKt', 'z', 'delta', 'kt', 'psi',
 /** Column order of an "all" entry. */
 export const ALL_COLUMNS = ['generation', 'lnInvDelta', 'lnKt', 'z'] as const;
 
-/** The export's header object. */
-export function exportHeader(input: IngestHeader, s: ProcessSettings, inputName?: string): Record<string, unknown> {
+/**
+ * The export's header object. It says what the file holds: `fullTree` is the processing setting (the whole C/A
+ * tree was kept), `splittings` names the lists each jet line carries (`includeAll`: "all" too, by default when
+ * the full tree was kept). For records that are single jets no jets were found: the jet definition names no
+ * algorithm, only the R that sets ln(R/Δ) and SoftDrop's default R0.
+ */
+export function exportHeader(
+  input: IngestHeader,
+  s: ProcessSettings,
+  inputName?: string,
+  includeAll: boolean = s.fullTree,
+): Record<string, unknown> {
+  const jetDefinition =
+    s.content === 'events'
+      ? { algorithm: s.jet.algorithm, R: s.jet.R, recombination: 'E' }
+      : { algorithm: null, R: s.jet.R, jetsFound: false, note: 'each record is one jet, taken as given' };
   return {
     format: DECLUSTERINGS_FORMAT,
     version: DECLUSTERINGS_VERSION,
     content: s.content,
-    jetDefinition: { algorithm: s.jet.algorithm, R: s.jet.R, recombination: 'E' },
+    jetDefinition,
     cuts: { ptMin: s.jet.ptMin, yMax: s.jet.yMax, maxJets: s.jet.maxJets },
     reclustering: 'ca',
     softDrop: { zCut: s.softDrop.zCut, beta: s.softDrop.beta, R0: s.softDrop.R0 },
     multiplicityKtCut: s.multiplicityKtCut,
     fullTree: s.fullTree,
-    columns: { primary: [...PRIMARY_COLUMNS], all: s.fullTree ? [...ALL_COLUMNS] : undefined, sd: ['mg', 'zg', 'Rg'] },
+    splittings: includeAll ? ['primary', 'all'] : ['primary'],
+    columns: { primary: [...PRIMARY_COLUMNS], all: includeAll ? [...ALL_COLUMNS] : undefined, sd: ['mg', 'zg', 'Rg'] },
     software: { name: 'splitfield', version: SOFTWARE_VERSION },
     input: {
       ...(inputName ? { file: inputName } : {}),

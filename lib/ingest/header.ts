@@ -45,6 +45,21 @@ const headerSchema = z.looseObject({
 
 const KNOWN = new Set(['format', 'version', 'content', 'momentum', 'energyUnit', 'sample', 'records']);
 
+/** Deepest nesting of objects and arrays kept from a header (metadata is stored and shown; printers recurse). */
+export const MAX_HEADER_DEPTH = 32;
+
+/** Whether `value` nests objects or arrays deeper than `limit` levels; iterative, so any depth is safe. */
+function nestsDeeperThan(value: unknown, limit: number): boolean {
+  const stack: Array<[unknown, number]> = [[value, 1]];
+  while (stack.length > 0) {
+    const [item, depth] = stack.pop()!;
+    if (item === null || typeof item !== 'object') continue;
+    if (depth > limit) return true;
+    for (const child of Object.values(item)) stack.push([child, depth + 1]);
+  }
+  return false;
+}
+
 /**
  * Validates a parsed header object. `line` is its line number (1 normally).
  * Throws IngestError with a message that names the header field.
@@ -63,6 +78,11 @@ export function validateParticlesHeader(obj: unknown, line: number, where: Inges
   if (o.version !== PARTICLES_VERSION) {
     const got = o.version === undefined ? 'no "version" field' : `version ${JSON.stringify(o.version)}`;
     throw fail(`unknown format version: ${got}; this Splitfield reads ${PARTICLES_FORMAT} version ${PARTICLES_VERSION}`, 'version', 'version');
+  }
+  for (const key of Object.keys(o)) {
+    if (key !== 'records' && nestsDeeperThan(o[key], MAX_HEADER_DEPTH)) {
+      throw fail(`wrong header: the field "${key}" nests objects or arrays more than ${MAX_HEADER_DEPTH} levels deep`, key);
+    }
   }
   const r = headerSchema.safeParse(o);
   if (!r.success) {

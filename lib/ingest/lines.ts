@@ -7,6 +7,7 @@ import { Readable, pipeline } from 'node:stream';
 import { StringDecoder } from 'node:string_decoder';
 import zlib from 'node:zlib';
 import { IngestError } from './errors';
+import { gzipExtent } from './gzip-extent';
 
 /** Longest single line accepted (and the size limit of the one-document form). */
 export const DEFAULT_MAX_LINE_BYTES = 256 * 1024 * 1024;
@@ -18,6 +19,10 @@ export interface LineSourceOptions {
   maxLineLength?: number;
   /** Name used in messages (file name). */
   name?: string;
+  /** Most bytes of text (after decompression) read before the input is refused as too large. */
+  maxTextBytes?: number;
+  /** The file read, when it is one: a damaged gzip stream is looked at again to name the right line. */
+  file?: string;
 }
 
 /** 268435456 → "256 MB", 2000 → "2 kB". */
@@ -40,6 +45,7 @@ export class LineSource {
   readonly bytesTotal: number | null;
   gzip = false;
   readonly name: string;
+  private readonly file: string | null;
 
   private buf: string[] = [];
   private pos = 0;
@@ -50,6 +56,9 @@ export class LineSource {
   private iter: AsyncIterator<Buffer> | null = null;
   private decoder = new StringDecoder('utf8');
   private readonly maxLine: number;
+  private readonly maxText: number;
+  /** Bytes of text (decompressed) read so far. */
+  private textBytes = 0;
   /** Lines produced so far by the splitter (>= lineNo). */
   private produced = 0;
   private sawAnyByte = false;
@@ -58,7 +67,9 @@ export class LineSource {
   constructor(private readonly input: Readable, opts: LineSourceOptions = {}) {
     this.bytesTotal = opts.bytesTotal ?? null;
     this.maxLine = opts.maxLineLength ?? DEFAULT_MAX_LINE_BYTES;
+    this.maxText = opts.maxTextBytes ?? Infinity;
     this.name = opts.name ?? 'input';
+    this.file = opts.file ?? null;
   }
 
   /** True when the input had no bytes at all (known once the end is reached). */
@@ -237,10 +248,33 @@ export class LineSource {
       const r = await this.iter!.next();
       if (r.done) return null;
       this.sawAnyByte = true;
+      this.textBytes += r.value.length;
+      if (this.textBytes > this.maxText) {
+        const what = this.gzip ? 'once decompressed, the file holds' : 'the file holds';
+        throw new IngestError(
+          `${what} more than ${sizeText(this.maxText)} of text, the most this server reads; it was stopped after line ${this.produced}`,
+          { line: this.produced + 1, code: 'limit' },
+        );
+      }
       return r.value;
     } catch (e) {
-      throw this.translate(e);
+      throw await this.explainGzipEnd(this.translate(e));
     }
+  }
+
+  /**
+   * A gzip error at the end of a file's compressed data usually means bytes appended after it; zlib then drops the
+   * text it decoded last, so the line named would be wrong. A second look at the file names the right one.
+   */
+  private async explainGzipEnd(error: Error): Promise<Error> {
+    if (!(error instanceof IngestError) || error.code !== 'gzip' || this.file === null) return error;
+    const extent = await gzipExtent(this.file).catch(() => null);
+    if (!extent || extent.junkAt === null) return error;
+    return new IngestError(
+      `the gzip data ends after line ${extent.lines}, and the ${extent.junkBytes} bytes after it (from byte ${extent.junkAt} ` +
+        'of the file) are not gzip data: remove them, or compress the file again',
+      { line: extent.lines + 1, code: 'gzip', cause: error },
+    );
   }
 
   /** Stops reading and releases the file. */
@@ -264,5 +298,5 @@ export async function openLineSource(path: string, opts: Omit<LineSourceOptions,
     throw new IngestError(`cannot read ${path}: ${why}`, { code: 'io', cause: e });
   }
   const stream = createReadStream(path, { highWaterMark: 1024 * 1024 });
-  return new LineSource(stream, { ...opts, bytesTotal: size, name: path });
+  return new LineSource(stream, { ...opts, bytesTotal: size, name: path, file: path });
 }

@@ -34,7 +34,7 @@ async function openFromSource(src: LineSource, opts: ReaderOptions): Promise<Par
 
 /** Opens a file by path: format and compression are detected from the content. */
 export async function openParticleFile(path: string, opts: ReaderOptions = {}): Promise<ParticleReader> {
-  const src = await openLineSource(path, { maxLineLength: opts.maxDocumentLength });
+  const src = await openLineSource(path, { maxLineLength: opts.maxDocumentLength, maxTextBytes: opts.maxTextBytes });
   return openFromSource(src, opts);
 }
 
@@ -43,6 +43,6 @@ export async function openParticleStream(
   stream: Readable,
   opts: ReaderOptions & Pick<LineSourceOptions, 'bytesTotal' | 'name'> = {},
 ): Promise<ParticleReader> {
-  const src = new LineSource(stream, { bytesTotal: opts.bytesTotal, name: opts.name, maxLineLength: opts.maxDocumentLength });
+  const src = new LineSource(stream, { bytesTotal: opts.bytesTotal, name: opts.name, maxLineLength: opts.maxDocumentLength, maxTextBytes: opts.maxTextBytes });
   return openFromSource(src, opts);
 }

@@ -9,14 +9,15 @@ const PX_NAMES = ['px', 'py', 'pz', 'E'];
 const PT_NAMES = ['pt', 'y', 'phi', 'm'];
 
 function show(v: unknown): string {
+  if (v === undefined) return 'nothing';
+  // JSON reads a number beyond the range of a double (1e400) as ±Infinity, which JSON.stringify would call null.
+  if (typeof v === 'number' && !Number.isFinite(v)) return `${v} (a number beyond the range of a double, such as 1e400)`;
   let s: string;
-  if (v === undefined) s = 'nothing';
-  else {
-    try {
-      s = JSON.stringify(v) ?? String(v);
-    } catch {
-      s = String(v);
-    }
+  try {
+    s = JSON.stringify(v) ?? String(v);
+  } catch {
+    // Nested too deeply to print (the printers recurse); say what it is instead.
+    s = Array.isArray(v) ? 'an array nested too deeply to show' : 'a value nested too deeply to show';
   }
   return s.length > 60 ? s.slice(0, 57) + '...' : s;
 }

@@ -35,6 +35,8 @@ export interface ReaderOptions {
   onSkip?: (e: IngestError) => void;
   /** Size limit of the one-document form (characters of JSON text); default 256 MiB. */
   maxDocumentLength?: number;
+  /** Most bytes of text (decompressed) read before the file is refused as too large; default no limit. */
+  maxTextBytes?: number;
 }
 
 export interface ParticleReader {

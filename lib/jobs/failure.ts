@@ -30,6 +30,10 @@ const EXPLANATIONS: Record<string, string> = {
   size:
     'A line is larger than the server reads at once. The one-document form is meant for small files: write large ' +
     'samples as JSON Lines, one record a line.',
+  limit:
+    'The file is larger than this server processes as one sample (too many records, or too much text once ' +
+    'decompressed; an admin sets the limits: SPLITFIELD_MAX_RECORDS, SPLITFIELD_MAX_DECOMPRESSED_BYTES). Split it ' +
+    'into several samples, or ask an admin.',
   io: 'The server could not read the stored upload. Upload the file again; if it happens again, tell an admin.',
   process: 'The physics engine could not process this record. Please report the file to an admin.',
   interrupted: 'The server stopped while this sample was being processed, and it was not resumed. Upload the file again.',

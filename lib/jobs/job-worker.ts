@@ -32,8 +32,11 @@ function report(error: unknown): JobErrorReport {
 }
 
 async function run(): Promise<void> {
-  const reader = await openParticleFile(input.uploadPath, { maxDocumentLength: MAX_DOCUMENT_CHARS });
-  const sink = new SampleSink(input.sampleDir, (header) => post({ type: 'input', input: header }));
+  const reader = await openParticleFile(input.uploadPath, {
+    maxDocumentLength: MAX_DOCUMENT_CHARS,
+    maxTextBytes: input.limits.maxTextBytes,
+  });
+  const sink = new SampleSink(input.sampleDir, (header) => post({ type: 'input', input: header }), input.limits.maxRecords);
   let last: PipelineProgress | null = null;
   const summary = await runPipeline({
     reader,

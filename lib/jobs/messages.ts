@@ -12,6 +12,8 @@ export interface JobWorkerInput {
   sampleDir: string;
   settings: SampleSettings;
   threads: number;
+  /** Most records a sample may hold, and most bytes of text its file may hold once decompressed. */
+  limits: { maxRecords: number; maxTextBytes: number };
 }
 
 export interface FinishedPlane {

@@ -1,4 +1,4 @@
-// The server's processing queue: takes queued samples in upload order, runs at most SPLITFIELD_MAX_JOBS at once,
+// The server's processing queue: takes queued samples fairly between the people who queued them (fair-order.ts), runs at most SPLITFIELD_MAX_JOBS at once,
 // each in its own worker thread (dist/engine/job-worker.js), records progress (throttled) and the outcome, and
 // removes every file of a job that did not finish. One runner per process, started by instrumentation.ts; at
 // start it requeues the jobs a stop of the server cut short and sweeps storage of what no sample owns.
@@ -18,6 +18,7 @@ import {
   uploadPath,
   type SampleStorage,
 } from '@/lib/samples/storage';
+import { tablesFolderOf } from '@/lib/samples/sharing';
 import type { Sample } from '@/models/sample';
 import { sampleError, type JobErrorReport } from './failure';
 import type { JobControlMessage, JobWorkerInput, JobWorkerMessage } from './messages';
@@ -67,8 +68,8 @@ export class JobRunner {
     await mkdir(this.storage.uploadsDir, { recursive: true });
     await mkdir(this.storage.samplesDir, { recursive: true });
     const unfinished = await requeueInterrupted((name) => existsSync(uploadPath(this.storage, name)));
-    const done = await db().models.Sample.findAll({ where: { state: 'done' }, attributes: ['id'] });
-    const removed = await sweepUnowned(this.storage, unfinished.waitingUploads, new Set(done.map((sample) => sample.id)));
+    const done = await db().models.Sample.findAll({ where: { state: 'done' }, attributes: ['id', 'tablesId'] });
+    const removed = await sweepUnowned(this.storage, unfinished.waitingUploads, new Set(done.map(tablesFolderOf)));
     if (unfinished.requeued.length > 0) console.log(`[jobs] requeued interrupted samples ${unfinished.requeued.join(', ')}`);
     if (unfinished.abandoned.length > 0) console.log(`[jobs] marked failed: samples ${unfinished.abandoned.join(', ')}`);
     if (removed.length > 0) console.log(`[jobs] removed ${removed.length} unowned file(s) from storage: ${removed.join(', ')}`);
@@ -128,6 +129,7 @@ export class JobRunner {
       sampleDir: sampleDir(this.storage, sample.id),
       settings: sample.settings,
       threads: this.config.jobThreads,
+      limits: { maxRecords: this.config.maxRecords, maxTextBytes: this.config.maxDecompressedBytes },
     };
     const worker = new Worker(this.workerFile, { workerData: input });
     const job: RunningJob = { sample, launchedAt: performance.now(), worker, cancelRequested: false, finished: Promise.resolve() };

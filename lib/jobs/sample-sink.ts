@@ -1,6 +1,7 @@
 // Where a job's pipeline puts its results: the binary columns of the sample (committed into place only at the end)
 // and the fine primary-plane histograms in both horizontal coordinates, for the cache in SQLite.
 import { ColumnWriter } from '@/lib/ingest/columns';
+import { IngestError } from '@/lib/ingest/errors';
 import type { IngestHeader } from '@/lib/ingest/header';
 import type { RecordMeta, ResultSink } from '@/lib/ingest/pipeline/sink';
 import { defaultGrid, PlaneHistogram } from '@/lib/physics/density';
@@ -10,11 +11,13 @@ import type { FinishedPlane } from './messages';
 export class SampleSink implements ResultSink {
   private columns: ColumnWriter | null = null;
   private planes: Array<[FinishedPlane['horizontal'], PlaneHistogram]> = [];
+  private records = 0;
 
-  /** `onBegin` hears the input's header before the first record. */
+  /** `onBegin` hears the input's header before the first record; a sample holds at most `maxRecords` records. */
   constructor(
     private readonly sampleDir: string,
     private readonly onBegin: (header: IngestHeader) => void,
+    private readonly maxRecords = Infinity,
   ) {}
 
   async begin(header: IngestHeader, settings: ProcessSettings): Promise<void> {
@@ -27,6 +30,14 @@ export class SampleSink implements ResultSink {
   }
 
   async write(records: RecordMeta[], results: RecordResult[]): Promise<void> {
+    if (this.records + records.length > this.maxRecords) {
+      const first = records[this.maxRecords - this.records];
+      throw new IngestError(`the file has more than ${this.maxRecords} records, the most one sample may hold on this server`, {
+        line: first.line,
+        code: 'limit',
+      });
+    }
+    this.records += records.length;
     for (let r = 0; r < records.length; r++) {
       for (const jet of results[r].jets) {
         for (const [, plane] of this.planes) plane.fillJet(jet.primary, records[r].weight);

@@ -1,22 +1,53 @@
 // The database side of a sample's job: each change of state is one short write transaction, and each one names
 // the state it expects to find, so a late message (progress after a cancel) changes nothing.
-import { Op } from 'sequelize';
+import { col, fn, literal, Op, type Transaction } from 'sequelize';
 import { SOFTWARE_VERSION } from '@/lib/ingest/export';
 import { db } from '@/lib/db/connection';
 import type { SampleCounts, SampleError, SampleInput, SampleProgress } from '@/models/sample-fields';
 import type { Sample } from '@/models/sample';
+import { nextFairJob, type OwnerState } from './fair-order';
 import { sampleError } from './failure';
 import type { FinishedPlane } from './messages';
 
 /** A job cut short by a server stop this many times is not tried again. */
 export const MAX_ATTEMPTS = 2;
 
-/** Takes the oldest queued sample and marks it running; null when none waits. */
+/** Who has jobs running and when each person's last job started, for the people in `owners`. */
+async function ownerStates(owners: Array<number | null>, transaction: Transaction): Promise<Map<number | null, OwnerState>> {
+  const { models } = db();
+  const states = new Map<number | null, OwnerState>(owners.map((owner) => [owner, { running: 0, lastStartedAt: null }]));
+  const rows = (await models.Sample.findAll({
+    attributes: [
+      'uploadedById',
+      [fn('SUM', literal("CASE WHEN state = 'running' THEN 1 ELSE 0 END")), 'running'],
+      [fn('MAX', col('started_at')), 'lastStartedAt'],
+    ],
+    where: { uploadedById: { [Op.in]: owners.filter((owner) => owner !== null) } },
+    group: ['uploadedById'],
+    raw: true,
+    transaction,
+  })) as unknown as Array<{ uploadedById: number; running: number | null; lastStartedAt: string | Date | null }>;
+  for (const row of rows) {
+    const started = row.lastStartedAt === null ? null : new Date(row.lastStartedAt).getTime();
+    states.set(row.uploadedById, { running: Number(row.running ?? 0), lastStartedAt: started });
+  }
+  return states;
+}
+
+/** Takes the next queued sample by the fair rule (fair-order.ts) and marks it running; null when none waits. */
 export async function claimNextQueued(): Promise<Sample | null> {
   const { models, write } = db();
   return write(async (transaction) => {
-    const sample = await models.Sample.findOne({ where: { state: 'queued' }, order: [['id', 'ASC']], transaction });
-    if (!sample) return null;
+    const queued = await models.Sample.findAll({
+      where: { state: 'queued' },
+      attributes: ['id', 'uploadedById'],
+      order: [['id', 'ASC']],
+      transaction,
+    });
+    const jobs = queued.map((sample) => ({ id: sample.id, owner: sample.uploadedById }));
+    const next = nextFairJob(jobs, await ownerStates([...new Set(jobs.map((job) => job.owner))], transaction));
+    if (!next) return null;
+    const sample = await models.Sample.findByPk(next.id, { transaction, rejectOnEmpty: true });
     await sample.update(
       { state: 'running', startedAt: new Date(), progress: null, attempts: sample.attempts + 1 },
       { transaction },

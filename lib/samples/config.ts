@@ -10,6 +10,12 @@ export interface SampleConfig {
   maxJobs: number;
   /** Worker threads of one job's pipeline (SPLITFIELD_JOB_THREADS, default cores − 1, at least 1). */
   jobThreads: number;
+  /** Samples one person may have queued or running at once (SPLITFIELD_MAX_JOBS_PER_USER, default 5). */
+  maxJobsPerUser: number;
+  /** Records one sample may hold (SPLITFIELD_MAX_RECORDS, default 10 million). */
+  maxRecords: number;
+  /** Bytes of text a file may hold once decompressed (SPLITFIELD_MAX_DECOMPRESSED_BYTES, default 16 GiB). */
+  maxDecompressedBytes: number;
 }
 
 const wholeNumber = (minimum: number) =>
@@ -24,6 +30,9 @@ const environmentSchema = z.object({
   SPLITFIELD_UPLOAD_MAX_BYTES: wholeNumber(1).optional(),
   SPLITFIELD_MAX_JOBS: wholeNumber(1).optional(),
   SPLITFIELD_JOB_THREADS: wholeNumber(1).optional(),
+  SPLITFIELD_MAX_JOBS_PER_USER: wholeNumber(1).optional(),
+  SPLITFIELD_MAX_RECORDS: wholeNumber(1).optional(),
+  SPLITFIELD_MAX_DECOMPRESSED_BYTES: wholeNumber(1).optional(),
 });
 
 export function readSampleConfig(env: Environment = process.env): SampleConfig {
@@ -33,5 +42,8 @@ export function readSampleConfig(env: Environment = process.env): SampleConfig {
     maxJobs: values.SPLITFIELD_MAX_JOBS ?? 1,
     // One core stays with the web server, so pages and API calls answer while a job runs.
     jobThreads: values.SPLITFIELD_JOB_THREADS ?? Math.max(1, availableParallelism() - 1),
+    maxJobsPerUser: values.SPLITFIELD_MAX_JOBS_PER_USER ?? 5,
+    maxRecords: values.SPLITFIELD_MAX_RECORDS ?? 10_000_000,
+    maxDecompressedBytes: values.SPLITFIELD_MAX_DECOMPRESSED_BYTES ?? 16 * 1024 ** 3,
   };
 }

@@ -2,6 +2,7 @@
 import { ApiError } from '@/lib/api/errors';
 import { ColumnReader } from '@/lib/ingest/columns';
 import type { Sample } from '@/models/sample';
+import { tablesFolderOf } from './sharing';
 import { sampleDir, sampleStorage } from './storage';
 
 /** 409 unless the sample is done. */
@@ -13,5 +14,5 @@ export function requireDone(sample: Sample): void {
 
 export async function openSampleColumns(sample: Sample): Promise<ColumnReader> {
   requireDone(sample);
-  return ColumnReader.open(sampleDir(sampleStorage(), sample.id));
+  return ColumnReader.open(sampleDir(sampleStorage(), tablesFolderOf(sample)));
 }

@@ -93,7 +93,8 @@ export async function* exportLines(sample: Sample, reader: ColumnReader, all: bo
     );
   }
   const input = sample.input as IngestHeader;
-  yield `${JSON.stringify(exportHeader(input, { ...sample.settings, content: input.content, fullTree: all }, sample.fileName))}\n`;
+  const settings = { ...sample.settings, content: input.content };
+  yield `${JSON.stringify(exportHeader(input, settings, sample.fileName, all))}\n`;
   const splittings = new SplittingCursor(reader);
   const totalJets = reader.manifest.jets.rows;
   // The record being written: its jets may continue in the next chunk, so it is written with the chunk it ends in.

@@ -58,10 +58,20 @@ function uploadError(error: unknown, options: ReceiveOptions): ApiError {
           `The file is larger than the upload limit of ${sizeText(options.maxBytes)} (SPLITFIELD_UPLOAD_MAX_BYTES); nothing was stored.`,
           [{ path: options.fileField, message: `larger than ${options.maxBytes} bytes` }],
         );
-      case 'LIMIT_UNEXPECTED_FILE':
+      case 'LIMIT_UNEXPECTED_FILE': {
+        // With room for two files, multer names the field of the one that does not belong.
+        const field = error.field ?? options.fileField;
+        const problem =
+          field === options.fileField
+            ? `the form has a second file in the "${field}" field`
+            : `the form has a file in the "${field}" field`;
+        return badRequest(`Send exactly one file, in the "${options.fileField}" field: ${problem}.`, [
+          { path: field, message: field === options.fileField ? 'a second file' : 'unexpected file field' },
+        ]);
+      }
       case 'LIMIT_FILE_COUNT':
-        return badRequest(`Send exactly one file, in the "${options.fileField}" field (got one in "${error.field}").`, [
-          { path: error.field ?? options.fileField, message: 'unexpected file' },
+        return badRequest(`Send exactly one file, in the "${options.fileField}" field: the form has more than one file.`, [
+          { path: options.fileField, message: 'more than one file' },
         ]);
       case 'LIMIT_FIELD_VALUE':
         return badRequest(`The field "${error.field}" is longer than ${sizeText(MAX_FIELD_BYTES)}.`, [
@@ -99,7 +109,8 @@ export async function receiveUpload(request: Request, options: ReceiveOptions): 
     preservePath: true,
     // Browsers and curl send file names as UTF-8 bytes.
     defParamCharset: 'utf8',
-    limits: { fileSize: options.maxBytes, files: 1, fields: MAX_FIELDS, fieldSize: MAX_FIELD_BYTES },
+    // Two files allowed to busboy, so that multer, not busboy, refuses the second and names its field.
+    limits: { fileSize: options.maxBytes, files: 2, fields: MAX_FIELDS, fieldSize: MAX_FIELD_BYTES },
     fileFilter(req, file, accept) {
       options.beforeFile({ ...req.body }, file.originalname).then(() => accept(null, true), accept);
     },

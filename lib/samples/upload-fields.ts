@@ -1,7 +1,7 @@
 // The text fields of an upload (multipart/form-data), checked with zod. Multipart fields are strings, so numbers,
 // the tag list, the settings object and the force flag are decoded here, with messages naming the field.
 import { z } from 'zod';
-import { idParam } from '@/lib/api/schemas';
+import { idParam, plainName } from '@/lib/api/schemas';
 import {
   SAMPLE_DESCRIPTION_MAX,
   SAMPLE_LABEL_MAX,
@@ -26,11 +26,14 @@ function jsonText<T>(field: string, schema: z.ZodType<T>) {
     .pipe(schema);
 }
 
-const tagSchema = z
-  .string()
-  .trim()
-  .min(1, 'a tag must not be empty')
-  .max(SAMPLE_TAG_MAX, `a tag must be at most ${SAMPLE_TAG_MAX} characters`);
+const tagSchema = plainName(
+  z
+    .string()
+    .trim()
+    .min(1, 'a tag must not be empty')
+    .max(SAMPLE_TAG_MAX, `a tag must be at most ${SAMPLE_TAG_MAX} characters`),
+  'a tag',
+);
 
 const tagListSchema = z
   .array(tagSchema, { error: 'tags must be comma-separated words or a JSON array of strings' })
@@ -55,14 +58,22 @@ const flagField = z
   .enum(['', '0', '1', 'false', 'true'], { error: 'must be 1, 0, true or false' })
   .transform((value) => value === '1' || value === 'true');
 
-export const uploadFieldsSchema = z.strictObject({
-  studyId: z.string({ error: 'studyId is required: the study to attach the sample to' }).pipe(idParam),
-  name: z
+export const sampleNameSchema = plainName(
+  z
     .string({ error: 'name is required' })
     .trim()
     .min(1, 'name must not be empty')
     .max(SAMPLE_NAME_MAX, `name must be at most ${SAMPLE_NAME_MAX} characters`),
-  label: z.string().trim().max(SAMPLE_LABEL_MAX, `label must be at most ${SAMPLE_LABEL_MAX} characters`).default(''),
+  'name',
+);
+
+export const uploadFieldsSchema = z.strictObject({
+  studyId: z.string({ error: 'studyId is required: the study to attach the sample to' }).pipe(idParam),
+  name: sampleNameSchema,
+  label: plainName(
+    z.string().trim().max(SAMPLE_LABEL_MAX, `label must be at most ${SAMPLE_LABEL_MAX} characters`),
+    'label',
+  ).default(''),
   description: z
     .string()
     .max(SAMPLE_DESCRIPTION_MAX, `description must be at most ${SAMPLE_DESCRIPTION_MAX} characters`)

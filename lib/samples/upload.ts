@@ -3,17 +3,19 @@
 // queue a new one for processing. A refused upload leaves neither a row nor a file.
 import { mkdir } from 'node:fs/promises';
 import { Op, type Transaction } from 'sequelize';
-import { badRequest } from '@/lib/api/errors';
+import { ApiError, badRequest } from '@/lib/api/errors';
 import { checkedInput } from '@/lib/api/validation';
 import { studyAccess } from '@/lib/auth/study-access';
 import { db } from '@/lib/db/connection';
 import { jobRunner } from '@/lib/jobs/runner';
 import type { User } from '@/models/user';
+import { UNFINISHED_SAMPLE_STATES } from '@/models/vocabulary';
 import { sampleIncludes, visibleStudyIds, type LoadedSample } from './access';
 import { readSampleConfig } from './config';
 import { fileNameProblem } from './file-name';
 import { receiveUpload, type ReceivedFile } from './multipart-upload';
 import { settingsKey } from './settings';
+import { createSharingSample } from './sharing';
 import { sampleStorage } from './storage';
 import { uploadFieldsSchema, type UploadFields } from './upload-fields';
 import { sampleSummary } from './views';
@@ -21,16 +23,38 @@ import type { SampleSummary } from './shapes';
 
 export const UPLOAD_FILE_FIELD = 'file';
 
-export type UploadOutcome = { queued: SampleSummary } | { duplicateOf: SampleSummary };
+/**
+ * queued: a new sample waits for processing; duplicateOf: the caller can already see a sample of this file and
+ * settings; shared: a new, done sample that uses the tables of the same file processed for a study the caller
+ * cannot see (which is never named).
+ */
+export type UploadOutcome = { queued: SampleSummary } | { duplicateOf: SampleSummary } | { shared: SampleSummary };
 
 function checkFileName(name: string): void {
   const problem = fileNameProblem(name);
   if (problem) throw badRequest(`Invalid upload: ${problem}.`, [{ path: UPLOAD_FILE_FIELD, message: problem }]);
 }
 
+/** 429 when the user already has as many samples queued or running as one person may. */
+async function requireQueueRoom(user: User, maxJobs: number, transaction?: Transaction): Promise<void> {
+  const waiting = await db().models.Sample.count({
+    where: { uploadedById: user.id, state: { [Op.in]: [...UNFINISHED_SAMPLE_STATES] } },
+    transaction,
+  });
+  if (waiting >= maxJobs) {
+    throw new ApiError(
+      429,
+      'too_many_jobs',
+      `You have ${waiting} samples queued or being processed, the most one person may have at once on this server; ` +
+        'wait for one to finish, or cancel one, then upload again.',
+    );
+  }
+}
+
 /** The fields sent before the file, checked as far as they go, and the study role when the study is known. */
-async function checkEarly(user: User, fieldsSoFar: Record<string, unknown>, fileName: string): Promise<void> {
+async function checkEarly(user: User, fieldsSoFar: Record<string, unknown>, fileName: string, maxJobs: number): Promise<void> {
   checkFileName(fileName);
+  await requireQueueRoom(user, maxJobs);
   const known = checkedInput(uploadFieldsSchema.partial(), fieldsSoFar, 'upload', '(form)');
   if (known.studyId !== undefined) await studyAccess(user, known.studyId, 'editor');
 }
@@ -52,6 +76,15 @@ async function findDuplicate(user: User, file: ReceivedFile, fields: UploadField
   return candidates.find((sample) => sample.studyId === fields.studyId) ?? candidates[0] ?? null;
 }
 
+/** A done sample of the same bytes and settings anywhere (the caller may not see it). */
+function findProcessed(file: ReceivedFile, fields: UploadFields, transaction: Transaction) {
+  return db().models.Sample.findOne({
+    where: { fileHash: file.sha256, settingsKey: settingsKey(fields.settings), state: 'done' },
+    order: [['id', 'ASC']],
+    transaction,
+  });
+}
+
 export async function acceptUpload(user: User, request: Request): Promise<UploadOutcome> {
   const config = readSampleConfig();
   const storage = sampleStorage();
@@ -60,7 +93,7 @@ export async function acceptUpload(user: User, request: Request): Promise<Upload
     uploadsDir: storage.uploadsDir,
     maxBytes: config.uploadMaxBytes,
     fileField: UPLOAD_FILE_FIELD,
-    beforeFile: (fieldsSoFar, fileName) => checkEarly(user, fieldsSoFar, fileName),
+    beforeFile: (fieldsSoFar, fileName) => checkEarly(user, fieldsSoFar, fileName, config.maxJobsPerUser),
   });
   let kept = false;
   try {
@@ -79,27 +112,34 @@ export async function acceptUpload(user: User, request: Request): Promise<Upload
     const outcome = await write(async (transaction) => {
       const duplicate = fields.force ? null : await findDuplicate(user, file, fields, transaction);
       if (duplicate) return { duplicateOf: sampleSummary(duplicate) };
+      const own = {
+        studyId: study.id,
+        uploadedById: user.id,
+        name: fields.name,
+        label: fields.label,
+        description: fields.description,
+        tags: fields.tags,
+        fileName: file.originalName,
+        uploadMs: Math.round(upload.elapsedMs),
+      };
+      const load = async (id: number) =>
+        sampleSummary((await models.Sample.findByPk(id, { include: sampleIncludes(), transaction })) as LoadedSample);
+      const processed = fields.force ? null : await findProcessed(file, fields, transaction);
+      if (processed) return { shared: await load((await createSharingSample(processed, own, transaction)).id) };
+      await requireQueueRoom(user, config.maxJobsPerUser, transaction);
       const sample = await models.Sample.create(
         {
-          studyId: study.id,
-          uploadedById: user.id,
-          name: fields.name,
-          label: fields.label,
-          description: fields.description,
-          tags: fields.tags,
+          ...own,
           state: 'queued',
           settings: fields.settings,
           settingsKey: settingsKey(fields.settings),
-          fileName: file.originalName,
           fileSize: file.size,
           fileHash: file.sha256,
-          uploadMs: Math.round(upload.elapsedMs),
           uploadFile: file.storedName,
         },
         { transaction },
       );
-      const loaded = (await models.Sample.findByPk(sample.id, { include: sampleIncludes(), transaction })) as LoadedSample;
-      return { queued: sampleSummary(loaded) };
+      return { queued: await load(sample.id) };
     });
     kept = 'queued' in outcome;
     if (kept) (await jobRunner()).wake();

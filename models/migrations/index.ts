@@ -1,7 +1,8 @@
 import { foundation } from './0001-foundation';
 import { samples } from './0002-samples';
 import { processingTime } from './0003-processing-time';
+import { hardening } from './0004-hardening';
 import type { SchemaMigration } from './types';
 
 /** Every schema step in the order it runs. Listed here rather than found on disk so that any loader can run them. */
-export const schemaMigrations: readonly SchemaMigration[] = [foundation, samples, processingTime];
+export const schemaMigrations: readonly SchemaMigration[] = [foundation, samples, processingTime, hardening];

@@ -2,7 +2,7 @@
 // A route file under app/api whose route or method is missing here fails the coverage test, so new routes
 // have to be added to this table.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { Client, type TestServer } from '../support/server';
+import { Client, signIn, type TestServer } from '../support/server';
 import { addMember, newAccount, newNote, newPerson, newStudy, serverWithAdmin, type Person } from './fixtures';
 import { apiRouteMethods } from './route-inventory';
 import { jetsFileText, upload, uploadDone, uploadForm } from './sample-fixtures';
@@ -18,6 +18,8 @@ interface World {
   people: Record<'owner' | 'viewer' | 'commenter' | 'editor', Person>;
   /** A processed sample of the study, uploaded by `owner`. */
   sampleId: number;
+  /** E-mail and password of every signed-in actor, for a second session of the same person. */
+  accounts: Record<Exclude<Actor, 'anonymous'>, { email: string; password: string }>;
 }
 
 interface Call {
@@ -27,6 +29,8 @@ interface Call {
   multipart?: FormData;
   /** Checked after a refused call: what the call must not have changed. */
   unchanged?: () => Promise<void>;
+  /** Sent by this client instead of the actor's (a call that would end the actor's own session). */
+  sender?: Client;
 }
 
 interface Row {
@@ -79,6 +83,13 @@ async function freshSample(world: World, label: string): Promise<Call> {
   return { path, unchanged: async () => expect((await world.people.owner.client.get(path)).status).toBe(200) };
 }
 let freshSeed = 7000;
+
+/** A second session of the actor's person (anonymous stays anonymous). */
+async function secondSession(world: World, actor: Actor): Promise<Client> {
+  if (actor === 'anonymous') return new Client(world.server.baseUrl);
+  const { email, password } = world.accounts[actor];
+  return signIn(world.server.baseUrl, email, password);
+}
 
 const inSample = (world: World, rest = '') => `/api/samples/${world.sampleId}${rest}`;
 
@@ -371,12 +382,27 @@ const ROWS: Row[] = [
     },
     expected: statuses(401, 404, 404, 404, 404, 204, 404),
   },
+  {
+    method: 'POST',
+    route: '/api/samples/[sampleId]/attach',
+    // Into a fresh study where the actor has the same role as in the matrix study.
+    call: async (world) => ({ path: inSample(world, '/attach'), body: { studyId: await freshStudy(world) } }),
+    expected: statuses(401, 404, 403, 403, 201, 201, 201),
+  },
+  // Last: it ends every session of each actor's person, so no row may come after it.
+  {
+    method: 'DELETE',
+    route: '/api/me/sessions',
+    call: async (world, actor) => ({ path: '/api/me/sessions', sender: await secondSession(world, actor) }),
+    expected: statuses(401, 204, 204, 204, 204, 204, 204),
+  },
 ];
 
 let world: World;
 
 beforeAll(async () => {
-  const { server, admin: adminClient } = await serverWithAdmin();
+  // The owner queues many samples here: the per-person queue limit is not what this table is about.
+  const { server, admin: adminClient } = await serverWithAdmin({ env: { SPLITFIELD_MAX_JOBS_PER_USER: '1000' } });
   const people = {
     owner: await newPerson(server, 'owner'),
     viewer: await newPerson(server, 'viewer'),
@@ -394,6 +420,14 @@ beforeAll(async () => {
     studyId,
     sampleId: sample.id,
     people,
+    accounts: {
+      nonMember: outsider,
+      viewer: people.viewer,
+      commenter: people.commenter,
+      editor: people.editor,
+      owner: people.owner,
+      admin: server.credentials.admin,
+    },
     clients: {
       anonymous: new Client(server.baseUrl),
       nonMember: outsider.client,
@@ -410,7 +444,8 @@ afterAll(() => world?.server.stop());
 describe.each(ROWS)('$method $route', (row) => {
   it.each(ACTORS)('as %s', async (actor) => {
     const call = await row.call(world, actor);
-    const response = await world.clients[actor].send(row.method, call.path, { body: call.body, multipart: call.multipart });
+    const sender = call.sender ?? world.clients[actor];
+    const response = await sender.send(row.method, call.path, { body: call.body, multipart: call.multipart });
     expect(response.status, `${row.method} ${call.path} as ${actor}: ${response.text.slice(0, 300)}`).toBe(
       row.expected[actor],
     );

@@ -43,6 +43,32 @@ describe('page access', () => {
     expect(file.status).toBe(404);
   });
 
+  it('answers 404 for the page of a study or sample that does not exist or that the visitor may not see', async () => {
+    const { admin, members } = server.credentials;
+    const adminClient = await signIn(server.baseUrl, admin.email, admin.password);
+    const outsider = await new Client(server.baseUrl).post('/api/signup', {
+      name: 'Outsider',
+      email: 'outsider@pages.test',
+      password: 'outsider-password',
+    });
+    expect(outsider.status).toBe(201);
+    const stranger = await signIn(server.baseUrl, 'outsider@pages.test', 'outsider-password');
+    const member = await signIn(server.baseUrl, members[0].email, members[0].password);
+    for (const [client, pathname, status] of [
+      [adminClient, '/studies/999999', 404],
+      [adminClient, '/samples/999999', 404],
+      [adminClient, '/studies/not-an-id', 404],
+      [stranger, '/studies/1', 404],
+      [stranger, '/samples/1', 404],
+      [member, '/studies/1', 200],
+      [member, '/samples/1', 200],
+    ] as const) {
+      const page = await client.get(pathname);
+      expect(page.status, pathname).toBe(status);
+      if (status === 404) expect(page.text).toContain('Page not found');
+    }
+  });
+
   it('treats a forged session cookie as no session', async () => {
     const response = await fetch(`${server.baseUrl}/studies`, {
       redirect: 'manual',

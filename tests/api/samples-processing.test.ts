@@ -226,6 +226,17 @@ describe('a sample stored with its full tree', () => {
     const primary = readLines((await owner.client.get(`/api/samples/${sample.id}/export`)).text);
     expect(primary.slice(1)).toEqual(cliExport(text, options).slice(1));
     expect(sample.counts.allSplittings).toBe(all.slice(1).reduce((sum, jet) => sum + jet.all.length, 0));
+    // The headers say what each file holds: the sample keeps the full tree; only one file carries "all".
+    expect(all[0]).toMatchObject({ fullTree: true, splittings: ['primary', 'all'], columns: { all: expect.any(Array) } });
+    expect(primary[0]).toMatchObject({ fullTree: true, splittings: ['primary'] });
+    expect(primary[0].columns.all).toBeUndefined();
+  });
+
+  it('says in the export of a jets file that no jets were found', async () => {
+    const sample = await uploadDone(owner.client, { studyId, name: 'Jets file', file: jetsFileText(30, 5) });
+    const [header] = readLines((await owner.client.get(`/api/samples/${sample.id}/export`)).text);
+    expect(header.content).toBe('jets');
+    expect(header.jetDefinition).toEqual({ algorithm: null, R: 0.4, jetsFound: false, note: 'each record is one jet, taken as given' });
   });
 });
 

@@ -18,6 +18,12 @@ const CHROMIUM_ARGS = [
   '--disable-sync',
 ];
 
+/**
+ * Every Content-Security-Policy violation any page of this test file reported (Chromium logs each as a console
+ * error and fires a securitypolicyviolation event): the app's own pages and charts must cause none.
+ */
+export const cspViolations: string[] = [];
+
 export interface BrowserSession {
   context: BrowserContext;
   page: Page;
@@ -39,6 +45,18 @@ export async function openBrowser(width = 1280): Promise<BrowserSession> {
   page.on('dialog', (dialog) => {
     dialogs.push(dialog.message());
     void dialog.dismiss();
+  });
+  context.on('console', (message) => {
+    if (/Content Security Policy|Content-Security-Policy/i.test(message.text())) cspViolations.push(`${message.page()?.url()}: ${message.text()}`);
+  });
+  await context.exposeBinding('__reportCspViolation', ({ page: source }, text: string) => {
+    cspViolations.push(`${source?.url()}: ${text}`);
+  });
+  await context.addInitScript(() => {
+    document.addEventListener('securitypolicyviolation', (event) => {
+      const report = (window as unknown as { __reportCspViolation?: (text: string) => void }).__reportCspViolation;
+      report?.(`${event.violatedDirective} blocked ${event.blockedURI || 'inline code'}`);
+    });
   });
   return {
     context,

@@ -3,7 +3,7 @@
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { startTestServer, type TestServer } from '../support/server';
-import { openBrowser, screenshot, signInThroughPage, submitSignIn, type BrowserSession } from './browser';
+import { cspViolations, openBrowser, screenshot, signInThroughPage, submitSignIn, type BrowserSession } from './browser';
 
 const STUDY_TITLE = 'Soft wide-angle corner, two tunes';
 const NOTE_TITLE = 'First look';
@@ -241,9 +241,12 @@ describe('the foundation in a browser', () => {
 
   it('says so when a study or a page does not exist', async () => {
     const { page } = owner;
-    await page.goto(`${server.baseUrl}/studies/999999`);
-    await page.getByText('Study not found').waitFor();
-    expect(await page.getByText('No study with id 999999.').isVisible()).toBe(true);
+    const study = await page.goto(`${server.baseUrl}/studies/999999`);
+    expect(study?.status()).toBe(404);
+    await page.getByRole('heading', { name: 'Page not found' }).waitFor();
+    const sample = await page.goto(`${server.baseUrl}/samples/999999`);
+    expect(sample?.status()).toBe(404);
+    await page.getByRole('heading', { name: 'Page not found' }).waitFor();
     const missing = await page.goto(`${server.baseUrl}/no-such-page`);
     expect(missing?.status()).toBe(404);
     expect(await page.getByRole('heading', { name: 'Page not found' }).isVisible()).toBe(true);
@@ -332,5 +335,9 @@ describe('the foundation in a browser', () => {
     await page.waitForURL(`${server.baseUrl}/sign-in`);
     await page.goto(`${server.baseUrl}/studies`);
     await page.waitForURL(/\/sign-in\?callbackUrl=%2Fstudies/);
+  });
+
+  it('meets no Content-Security-Policy violation on any page it opened', () => {
+    expect(cspViolations).toEqual([]);
   });
 });

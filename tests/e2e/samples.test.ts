@@ -11,7 +11,7 @@ import { writeGeneratedSampleFile } from '@/lib/ingest/generated-sample-file';
 import { demoSampleSpec } from '@/lib/demo/scenario';
 import { addMember, newPerson, newStudy, type Person } from '../api/fixtures';
 import { startTestServer, type TestServer } from '../support/server';
-import { openBrowser, screenshot, signInThroughPage, type BrowserSession } from './browser';
+import { cspViolations, openBrowser, screenshot, signInThroughPage, type BrowserSession } from './browser';
 
 const JETS = 60;
 const SPEC = demoSampleSpec('gluon');
@@ -96,13 +96,26 @@ describe('samples in a browser', () => {
     expect(await form.getByLabel('Tags').inputValue()).toBe(SPEC.tags.join(', '));
     expect(await form.getByLabel('Jet radius R').inputValue()).toBe('0.4');
 
-    // An obvious mistake is caught before the file is sent, in the form's own words.
-    await form.getByLabel('Jet radius R').fill('-1');
+    // An obvious mistake is caught before the file is sent, beside its field, which takes the focus and is
+    // marked invalid for screen readers; a missing name is named beside its own field.
+    const radius = form.getByLabel('Jet radius R');
+    await radius.fill('-1');
+    await form.getByLabel('Sample name').fill('');
     await form.getByRole('button', { name: 'Upload and process' }).click();
-    const alert = form.getByRole('alert');
-    await alert.waitFor();
-    expect(await alert.textContent()).toContain('Jet radius R must be in (0, 10]');
-    await form.getByLabel('Jet radius R').fill(String(SPEC.settings.R));
+    await expect.poll(() => radius.getAttribute('aria-invalid')).toBe('true');
+    expect(await form.getByLabel('Sample name').getAttribute('aria-invalid')).toBe('true');
+    const describedBy = async (label: string) => {
+      const ids = (await form.getByLabel(label).getAttribute('aria-describedby'))!.split(' ');
+      return page.locator(`[id="${ids[0]}"]`).textContent();
+    };
+    expect(await describedBy('Jet radius R')).toBe('Must be in (0, 10].');
+    expect(await describedBy('Sample name')).toBe('Give the sample a name.');
+    // The first field in the form with a problem has the focus.
+    expect(await form.getByLabel('Sample name').evaluate((element) => element === document.activeElement)).toBe(true);
+    expect(await form.getByRole('alert').textContent()).toContain('2 fields need attention');
+    await screenshot(page, 'sample-upload-errors-1280', 1280);
+    await radius.fill(String(SPEC.settings.R));
+    await form.getByLabel('Sample name').fill(SPEC.name);
     await screenshot(page, 'sample-upload-1280', 1280);
     await screenshot(page, 'sample-upload-390', 390);
     await page.setViewportSize({ width: 1280, height: 900 });
@@ -134,7 +147,7 @@ describe('samples in a browser', () => {
     expect(await plane.locator('figure').textContent()).toContain('emissions per jet per unit area');
     const axisText = () => plane.locator('figure svg').last().textContent();
     expect(await axisText()).toContain('ln(1/Δ)');
-    expect(await axisText()).toContain('ln(k_t / GeV)');
+    expect(await axisText()).toContain('ln(kₜ / GeV)');
 
     await plane.getByRole('button', { name: 'ln(R/Δ)' }).click();
     await expect.poll(axisText).toContain('ln(R/Δ)');
@@ -305,5 +318,9 @@ describe('samples in a browser', () => {
     } finally {
       await session.close();
     }
+  });
+
+  it('meets no Content-Security-Policy violation on any page it opened', () => {
+    expect(cspViolations).toEqual([]);
   });
 });

@@ -90,6 +90,8 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
       SPLITFIELD_DB: config.databasePath,
       NEXTAUTH_SECRET: prepared.secret,
       NEXTAUTH_URL: baseUrl,
+      // The test fixtures make many accounts from one address; tests of the sign-up limit set it back ('').
+      SPLITFIELD_SIGNUPS_PER_ADDRESS: '10000',
       ...options.env,
     },
     stdio: ['ignore', 'pipe', 'pipe'],
@@ -175,7 +177,7 @@ export class Client {
       headers['content-type'] = 'application/x-www-form-urlencoded';
       payload = new URLSearchParams(options.form).toString();
     } else if (options.rawBody !== undefined || options.body !== undefined) {
-      headers['content-type'] = 'application/json';
+      headers['content-type'] ??= 'application/json';
       payload = options.rawBody ?? JSON.stringify(options.body);
     }
     const response = await fetch(new URL(pathname, this.baseUrl), { method, headers, body: payload, redirect: 'manual' });

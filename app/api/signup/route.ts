@@ -2,10 +2,13 @@ import { z } from 'zod';
 import { conflict, forbidden } from '@/lib/api/errors';
 import { json, publicRoute } from '@/lib/api/route-handlers';
 import { emailSchema, passwordSchema, userNameSchema } from '@/lib/api/schemas';
+import { BODY_LIMITS } from '@/lib/api/body-limits';
 import { readJsonBody } from '@/lib/api/validation';
 import { userView } from '@/lib/api/views';
 import { siteSettings } from '@/lib/admin/site-settings';
+import { clientAddress } from '@/lib/api/client-address';
 import { hashPassword } from '@/lib/auth/password';
+import { countAttempt, requireNotThrottled, throttleConfig } from '@/lib/auth/throttle';
 import { db } from '@/lib/db/connection';
 
 export const dynamic = 'force-dynamic';
@@ -21,7 +24,10 @@ async function openSignup(): Promise<boolean> {
 export const GET = publicRoute(async () => json({ openSignup: await openSignup() }));
 
 export const POST = publicRoute(async (request) => {
-  const input = await readJsonBody(request, signupSchema);
+  const address = clientAddress(request, throttleConfig().trustProxy);
+  await requireNotThrottled('sign-up attempts from your address', [['signup', address]]);
+  await countAttempt('signup', address);
+  const input = await readJsonBody(request, signupSchema, BODY_LIMITS.account);
   if (!(await openSignup())) throw forbidden('Sign-up is closed on this server; ask an admin for an account.');
   const passwordHash = await hashPassword(input.password);
   const { models, write } = db();

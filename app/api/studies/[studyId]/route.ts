@@ -34,6 +34,6 @@ export const PATCH = signedInRoute({ params }, async ({ request, params, user })
 /** Deletes the study with its members, entries and samples (the foreign keys cascade; sample files follow). */
 export const DELETE = signedInRoute({ params }, async ({ params, user }) => {
   const { study } = await studyAccess(user, params.studyId, 'owner');
-  await deleteStudyWithSamples(study.id, () => db().write((transaction) => study.destroy({ transaction })));
+  await deleteStudyWithSamples(study.id, (transaction) => study.destroy({ transaction }));
   return noContent();
 });

@@ -1,10 +1,10 @@
 import { z } from 'zod';
-import { conflict, notFound } from '@/lib/api/errors';
 import { json, signedInRoute } from '@/lib/api/route-handlers';
 import { atLeastOneField, idParam } from '@/lib/api/schemas';
+import { BODY_LIMITS } from '@/lib/api/body-limits';
 import { readJsonBody } from '@/lib/api/validation';
 import { adminUserView } from '@/lib/api/views';
-import { db } from '@/lib/db/connection';
+import { changeAccount } from '@/lib/admin/account-change';
 import { SITE_ROLES } from '@/models/vocabulary';
 
 export const dynamic = 'force-dynamic';
@@ -18,20 +18,7 @@ const accountChangeSchema = atLeastOneField({
 export const PATCH = signedInRoute(
   { adminOnly: true, params: z.object({ userId: idParam }) },
   async ({ request, params, user: admin }) => {
-    const change = await readJsonBody(request, accountChangeSchema);
-    const user = await db().models.User.findByPk(params.userId);
-    if (!user) throw notFound(`No user with id ${params.userId}.`);
-    // Keeps at least one admin able to act: nobody can lock themselves out.
-    if (user.id === admin.id && (change.disabled === true || change.siteRole === 'member')) {
-      throw conflict('self_lockout', 'Admins cannot disable or demote themselves; ask another admin.');
-    }
-    if (change.siteRole !== undefined) user.siteRole = change.siteRole;
-    if (change.disabled !== undefined && change.disabled !== user.disabled) {
-      user.disabled = change.disabled;
-      // Ends the sessions issued before, so enabling the account again does not bring them back.
-      user.sessionVersion += 1;
-    }
-    await db().write((transaction) => user.save({ transaction }));
-    return json({ user: adminUserView(user) });
+    const change = await readJsonBody(request, accountChangeSchema, BODY_LIMITS.account);
+    return json({ user: adminUserView(await changeAccount(admin.id, params.userId, change)) });
   },
 );

@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { json, signedInRoute } from '@/lib/api/route-handlers';
 import { entryTitleSchema, idParam, noteBodySchema } from '@/lib/api/schemas';
 import { entryWithAuthors, studyEntries, touchStudy } from '@/lib/studies/queries';
+import { BODY_LIMITS } from '@/lib/api/body-limits';
 import { readJsonBody } from '@/lib/api/validation';
 import { studyAccess } from '@/lib/auth/study-access';
 import { db } from '@/lib/db/connection';
@@ -26,7 +27,7 @@ export const GET = signedInRoute({ params }, async ({ params, user }) => {
 /** Adds the entry at the end of the study's list. */
 export const POST = signedInRoute({ params }, async ({ request, params, user }) => {
   const { study } = await studyAccess(user, params.studyId, 'editor');
-  const input = await readJsonBody(request, newEntrySchema);
+  const input = await readJsonBody(request, newEntrySchema, BODY_LIMITS.note);
   const { models, write } = db();
   const entry = await write(async (transaction) => {
     const position = await models.Entry.count({ where: { studyId: study.id }, transaction });

@@ -5,6 +5,7 @@ import { json, noContent, signedInRoute } from '@/lib/api/route-handlers';
 import { moveInOrder } from '@/lib/studies/entry-order';
 import { atLeastOneField, entryTitleSchema, idParam, noteBodySchema } from '@/lib/api/schemas';
 import { entryOrder, entryWithAuthors, renumberEntries, touchStudy } from '@/lib/studies/queries';
+import { BODY_LIMITS } from '@/lib/api/body-limits';
 import { readJsonBody } from '@/lib/api/validation';
 import { studyAccess } from '@/lib/auth/study-access';
 import { db } from '@/lib/db/connection';
@@ -32,7 +33,7 @@ async function studyEntry(studyId: number, entryId: number, transaction: Transac
 
 export const PATCH = signedInRoute({ params }, async ({ request, params, user }) => {
   const { study } = await studyAccess(user, params.studyId, 'editor');
-  const { position, ...content } = await readJsonBody(request, entryChangeSchema);
+  const { position, ...content } = await readJsonBody(request, entryChangeSchema, BODY_LIMITS.note);
   const updated = await db().write(async (transaction) => {
     const entry = await studyEntry(study.id, params.entryId, transaction);
     await entry.update({ ...content, updatedById: user.id }, { transaction });

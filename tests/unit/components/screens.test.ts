@@ -1,0 +1,59 @@
+// Server-rendered markup of the screens the new-user review found wanting: physics labels typeset, Markdown images
+// as links that load nothing, a processing panel that agrees with the state badge, a progress bar that shows its
+// value at once.
+import { createElement } from 'react';
+import { renderToStaticMarkup } from 'react-dom/server';
+import { describe, expect, it } from 'vitest';
+import { MarkdownView } from '@/components/markdown-view';
+import { ProcessingPanel } from '@/components/samples/processing-panel';
+import { ProgressBar } from '@/components/samples/progress-bar';
+import { Typeset } from '@/components/typeset';
+import { VERTICAL_LABEL } from '@/components/plane/plane-view-settings';
+import type { SampleDetail } from '@/lib/samples/shapes';
+
+const html = (element: Parameters<typeof renderToStaticMarkup>[0]) => renderToStaticMarkup(element);
+
+describe('typeset labels', () => {
+  it('writes subscripts as subscripts', () => {
+    expect(html(createElement(Typeset, { text: 'SoftDrop z_cut' }))).toBe('SoftDrop z<sub>cut</sub>');
+    expect(html(createElement(Typeset, { text: 'm_g, z_g and R_g at k_t > 1 GeV' }))).toBe(
+      'm<sub>g</sub>, z<sub>g</sub> and R<sub>g</sub> at k<sub>t</sub> &gt; 1 GeV',
+    );
+    expect(html(createElement(Typeset, { text: 'anti-kt, R = 0.4' }))).toBe('anti-kt, R = 0.4');
+  });
+
+  it('labels the plane’s vertical axis with a real subscript', () => {
+    expect(VERTICAL_LABEL).toBe('ln(kₜ / GeV)');
+  });
+});
+
+describe('Markdown images', () => {
+  it('are links to their address, never images', () => {
+    const markup = html(createElement(MarkdownView, { source: 'See ![tracking pixel](https://tracker.example/p.png)' }));
+    expect(markup).not.toContain('<img');
+    expect(markup).toContain('href="https://tracker.example/p.png"');
+    expect(markup).toContain('Image: tracking pixel');
+  });
+});
+
+describe('the processing panel', () => {
+  const sample = (state: 'queued' | 'running') => ({ id: 1, state, progress: null }) as unknown as SampleDetail;
+
+  it('says processing has started for a running sample without progress yet', () => {
+    const markup = html(createElement(ProcessingPanel, { sample: sample('running') }));
+    expect(markup).toContain('Processing');
+    expect(markup).not.toContain('Waiting to be processed');
+  });
+
+  it('says waiting for a queued sample', () => {
+    expect(html(createElement(ProcessingPanel, { sample: sample('queued') }))).toContain('Waiting to be processed');
+  });
+});
+
+describe('the progress bar', () => {
+  it('has the width of its value, with no animation that lags behind the text', () => {
+    const markup = html(createElement(ProgressBar, { label: 'Upload progress', fraction: 1 }));
+    expect(markup).toContain('width:100%');
+    expect(markup).not.toContain('transition');
+  });
+});
