@@ -61,7 +61,7 @@ export interface SampleError {
 export interface SampleInput {
   format: string;
   version: number | string;
-  layout: 'jsonl' | 'document' | 'ascii';
+  layout: 'jsonl' | 'document' | 'ascii' | 'parquet-lists' | 'parquet-flat' | 'arrow-lists' | 'arrow-flat';
   gzip: boolean;
   content: 'events' | 'jets';
   momentum: string;

@@ -13,7 +13,7 @@ export interface BatchRun {
   settings: ProcessSettings;
   delivery: ResultDelivery;
   /** How errors name a record's place: by line (JSON Lines, HepMC3) or by record (the one-document form). */
-  where: 'line' | 'record';
+  where: 'line' | 'record' | 'row';
   /** Batch sizes: particles and records of parsed batches, characters of raw text batches. */
   batchParticles: number;
   batchRecords: number;
@@ -29,6 +29,6 @@ export function recordMeta(r: ParticleRecord): RecordMeta {
   return { line: r.line, id: r.id, weight: r.weight, nParticles: r.particles.length >> 2 };
 }
 
-export function processingError(line: number, where: 'line' | 'record', message: string): IngestError {
+export function processingError(line: number, where: 'line' | 'record' | 'row', message: string): IngestError {
   return new IngestError(`processing failed: ${message}`, { line, where, code: 'process' });
 }
