@@ -53,7 +53,7 @@ export function FileDrop({ file, onFile, disabled }: FileDropProps) {
         id={inputId}
         type="file"
         aria-label="Particle file"
-        accept=".jsonl,.json,.gz,.hepmc,.hepmc3,.txt"
+        accept=".jsonl,.json,.gz,.hepmc,.hepmc3,.txt,.parquet,.arrow,.arrows,.feather,.ipc"
         className="sr-only"
         disabled={disabled}
         onChange={(event) => {

@@ -1,11 +1,11 @@
 import type { ReactNode } from 'react';
 import type { SampleProvenance } from '@/lib/samples/shapes';
-import type { SampleSettings } from '@/models/sample-fields';
+import type { CompleteSampleSettings } from '@/models/sample-fields';
 import { buttonClass } from '../button';
 import { formatDateTime } from '../format';
 import { Panel } from '../panel';
 import { formatBytes } from './numbers';
-import { ALGORITHM_NAMES } from './processing-settings';
+import { ALGORITHM_NAMES, EE_ALGORITHM_NAMES } from './processing-settings';
 
 type Fact = [label: string, value: ReactNode];
 
@@ -47,11 +47,40 @@ function metadataFacts(metadata: Record<string, unknown>): Fact[] {
   return Object.entries(metadata).map(([key, value]) => [key, <MetadataValue key={key} value={value} />]);
 }
 
-function settingsFacts(settings: SampleSettings, tree: SampleProvenance['tree']): Fact[] {
-  const { jet, softDrop } = settings;
+function exclusiveText(ex: CompleteSampleSettings['jet']['exclusive']): string {
+  if (!ex) return 'inclusive';
+  return 'n' in ex ? `exclusive, exactly ${ex.n} jets` : 'dcut' in ex ? `exclusive, d_cut = ${ex.dcut}` : `exclusive, y_cut = ${ex.ycut}`;
+}
+
+function constituentsText(p: CompleteSampleSettings['particles']): string {
+  const rules = [
+    p.dropNeutrinos && 'no neutrinos',
+    p.pidExclude.length > 0 && `pid not in ${p.pidExclude.join(', ')}`,
+    p.pidInclude.length > 0 && `pid in ${p.pidInclude.join(', ')}`,
+    p.chargedOnly && 'charged only',
+    p.ptMin > 0 && `pt > ${p.ptMin} GeV`,
+    p.rapidityMax !== null && `|${p.rapidityKind === 'eta' ? 'η' : 'y'}| < ${p.rapidityMax}`,
+  ].filter(Boolean);
+  return rules.length ? rules.join(', ') : 'every particle';
+}
+
+function settingsFacts(settings: CompleteSampleSettings, tree: SampleProvenance['tree']): Fact[] {
+  const { jet, softDrop, ee } = settings;
+  const jets: Fact[] =
+    settings.collision === 'ee'
+      ? [
+          ['Collision', 'e+e− (energy and angles; declustered in θ with kₜ = E sin θ, re-clustered with e+e− Cambridge)'],
+          ['Jets', `${EE_ALGORITHM_NAMES[ee.algorithm]}${ee.algorithm === 'genkt' ? `, R = ${jet.R}, p = ${ee.p}` : ''}, ${exclusiveText(jet.exclusive)}`],
+          ['Cuts', `E > ${ee.eMin} GeV, ${jet.maxJets === null ? 'all jets' : `${jet.maxJets} leading jets`} per record`],
+        ]
+      : [
+          ['Jets', `${ALGORITHM_NAMES[jet.algorithm]}, R = ${jet.R}, ${exclusiveText(jet.exclusive)}`],
+          ['Cuts', `pt > ${jet.ptMin} GeV, |y| < ${jet.yMax}, ${jet.maxJets === null ? 'all jets' : `${jet.maxJets} leading jets`} per record`],
+        ];
   return [
-    ['Jets', `${ALGORITHM_NAMES[jet.algorithm]}, R = ${jet.R}`],
-    ['Cuts', `pt > ${jet.ptMin} GeV, |y| < ${jet.yMax}, ${jet.maxJets === null ? 'all jets' : `${jet.maxJets} leading jets`} per record`],
+    ...jets,
+    ['Constituents', constituentsText(settings.particles)],
+    ['Flavour tags', settings.flavourTags ? 'b, c, light by ghost association' : 'off'],
     ['SoftDrop', `z_cut = ${softDrop.zCut}, β = ${softDrop.beta}, R0 = ${softDrop.R0}`],
     ['Multiplicity', `primary splittings with kt > ${settings.multiplicityKtCut} GeV`],
     ['Stored', tree === 'full' ? 'every splitting of the C/A tree' : 'primary splittings'],

@@ -3,9 +3,36 @@ import { Panel } from '../panel';
 import { formatCount } from './numbers';
 import { StatGrid } from './stat-grid';
 
-/** What processing found: records, jets kept and dropped (by the first cut each failed), splittings. */
-export function SampleCountsPanel({ counts }: { counts: SampleCounts }) {
-  const { jetsRejected: rejected } = counts;
+const RULE_NAMES: Record<keyof NonNullable<SampleCounts['particlesRemoved']>, string> = {
+  neutrino: 'neutrinos',
+  pidExcluded: 'pid excluded',
+  pidNotIncluded: 'pid not listed',
+  neutral: 'neutral',
+  pt: 'pt',
+  rapidity: '|y| or |η|',
+};
+
+/**
+ * What processing found: records, particles removed by the constituent selection (by the first rule each failed),
+ * jets kept and dropped (by the first cut each failed; e+e-: the energy cut), jet flavours, splittings.
+ */
+export function SampleCountsPanel({ counts, collision = 'hadron' }: { counts: SampleCounts; collision?: 'hadron' | 'ee' }) {
+  const { jetsRejected: rejected, particlesRemoved: removed, flavours } = counts;
+  const removedTotal = removed ? Object.values(removed).reduce((a, b) => a + b, 0) : 0;
+  const extra = [
+    ...(removed
+      ? [{
+          label: 'Particles removed',
+          value: formatCount(removedTotal),
+          note: (Object.keys(RULE_NAMES) as (keyof typeof RULE_NAMES)[]).filter((k) => removed[k] > 0).map((k) => `${RULE_NAMES[k]} ${formatCount(removed[k])}`).join(' · ') || 'none',
+        }]
+      : []),
+    ...(flavours ? [{ label: 'Jet flavours', value: `${formatCount(flavours.b)} b`, note: `c ${formatCount(flavours.c)} · light ${formatCount(flavours.light)}` }] : []),
+  ];
+  const rejectedNote =
+    collision === 'ee'
+      ? `energy ${formatCount(rejected.pt)} · leading-N ${formatCount(rejected.rank)}`
+      : `pt ${formatCount(rejected.pt)} · |y| ${formatCount(rejected.y)} · leading-N ${formatCount(rejected.rank)}`;
   return (
     <Panel title="Counts">
       <StatGrid
@@ -16,8 +43,9 @@ export function SampleCountsPanel({ counts }: { counts: SampleCounts }) {
           {
             label: 'Jets rejected',
             value: formatCount(rejected.pt + rejected.y + rejected.rank),
-            note: `pt ${formatCount(rejected.pt)} · |y| ${formatCount(rejected.y)} · leading-N ${formatCount(rejected.rank)}`,
+            note: rejectedNote,
           },
+          ...extra,
           {
             label: 'Primary splittings',
             value: formatCount(counts.primarySplittings),

@@ -36,9 +36,10 @@ async function openFromSource(src: LineSource, opts: ReaderOptions): Promise<Par
   }
 }
 
-/** The first bytes of a file (fewer for a shorter file). */
+/** The first bytes of a file (fewer for a shorter file; none for a file that cannot be opened, whose error the line source reports). */
 async function firstBytes(path: string, n: number): Promise<Uint8Array> {
-  const handle = await open(path, 'r');
+  const handle = await open(path, 'r').catch(() => null);
+  if (!handle) return new Uint8Array(0);
   try {
     const b = new Uint8Array(n);
     const { bytesRead } = await handle.read(b, 0, n, 0);

@@ -10,6 +10,13 @@ import type { ProcessSettings, RecordExtras, RecordResult, RemovedParticles } fr
 
 let selected = new Float64Array(4 * 1024);
 
+/** Starts the message of an error that lies in the settings asked for, not in the engine (no pid for a pid rule). */
+export const SETTINGS_PROBLEM = 'these settings need what this record lacks: ';
+
+function settingsProblem(e: unknown): never {
+  throw new Error(SETTINGS_PROBLEM + (e instanceof Error ? e.message : String(e)));
+}
+
 /** Processes one record: `p` holds px, py, pz, E interleaved (GeV, validated), `extras` its pids, charges, tags. */
 export function processRecord(p: Float64Array, extras: RecordExtras | undefined, s: ProcessSettings): RecordResult {
   const ee = s.collision === 'ee';
@@ -20,11 +27,15 @@ export function processRecord(p: Float64Array, extras: RecordExtras | undefined,
   if (select) {
     if (selected.length < p.length) selected = new Float64Array(Math.max(p.length, 2 * selected.length));
     removed = noneRemoved();
-    q = selectConstituents(p, extras ?? {}, s.particles!, selected, removed);
+    try {
+      q = selectConstituents(p, extras ?? {}, s.particles!, selected, removed);
+    } catch (e) {
+      settingsProblem(e);
+    }
   }
   let tags: GhostTags | undefined;
   if (s.flavourTags) {
-    if (s.content !== 'events') throw new Error('flavour tags need whole events (content "events")');
+    if (s.content !== 'events') settingsProblem(new Error('flavour tags need whole events (content "events")'));
     const g = withGhosts(q, extras);
     q = g.particles;
     tags = g.tags;

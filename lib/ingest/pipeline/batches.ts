@@ -1,6 +1,7 @@
 // What the two ways of processing (this thread, or a pool of worker threads) share: the batches they read, how
 // a failure inside the physics is reported, and how a record is described to the sink.
 
+import { SETTINGS_PROBLEM } from '../../physics/process-record';
 import type { ProcessSettings } from '../../physics/types';
 import { IngestAbortError, IngestError } from '../errors';
 import type { ParticleReader, ParticleRecord } from '../types';
@@ -30,5 +31,6 @@ export function recordMeta(r: ParticleRecord): RecordMeta {
 }
 
 export function processingError(line: number, where: 'line' | 'record' | 'row', message: string): IngestError {
+  if (message.startsWith(SETTINGS_PROBLEM)) return new IngestError(message, { line, where, code: 'settings' });
   return new IngestError(`processing failed: ${message}`, { line, where, code: 'process' });
 }

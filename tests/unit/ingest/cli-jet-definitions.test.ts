@@ -90,7 +90,7 @@ describe('decluster: jet-definition options', () => {
     const bare = t.file('bare.jsonl', jsonl(HEADER, [{ id: 'x', particles: toRows(events[0]) }]));
     const r = run([bare, '--charged-only']);
     expect(r.code).toBe(1);
-    expect(r.err).toMatch(/line 2: .*charged-only\) needs per-particle "charge" or "pid", and this record has neither/);
+    expect(r.err).toMatch(/line 2: these settings need what this record lacks: the constituent selection \(charged-only\) needs per-particle "charge" or "pid", and this record has neither/);
   });
 });
 
