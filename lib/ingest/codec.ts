@@ -157,6 +157,11 @@ export function packResults(results: RecordResult[], error: WorkerResult['error'
   return { perRecord, jets, primary, all, meta: null, problems: [], error };
 }
 
+/** The number of records a worker result holds. */
+export function resultRecords(w: WorkerResult): number {
+  return w.perRecord.length / RECORD_INTS;
+}
+
 export function unpackResults(w: WorkerResult, nRecords: number): RecordResult[] {
   const out: RecordResult[] = new Array(nRecords);
   const { perRecord, jets, primary, all } = w;

@@ -9,7 +9,7 @@ import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { fromPtYPhiM } from '@/lib/physics/fourvector';
 import { writeArrow, writeParquet, type ColumnarRecord } from '@/tests/support/columnar-files';
-import { generateEvents, listedPids } from '@/tests/support/test-events';
+import { generateEvents, hardestDirection, listedPids } from '@/tests/support/test-events';
 import type { TestServer } from '../support/server';
 import { toRows } from '../unit/ingest/helpers';
 import { newPerson, newStudy, serverWithAdmin, type Person } from './fixtures';
@@ -25,7 +25,7 @@ const events = generateEvents(612, 40, { nParticles: 150, nJets: 3 });
 const records: ColumnarRecord[] = events.map((p, i) => {
   const { pid, charge } = listedPids(700 + i, p.length / 4);
   const tags = new Float64Array(4);
-  fromPtYPhiM(50, 0.5 * Math.asinh(p[2] / Math.hypot(p[0], p[1])), Math.atan2(p[1], p[0]), 1.87, tags, 0);
+  fromPtYPhiM(50, ...hardestDirection(p), 1.87, tags, 0);
   return { id: `ev${i}`, weight: 1 + (i % 4) / 4, particles: p, pid, charge, tags, tagPid: Int32Array.of(i % 2 ? 411 : 511) };
 });
 const jsonText =

@@ -85,10 +85,10 @@ describe('jet definitions in a browser', () => {
     expect(await counts.getByText('Jet flavours').locator('..').textContent()).toMatch(/\d+ b/);
 
     const jets = panel(page, 'Jets');
-    await jets.getByRole('columnheader', { name: 'E' }).waitFor();
-    await jets.getByRole('columnheader', { name: 'θ' }).waitFor();
-    expect(await jets.getByRole('columnheader', { name: 'pt' }).count()).toBe(0);
-    await jets.getByRole('columnheader', { name: 'flavour' }).click();
+    await jets.getByRole('columnheader', { name: 'E', exact: true }).waitFor();
+    await jets.getByRole('columnheader', { name: 'θ', exact: true }).waitFor();
+    expect(await jets.getByRole('columnheader', { name: 'pt', exact: true }).count()).toBe(0);
+    await jets.getByRole('columnheader', { name: 'flavour', exact: true }).click();
     await expect.poll(() => jets.locator('tbody tr').first().textContent()).toMatch(/b$/);
 
     const plane = panel(page, 'Primary plane');

@@ -267,3 +267,10 @@ export function listedPids(seed: number, nParticles: number): { pid: Int32Array;
   }
   return { pid, charge };
 }
+
+/** Pseudorapidity and azimuth of the particle with the largest pt (where a tag hadron placed along it lands in a jet). */
+export function hardestDirection(p: Float64Array): [number, number] {
+  let best = 0;
+  for (let i = 4; i < p.length; i += 4) if (Math.hypot(p[i], p[i + 1]) > Math.hypot(p[best], p[best + 1])) best = i;
+  return [Math.asinh(p[best + 2] / Math.hypot(p[best], p[best + 1])), Math.atan2(p[best + 1], p[best])];
+}

@@ -9,7 +9,7 @@ import { parquetWriteBuffer } from 'hyparquet-writer';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { fromPtYPhiM } from '@/lib/physics/fourvector';
 import { writeArrow, writeParquet, type ColumnarRecord } from '@/tests/support/columnar-files';
-import { generateEvents, listedPids } from '@/tests/support/test-events';
+import { generateEvents, hardestDirection, listedPids } from '@/tests/support/test-events';
 import { HEADER, jsonl, tempDir, toRows } from './helpers';
 
 const ROOT = path.resolve(__dirname, '../../..');
@@ -40,7 +40,7 @@ const records: ColumnarRecord[] = events.map((p, i) => {
   if (i % 3 === 0) {
     // A B meson near the leading particle of the event.
     const tags = new Float64Array(4);
-    fromPtYPhiM(40, 0.5 * Math.asinh(p[2] / Math.hypot(p[0], p[1])), Math.atan2(p[1], p[0]), 5.279, tags, 0);
+    fromPtYPhiM(40, ...hardestDirection(p), 5.279, tags, 0);
     rec.tags = tags;
     rec.tagPid = Int32Array.of(521);
   }
@@ -81,6 +81,10 @@ describe('Parquet and Arrow files give the same results as JSON Lines', () => {
           expect(got.code, got.err).toBe(0);
           expect(jetLines(got.out)).toBe(jetLines(want.out));
         }
+      }
+      if (tagged) {
+        const flavours = jetLines(run([file, '--threads', '2', '--flavour-tags', '--ptmin', '10']).out).match(/"flavour":"b"/g) ?? [];
+        expect(flavours.length).toBeGreaterThan(5);
       }
       const header = JSON.parse(run([file, '--threads', '1']).out.split('\n')[0]);
       expect(header.input.format).toBe('splitfield-particles');
