@@ -162,9 +162,10 @@ export class RecordAssembler {
 
   /** Writes particle i (4 numbers a..d in the file's convention) at out[4i], checked. */
   private put(a: number, b: number, c3: number, d: number, out: Float64Array, i: number, chunk: Chunk, row: number, names: readonly string[]): void {
-    const vals = [a, b, c3, d];
-    for (let q = 0; q < 4; q++) {
-      if (!Number.isFinite(vals[q])) throw this.err(`${names[q]} is not a finite number: ${vals[q]}`, chunk, row, names[q], i);
+    // (x − x === 0 is false for NaN and ±Infinity.)
+    if (!(a - a === 0 && b - b === 0 && c3 - c3 === 0 && d - d === 0)) {
+      const q = [a, b, c3, d].findIndex((v) => !Number.isFinite(v));
+      throw this.err(`${names[q]} is not a finite number: ${[a, b, c3, d][q]}`, chunk, row, names[q], i);
     }
     const k = this.k;
     const at = 4 * i;
@@ -220,8 +221,12 @@ export class RecordAssembler {
         if (n === 0) throw this.err('the record has no particles', c, row, this.plan.momentum[0]);
         const starts = this.plan.momentum.map((m) => this.span(c, m, r, n)[0]);
         const particles = new Float64Array(4 * n);
-        for (let i = 0; i < n; i++) {
-          this.put(num(m0[starts[0] + i]), num(m1[starts[1] + i]), num(m2[starts[2] + i]), num(m3[starts[3] + i]), particles, i, c, row, this.plan.momentum);
+        const [s0, s1, s2, s3] = starts;
+        if (typeof m0[s0] === 'number' && typeof m1[s1] === 'number' && typeof m2[s2] === 'number' && typeof m3[s3] === 'number') {
+          const f0 = m0 as ArrayLike<number>, f1 = m1 as ArrayLike<number>, f2 = m2 as ArrayLike<number>, f3 = m3 as ArrayLike<number>;
+          for (let i = 0; i < n; i++) this.put(f0[s0 + i], f1[s1 + i], f2[s2 + i], f3[s3 + i], particles, i, c, row, this.plan.momentum);
+        } else {
+          for (let i = 0; i < n; i++) this.put(num(m0[s0 + i]), num(m1[s1 + i]), num(m2[s2 + i]), num(m3[s3 + i]), particles, i, c, row, this.plan.momentum);
         }
         const rec: ParticleRecord = { line: row, id: this.id(c, r, row), weight: this.weight(c, r), particles };
         if (this.plan.pid) rec.pid = this.ints(c, 'pid', r, n);
