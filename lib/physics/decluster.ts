@@ -53,6 +53,12 @@ export function writeSplitting(ws: ClusterWorkspace, k: number, generation: numb
   let sphi = phi[b] - phi[a];
   if (sphi > PI) sphi -= TWO_PI;
   else if (sphi <= -PI) sphi += TWO_PI;
+  putSplitting(ws, k, delta, kt, z, Math.atan2(rap[b] - rap[a], sphi), generation, out, at);
+  return a;
+}
+
+/** Writes one splitting's fields (angle, kt, z, ψ given; m = m of node k, the logarithms and κ derived). */
+export function putSplitting(ws: ClusterWorkspace, k: number, delta: number, kt: number, z: number, psi: number, generation: number, out: Float64Array, at: number): void {
   const px = ws.px[k], py = ws.py[k], pz = ws.pz[k], e = ws.E[k];
   const m2 = (e + pz) * (e - pz) - (px * px + py * py);
   out[at + S_LN_INV_DELTA] = Math.log(1 / delta);
@@ -60,11 +66,10 @@ export function writeSplitting(ws: ClusterWorkspace, k: number, generation: numb
   out[at + S_Z] = z;
   out[at + S_DELTA] = delta;
   out[at + S_KT] = kt;
-  out[at + S_PSI] = Math.atan2(rap[b] - rap[a], sphi);
+  out[at + S_PSI] = psi;
   out[at + S_M] = m2 >= 0 ? Math.sqrt(m2) : -Math.sqrt(-m2);
   out[at + S_KAPPA] = z * delta;
   out[at + S_GENERATION] = generation;
-  return a;
 }
 
 /** Writes one splitting of node k and returns its harder branch (writeSplitting; e+e-: ee-decluster.ts). */

@@ -6,9 +6,7 @@
 // written in the slots of the hadron-collider splitting (types.ts): ln(1/θ) in lnInvDelta, θ in delta.
 
 import type { ClusterWorkspace } from './clustering';
-import {
-  S_DELTA, S_GENERATION, S_KAPPA, S_KT, S_LN_INV_DELTA, S_LN_KT, S_M, S_PSI, S_Z,
-} from './types';
+import { putSplitting } from './decluster';
 
 /**
  * Writes the e+e- splitting of node k at out[at..) and returns the harder branch a: the larger energy; on an
@@ -48,16 +46,6 @@ export function writeSplittingEe(ws: ClusterWorkspace, k: number, generation: nu
   const sinTheta = ptA / magA;
   const alongTheta = cosTheta * (cosPhi * bx + sinPhi * by) - sinTheta * bz;
   const alongPhi = -sinPhi * bx + cosPhi * by;
-  const px = ws.px[k], py = ws.py[k], pz = ws.pz[k], e = ws.E[k];
-  const m2 = (e + pz) * (e - pz) - (px * px + py * py);
-  out[at + S_LN_INV_DELTA] = Math.log(1 / theta);
-  out[at + S_LN_KT] = Math.log(kt);
-  out[at + S_Z] = z;
-  out[at + S_DELTA] = theta;
-  out[at + S_KT] = kt;
-  out[at + S_PSI] = Math.atan2(-alongTheta, alongPhi);
-  out[at + S_M] = m2 >= 0 ? Math.sqrt(m2) : -Math.sqrt(-m2);
-  out[at + S_KAPPA] = z * theta;
-  out[at + S_GENERATION] = generation;
+  putSplitting(ws, k, theta, kt, z, Math.atan2(-alongTheta, alongPhi), generation, out, at);
   return a;
 }

@@ -4,17 +4,10 @@
 import { writeFileSync } from 'node:fs';
 import { float64, int32, list, tableFromArrays, tableToIPC, utf8 } from '@uwdata/flechette';
 import { parquetWriteBuffer } from 'hyparquet-writer';
+import type { ParticleRecord } from '../../lib/ingest/types';
 
-export interface ColumnarRecord {
-  id: string;
-  weight: number;
-  /** px, py, pz, E interleaved. */
-  particles: Float64Array;
-  pid?: Int32Array;
-  charge?: Float64Array;
-  tags?: Float64Array;
-  tagPid?: Int32Array;
-}
+/** A record as the readers give it (px, py, pz, E interleaved; pids, charges and tag particles optional). */
+export type ColumnarRecord = Omit<ParticleRecord, 'line' | 'id'> & { id: string };
 
 export interface ColumnarOptions {
   layout: 'lists' | 'flat';

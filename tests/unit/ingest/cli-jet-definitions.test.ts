@@ -2,32 +2,28 @@
 // decluster` runs): every option listed in --help with its default, the options reaching the engine (the same
 // jets as the engine called directly with the same settings), counts on stderr, tag particles of
 // splitfield-particles records and the decayed heavy-flavour hadrons (status 2) of HepMC3 files.
-import { execFileSync, spawnSync } from 'node:child_process';
-import { rmSync } from 'node:fs';
+import { spawnSync } from 'node:child_process';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { fromPtYPhiM } from '@/lib/physics/fourvector';
 import { processRecord } from '@/lib/physics/process-record';
 import { settingsInputSchema } from '@/lib/samples/settings';
 import { generateEeEvents, generateEvents, listedPids } from '@/tests/support/test-events';
-import { HEADER, jsonl, tempDir, toRows } from './helpers';
+import { engineBundle, HEADER, jsonl, tempDir, toRows } from './helpers';
 
-const ROOT = path.resolve(__dirname, '../../..');
 const t = tempDir('sf-cli-jetdefs-');
-const ENGINE = path.join(ROOT, 'tests/artifacts', `engine-clijd-${process.pid}`);
-const CLI = path.join(ENGINE, 'cli.js');
+const engine = engineBundle('clijd');
+const CLI = path.join(engine.dir, 'cli.js');
 
-beforeAll(() => {
-  execFileSync('node', ['scripts/build-engine.mjs', '--outdir', ENGINE], { cwd: ROOT, stdio: 'pipe' });
-});
+beforeAll(() => engine.build());
 afterAll(() => {
   t.cleanup();
-  rmSync(ENGINE, { recursive: true, force: true });
+  engine.remove();
 });
 
 function run(args: string[]) {
-  const r = spawnSync(process.execPath, [CLI, ...args, '--threads', '1'], { cwd: t.dir, encoding: 'utf8', maxBuffer: 1 << 28 });
-  return { code: r.status, out: r.stdout, err: r.stderr, lines: r.stdout.trim() ? r.stdout.trim().split('\n').map((l) => JSON.parse(l)) : [] };
+  const r = engine.run(t.dir, [...args, '--threads', '1']);
+  return { ...r, lines: r.out.trim() ? r.out.trim().split('\n').map((l) => JSON.parse(l)) : [] };
 }
 
 const events = generateEvents(4242, 12, { nParticles: 150, nJets: 3 });

@@ -2,33 +2,25 @@
 // exactly the export of the JSON Lines file with the same content, through the command-line bundle, with one
 // thread and with two (records with pids, charges and tag particles cross to the worker threads); bad files get a
 // message naming the row group, the row and the column.
-import { execFileSync, spawnSync } from 'node:child_process';
-import { readFileSync, rmSync, truncateSync } from 'node:fs';
+import { readFileSync, truncateSync } from 'node:fs';
 import path from 'node:path';
 import { parquetWriteBuffer } from 'hyparquet-writer';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { fromPtYPhiM } from '@/lib/physics/fourvector';
 import { writeArrow, writeParquet, type ColumnarRecord } from '@/tests/support/columnar-files';
 import { generateEvents, hardestDirection, listedPids } from '@/tests/support/test-events';
-import { HEADER, jsonl, tempDir, toRows } from './helpers';
+import { engineBundle, HEADER, jsonl, tempDir, toRows } from './helpers';
 
-const ROOT = path.resolve(__dirname, '../../..');
 const t = tempDir('sf-columnar-');
-const ENGINE = path.join(ROOT, 'tests/artifacts', `engine-columnar-${process.pid}`);
-const CLI = path.join(ENGINE, 'cli.js');
+const engine = engineBundle('columnar');
 
-beforeAll(() => {
-  execFileSync('node', ['scripts/build-engine.mjs', '--outdir', ENGINE], { cwd: ROOT, stdio: 'pipe' });
-});
+beforeAll(() => engine.build());
 afterAll(() => {
   t.cleanup();
-  rmSync(ENGINE, { recursive: true, force: true });
+  engine.remove();
 });
 
-function run(args: string[]) {
-  const r = spawnSync(process.execPath, [CLI, ...args], { cwd: t.dir, encoding: 'utf8', maxBuffer: 1 << 28 });
-  return { code: r.status, out: r.stdout, err: r.stderr };
-}
+const run = (args: string[]) => engine.run(t.dir, args);
 
 /** The export without its header line (which names the input format). */
 const jetLines = (out: string) => out.split('\n').slice(1).join('\n');
