@@ -5,6 +5,7 @@ import { buttonClass } from '../button';
 import { formatDateTime } from '../format';
 import { Panel } from '../panel';
 import { formatBytes } from './numbers';
+import { constituentsText, exclusiveText } from './jet-definition-text';
 import { ALGORITHM_NAMES, EE_ALGORITHM_NAMES } from './processing-settings';
 
 type Fact = [label: string, value: ReactNode];
@@ -47,23 +48,6 @@ function metadataFacts(metadata: Record<string, unknown>): Fact[] {
   return Object.entries(metadata).map(([key, value]) => [key, <MetadataValue key={key} value={value} />]);
 }
 
-function exclusiveText(ex: CompleteSampleSettings['jet']['exclusive']): string {
-  if (!ex) return 'inclusive';
-  return 'n' in ex ? `exclusive, exactly ${ex.n} jets` : 'dcut' in ex ? `exclusive, d_cut = ${ex.dcut}` : `exclusive, y_cut = ${ex.ycut}`;
-}
-
-function constituentsText(p: CompleteSampleSettings['particles']): string {
-  const rules = [
-    p.dropNeutrinos && 'no neutrinos',
-    p.pidExclude.length > 0 && `pid not in ${p.pidExclude.join(', ')}`,
-    p.pidInclude.length > 0 && `pid in ${p.pidInclude.join(', ')}`,
-    p.chargedOnly && 'charged only',
-    p.ptMin > 0 && `pt > ${p.ptMin} GeV`,
-    p.rapidityMax !== null && `|${p.rapidityKind === 'eta' ? 'η' : 'y'}| < ${p.rapidityMax}`,
-  ].filter(Boolean);
-  return rules.length ? rules.join(', ') : 'every particle';
-}
-
 function settingsFacts(settings: CompleteSampleSettings, tree: SampleProvenance['tree']): Fact[] {
   const { jet, softDrop, ee } = settings;
   const jets: Fact[] =
@@ -74,7 +58,7 @@ function settingsFacts(settings: CompleteSampleSettings, tree: SampleProvenance[
           ['Cuts', `E > ${ee.eMin} GeV, ${jet.maxJets === null ? 'all jets' : `${jet.maxJets} leading jets`} per record`],
         ]
       : [
-          ['Jets', `${ALGORITHM_NAMES[jet.algorithm]}, R = ${jet.R}, ${exclusiveText(jet.exclusive)}`],
+          ['Jets', `${ALGORITHM_NAMES[jet.algorithm]}, R = ${jet.R}${jet.exclusive ? `, ${exclusiveText(jet.exclusive)}` : ''}`],
           ['Cuts', `pt > ${jet.ptMin} GeV, |y| < ${jet.yMax}, ${jet.maxJets === null ? 'all jets' : `${jet.maxJets} leading jets`} per record`],
         ];
   return [

@@ -1,4 +1,5 @@
-import type { SampleCounts } from '@/models/sample-fields';
+import type { CompleteSampleSettings, SampleCounts } from '@/models/sample-fields';
+import { exclusiveText } from './jet-definition-text';
 import { Panel } from '../panel';
 import { formatCount } from './numbers';
 import { StatGrid } from './stat-grid';
@@ -16,7 +17,7 @@ const RULE_NAMES: Record<keyof NonNullable<SampleCounts['particlesRemoved']>, st
  * What processing found: records, particles removed by the constituent selection (by the first rule each failed),
  * jets kept and dropped (by the first cut each failed; e+e-: the energy cut), jet flavours, splittings.
  */
-export function SampleCountsPanel({ counts, collision = 'hadron' }: { counts: SampleCounts; collision?: 'hadron' | 'ee' }) {
+export function SampleCountsPanel({ counts, collision = 'hadron', exclusive = null }: { counts: SampleCounts; collision?: 'hadron' | 'ee'; exclusive?: CompleteSampleSettings['jet']['exclusive'] }) {
   const { jetsRejected: rejected, particlesRemoved: removed, flavours } = counts;
   const removedTotal = removed ? Object.values(removed).reduce((a, b) => a + b, 0) : 0;
   const extra = [
@@ -39,7 +40,7 @@ export function SampleCountsPanel({ counts, collision = 'hadron' }: { counts: Sa
         label="Counts"
         stats={[
           { label: 'Records', value: formatCount(counts.records), note: `${formatCount(counts.particles)} particles` },
-          { label: 'Jets kept', value: formatCount(counts.jets) },
+          { label: 'Jets kept', value: formatCount(counts.jets), note: exclusive ? exclusiveText(exclusive) : 'inclusive jets' },
           {
             label: 'Jets rejected',
             value: formatCount(rejected.pt + rejected.y + rejected.rank),

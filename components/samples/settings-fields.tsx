@@ -87,7 +87,7 @@ export function SettingsFields({ disabled }: { disabled?: boolean }) {
         <div className="grid gap-3 sm:grid-cols-2">
           <Check
             name="flavourTags"
-            label="Flavour tags (b, c, light)"
+            label="Flavour tagging (b, c, light)"
             hint="Ghost association of the heavy-flavour hadrons: HepMC3 status-2 hadrons, or the records' tag particles. Whole events only."
             defaultChecked={DEFAULTS.flavourTags}
           />

@@ -312,6 +312,7 @@ export async function main(argv: string[]): Promise<number> {
               ? `  jets rejected: energy ${fmtInt(s.rejected.pt)}, rank ${fmtInt(s.rejected.rank)}\n`
               : `  jets rejected: pt ${fmtInt(s.rejected.pt)}, |y| ${fmtInt(s.rejected.y)}, rank ${fmtInt(s.rejected.rank)}\n`
             : '') +
+          (cfg.settings.jet.exclusive ? `  exclusive jets: ${JSON.stringify(cfg.settings.jet.exclusive)}\n` : '') +
           (s.particlesRemoved ? `  particles removed: ${Object.entries(s.particlesRemoved).map(([k, n]) => `${k} ${fmtInt(n)}`).join(', ')}\n` : '') +
           (s.flavours ? `  jet flavours: b ${fmtInt(s.flavours.b)}, c ${fmtInt(s.flavours.c)}, light ${fmtInt(s.flavours.light)}\n` : '') +
           `  time ${secs.toFixed(2)} s: ${rate(s.jets, secs)} jets/s, ${rate(s.records, secs)} records/s, ${rate(s.particles, secs)} particles/s, ` +

@@ -72,7 +72,7 @@ describe('jet definitions in a browser', () => {
     await form.getByLabel('Jets', { exact: true }).selectOption('n');
     await form.getByLabel('n, d_cut or y_cut').fill('2');
     await form.getByLabel('Charged particles only').check();
-    await form.getByLabel('Flavour tags (b, c, light)').check();
+    await form.getByLabel('Flavour tagging (b, c, light)').check();
     await screenshot(page, 'jetdefs-upload-1280', 1280);
     await page.setViewportSize({ width: 1280, height: 900 });
     await form.getByRole('button', { name: 'Upload and process' }).click();
@@ -80,7 +80,7 @@ describe('jet definitions in a browser', () => {
     await page.locator('h1 [data-state="done"]').waitFor({ timeout: 60_000 });
 
     const counts = panel(page, 'Counts');
-    expect(await counts.getByText('Jets kept').locator('..').textContent()).toContain('80');
+    expect(await counts.getByText('Jets kept').locator('..').textContent()).toMatch(/80.*exclusive, exactly 2 jets/);
     expect(await counts.getByText('Particles removed').locator('..').textContent()).toMatch(/neutral \d+/);
     expect(await counts.getByText('Jet flavours').locator('..').textContent()).toMatch(/\d+ b/);
 

@@ -58,6 +58,7 @@ describe('decluster: jet-definition options', () => {
     expect(r.code, r.err).toBe(0);
     expect(r.lines[0].jetDefinition).toEqual({ algorithm: 'kt', R: 1, recombination: 'E', exclusive: { n: 2 } });
     expect(r.lines.length - 1).toBe(2 * events.length);
+    expect(r.err).toContain('exclusive jets: {"n":2}');
   });
 
   it('e+e- Durham jets: energies and angles in the lines and header', () => {
