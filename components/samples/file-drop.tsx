@@ -62,7 +62,8 @@ export function FileDrop({ file, onFile, disabled }: FileDropProps) {
         }}
       />
       <p className="mt-3 text-xs text-ink-faint">
-        splitfield-particles (JSON Lines or one JSON document) or HepMC3 text, optionally gzip-compressed.
+        splitfield-particles (JSON Lines or one JSON document) or HepMC3 text, optionally gzip-compressed, or a Parquet or
+        Arrow file in Splitfield&apos;s columnar schema.
       </p>
     </div>
   );
