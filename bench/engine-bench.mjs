@@ -66,7 +66,7 @@ function ensureRef() {
   mkdirSync(path.dirname(REF_BIN), { recursive: true });
   log('building tests/reference/bin/fastjet-ref (g++ -O2)…');
   const tmp = `${REF_BIN}.${process.pid}.tmp`;
-  execFileSync('g++', ['-O2', '-std=c++17', '-o', tmp, REF_SRC, '-lfastjettools', '-lfastjet'], { stdio: 'inherit' });
+  execFileSync('g++', ['-O2', '-std=c++17', '-o', tmp, REF_SRC, '-lfastjettools', '-lfastjetplugins', '-lfastjet'], { stdio: 'inherit' });
   execFileSync('mv', [tmp, REF_BIN]);
   return { ok: true };
 }

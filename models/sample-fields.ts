@@ -1,13 +1,16 @@
 // Shapes of the JSON fields stored on a sample row (settings, progress, counts, error, input header). They live
 // beside the model that stores them so that lower layers never import from lib/samples; types only, so client
 // code may import them.
-import type { ProcessSettings } from '@/lib/physics/types';
+import type { ProcessSettings, RemovedParticles } from '@/lib/physics/types';
 
 /**
  * Processing settings of a sample: jet definition and cuts, SoftDrop, multiplicity kt cut, and `fullTree` (store
  * every splitting of the C/A tree, needed for `export?all=1`). `content` is not among them: the header gives it.
  */
 export type SampleSettings = Omit<ProcessSettings, 'content'>;
+
+/** Settings as stored and as the API answers: every field filled (lib/samples/settings.ts). */
+export type CompleteSampleSettings = Required<SampleSettings>;
 
 /** How far a job is; null fields are not known yet. */
 export interface SampleProgress {
@@ -37,6 +40,10 @@ export interface SampleCounts {
   primarySplittings: number;
   /** Every splitting of the C/A trees; 0 unless the full tree is stored. */
   allSplittings: number;
+  /** Particles removed by the constituent selection, by rule; missing or null without a selection. */
+  particlesRemoved?: RemovedParticles | null;
+  /** Kept jets by flavour tag; missing or null without flavour tags. */
+  flavours?: { b: number; c: number; light: number } | null;
 }
 
 /** Why a job failed: the first error, where it is, and what it means in plain words. */
@@ -54,7 +61,7 @@ export interface SampleError {
 export interface SampleInput {
   format: string;
   version: number | string;
-  layout: 'jsonl' | 'document' | 'ascii';
+  layout: 'jsonl' | 'document' | 'ascii' | 'parquet-lists' | 'parquet-flat' | 'arrow-lists' | 'arrow-flat';
   gzip: boolean;
   content: 'events' | 'jets';
   momentum: string;

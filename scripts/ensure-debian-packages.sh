@@ -6,6 +6,7 @@ need=()
 [ -x /usr/bin/chromium ] || need+=(chromium)
 [ -f /usr/include/fastjet/ClusterSequence.hh ] || need+=(libfastjet-dev)
 [ -f /usr/include/fastjet/tools/Recluster.hh ] || need+=(libfastjettools-dev)
+[ -f /usr/include/fastjet/EECambridgePlugin.hh ] || need+=(libfastjetplugins-dev)
 [ -f /usr/include/nlohmann/json.hpp ] || need+=(nlohmann-json3-dev)
 [ -f /usr/include/HepMC3/WriterAscii.h ] || need+=(libhepmc3-dev)
 if [ ${#need[@]} -eq 0 ]; then echo "all present"; exit 0; fi

@@ -3,7 +3,7 @@
 import * as Plot from '@observablehq/plot';
 import { useEffect, useRef, useState } from 'react';
 import type { PlaneView } from '@/lib/samples/shapes';
-import { DENSITY_LABEL, HORIZONTAL_LABELS, VERTICAL_LABEL } from './plane-view-settings';
+import { AXIS_LABELS, DENSITY_LABEL } from './plane-view-settings';
 
 /** Our colour map: a perceptually uniform ramp from Plot's built-ins, readable in grey and by colour-blind readers. */
 const COLOUR_SCHEME = 'cividis';
@@ -26,7 +26,7 @@ function useBoxWidth() {
  * A density map as an Observable Plot raster over the server's uniform grid (STACK.md pitfall 5: in the browser,
  * with the grid's size and corners given). Empty bins stay transparent so that they differ from small densities.
  */
-export function DensityFigure({ map }: { map: PlaneView }) {
+export function DensityFigure({ map, collision = 'hadron' }: { map: PlaneView; collision?: 'hadron' | 'ee' }) {
   const { box, width } = useBoxWidth();
   const holder = useRef<HTMLDivElement>(null);
 
@@ -43,8 +43,8 @@ export function DensityFigure({ map }: { map: PlaneView }) {
       marginLeft: 48,
       marginBottom: 42,
       style: { fontSize: '12px' },
-      x: { domain: [map.xEdges[0], map.xEdges[nx]], label: HORIZONTAL_LABELS[map.horizontal], labelAnchor: 'center', labelArrow: 'none' },
-      y: { domain: [map.yEdges[0], map.yEdges[ny]], label: VERTICAL_LABEL, labelAnchor: 'center', labelArrow: 'none' },
+      x: { domain: [map.xEdges[0], map.xEdges[nx]], label: AXIS_LABELS[collision].horizontal[map.horizontal], labelAnchor: 'center', labelArrow: 'none' },
+      y: { domain: [map.yEdges[0], map.yEdges[ny]], label: AXIS_LABELS[collision].vertical, labelAnchor: 'center', labelArrow: 'none' },
       color: {
         type: 'linear',
         scheme: COLOUR_SCHEME,
@@ -67,7 +67,7 @@ export function DensityFigure({ map }: { map: PlaneView }) {
     });
     target.replaceChildren(figure);
     return () => figure.remove();
-  }, [map, width]);
+  }, [map, width, collision]);
 
   return (
     <div ref={box} className="w-full">

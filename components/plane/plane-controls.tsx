@@ -1,5 +1,5 @@
 import { inlineSelectClass } from '../fields';
-import { BIN_SIZES, HORIZONTAL_LABELS, type HorizontalCoordinate, type PlaneChoice } from './plane-view-settings';
+import { AXIS_LABELS, BIN_SIZES, type HorizontalCoordinate, type PlaneChoice } from './plane-view-settings';
 
 /** Two or more mutually exclusive choices as a row of pressed/unpressed buttons. */
 function ChoiceButtons<T extends string>({ label, value, options, onChange }: { label: string; value: T; options: [T, string][]; onChange: (next: T) => void }) {
@@ -21,8 +21,8 @@ function ChoiceButtons<T extends string>({ label, value, options, onChange }: { 
 }
 
 /** The horizontal coordinate and the bin size of the plane. */
-export function PlaneControls({ choice, onChange }: { choice: PlaneChoice; onChange: (next: PlaneChoice) => void }) {
-  const horizontalOptions = Object.entries(HORIZONTAL_LABELS) as [HorizontalCoordinate, string][];
+export function PlaneControls({ choice, onChange, collision = 'hadron' }: { choice: PlaneChoice; onChange: (next: PlaneChoice) => void; collision?: 'hadron' | 'ee' }) {
+  const horizontalOptions = Object.entries(AXIS_LABELS[collision].horizontal) as [HorizontalCoordinate, string][];
   return (
     <div className="flex flex-wrap items-center gap-3">
       <ChoiceButtons label="Horizontal axis" value={choice.horizontal} options={horizontalOptions} onChange={(horizontal) => onChange({ ...choice, horizontal })} />

@@ -14,7 +14,7 @@ import { PlaneControls } from './plane-controls';
 import { DEFAULT_BIN_SIZE, planeUrl, type PlaneChoice } from './plane-view-settings';
 
 /** A first look at a sample's primary emission plane, with the coordinate and bin size to choose. */
-export function PlanePanel({ sampleId }: { sampleId: number }) {
+export function PlanePanel({ sampleId, collision = 'hadron' }: { sampleId: number; collision?: 'hadron' | 'ee' }) {
   const [choice, setChoice] = useState<PlaneChoice>({ horizontal: 'lnInvDelta', binSize: DEFAULT_BIN_SIZE });
   // While another choice loads, the map drawn last stays on screen (it names its own horizontal coordinate).
   const { data, error, isLoading } = useSWR<PlaneView, ApiError>(planeUrl(sampleId, choice), { keepPreviousData: true });
@@ -22,13 +22,13 @@ export function PlanePanel({ sampleId }: { sampleId: number }) {
   return (
     <Panel title="Primary plane" aside={data && `${formatCount(data.jetCount)} jets`}>
       <div className="space-y-3">
-        <PlaneControls choice={choice} onChange={setChoice} />
+        <PlaneControls choice={choice} onChange={setChoice} collision={collision} />
         {error && <Notice tone="error">{error.message}</Notice>}
         {!data && !error && <LoadingBlock label="Drawing the plane…" />}
         {empty && <EmptyState title="No splittings in this range">The kept jets have no primary splitting on this part of the plane.</EmptyState>}
         {data && !empty && (
           <div aria-busy={isLoading} className={isLoading ? 'opacity-60' : undefined}>
-            <DensityFigure map={data} />
+            <DensityFigure map={data} collision={collision} />
           </div>
         )}
       </div>

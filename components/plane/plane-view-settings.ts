@@ -11,6 +11,12 @@ export const HORIZONTAL_LABELS: Record<HorizontalCoordinate, string> = {
 
 // Unicode subscript: the axis label is SVG text, where markup does not go.
 export const VERTICAL_LABEL = 'ln(kₜ / GeV)';
+
+/** Axis labels by collision type: e+e- samples are declustered in the angle θ and kₜ = E sin θ (PHYSICS.md). */
+export const AXIS_LABELS: Record<'hadron' | 'ee', { horizontal: Record<HorizontalCoordinate, string>; vertical: string }> = {
+  hadron: { horizontal: HORIZONTAL_LABELS, vertical: VERTICAL_LABEL },
+  ee: { horizontal: { lnInvDelta: 'ln(1/θ)', lnRoverDelta: 'ln(R/θ)' }, vertical: 'ln(kₜ / GeV),  kₜ = E sin θ' },
+};
 export const DENSITY_LABEL = 'emissions per jet per unit area';
 
 /** Width of the server's fine bins in both coordinates (lib/physics/density.ts); coarse bins merge whole fine ones. */

@@ -57,7 +57,7 @@ export function FileDrop({ file, onFile, disabled, error }: FileDropProps) {
         aria-label="Particle file"
         aria-invalid={error ? true : undefined}
         aria-describedby={error ? `${inputId}-error` : undefined}
-        accept=".jsonl,.json,.gz,.hepmc,.hepmc3,.txt"
+        accept=".jsonl,.json,.gz,.hepmc,.hepmc3,.txt,.parquet,.arrow,.arrows,.feather,.ipc"
         className="sr-only"
         disabled={disabled}
         onChange={(event) => {
@@ -71,7 +71,8 @@ export function FileDrop({ file, onFile, disabled, error }: FileDropProps) {
         </p>
       )}
       <p className="mt-3 text-xs text-ink-faint">
-        splitfield-particles (JSON Lines or one JSON document) or HepMC3 text, optionally gzip-compressed.
+        splitfield-particles (JSON Lines or one JSON document) or HepMC3 text, optionally gzip-compressed, or a Parquet or
+        Arrow file in Splitfield&apos;s columnar schema.
       </p>
     </div>
   );

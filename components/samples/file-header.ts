@@ -12,7 +12,7 @@ const HEADER_BYTES = 256 * 1024;
 
 /** "jets.run2.jsonl.gz" → "jets.run2". */
 export function nameFromFileName(fileName: string): string {
-  return fileName.replace(/(\.gz)$/i, '').replace(/\.(jsonl|json|hepmc3?|txt)$/i, '') || fileName;
+  return fileName.replace(/(\.gz)$/i, '').replace(/\.(jsonl|json|hepmc3?|txt|parquet|arrows?|feather|ipc)$/i, '') || fileName;
 }
 
 async function firstText(file: File): Promise<string> {

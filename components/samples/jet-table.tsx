@@ -19,13 +19,28 @@ interface JetPage {
   jets: JetRow[];
 }
 
-type JetSortKey = 'row' | 'pt' | 'y' | 'phi' | 'm' | 'n' | 'mg' | 'zg' | 'Rg' | 'mult';
+type JetSortKey = 'row' | 'pt' | 'y' | 'E' | 'theta' | 'phi' | 'm' | 'n' | 'mg' | 'zg' | 'Rg' | 'mult' | 'flavour';
 
-/** Numeric columns after the record: heading, tooltip, and how to write the value of a jet. */
 // Headings are typeset (components/typeset.tsx): "m_g" reads as m with a subscript g.
-const COLUMNS: { key: Exclude<JetSortKey, 'row'>; heading: string; title: string; value: (jet: JetRow) => string }[] = [
-  { key: 'pt', heading: 'p_T', title: 'Transverse momentum (GeV)', value: (jet) => formatValue(jet.pt) },
-  { key: 'y', heading: 'y', title: 'Rapidity', value: (jet) => formatValue(jet.y) },
+type Column = { key: Exclude<JetSortKey, 'row'>; heading: string; title: string; value: (jet: JetRow) => string };
+
+/** The flavour column (samples processed with flavour tags): b, c or light, by ghost association. */
+const FLAVOUR_COLUMN: Column = { key: 'flavour', heading: 'flavour', title: 'Flavour tag by ghost association: b, c or light', value: (jet) => jet.flavour ?? '–' };
+
+/** Hadron-collider jets are described by pt and y; e+e- jets by energy and polar angle. */
+const KINEMATICS: Record<'hadron' | 'ee', Column[]> = {
+  hadron: [
+    { key: 'pt', heading: 'p_T', title: 'Transverse momentum (GeV)', value: (jet) => formatValue(jet.pt) },
+    { key: 'y', heading: 'y', title: 'Rapidity', value: (jet) => formatValue(jet.y) },
+  ],
+  ee: [
+    { key: 'E', heading: 'E', title: 'Energy (GeV)', value: (jet) => formatValue(jet.E) },
+    { key: 'theta', heading: 'θ', title: 'Polar angle, 0 to π', value: (jet) => formatValue(jet.theta) },
+  ],
+};
+
+/** Numeric columns after the record and the kinematics: heading, tooltip, and how to write the value of a jet. */
+const COLUMNS: Column[] = [
   { key: 'phi', heading: 'φ', title: 'Azimuth, 0 to 2π', value: (jet) => formatValue(jet.phi) },
   { key: 'm', heading: 'm', title: 'Mass (GeV)', value: (jet) => formatValue(jet.m) },
   { key: 'n', heading: 'n', title: 'Constituents', value: (jet) => formatCount(jet.n) },
@@ -35,14 +50,14 @@ const COLUMNS: { key: Exclude<JetSortKey, 'row'>; heading: string; title: string
   { key: 'mult', heading: 'mult', title: 'Primary splittings above the multiplicity kₜ cut', value: (jet) => formatCount(jet.mult) },
 ];
 
-function JetRows({ jets }: { jets: JetRow[] }) {
+function JetRows({ jets, columns }: { jets: JetRow[]; columns: Column[] }) {
   return jets.map((jet) => (
     <tr key={jet.row}>
       <td className={`${cellClass} whitespace-nowrap font-mono text-xs leading-5 text-ink-soft`}>
         {jet.record}
         {jet.jet > 0 && <span className="text-ink-faint"> · jet {jet.jet + 1}</span>}
       </td>
-      {COLUMNS.map((column) => (
+      {columns.map((column) => (
         <td key={column.key} className={numberCellClass}>
           {column.value(jet)}
         </td>
@@ -52,7 +67,8 @@ function JetRows({ jets }: { jets: JetRow[] }) {
 }
 
 /** The sample's kept jets a page at a time, in file order or sorted by a column (largest first). */
-export function JetTable({ sampleId }: { sampleId: number }) {
+export function JetTable({ sampleId, collision = 'hadron', flavourTags = false }: { sampleId: number; collision?: 'hadron' | 'ee'; flavourTags?: boolean }) {
+  const columns = [...KINEMATICS[collision], ...COLUMNS, ...(flavourTags ? [FLAVOUR_COLUMN] : [])];
   const [offset, setOffset] = useState(0);
   const [sort, setSort] = useState<SortState<JetSortKey>>({ key: 'row', order: 'asc' });
   const query = new URLSearchParams({ offset: String(offset), limit: String(PAGE_SIZE), sort: sort.key, order: sort.order });
@@ -81,11 +97,11 @@ export function JetTable({ sampleId }: { sampleId: number }) {
             head={
               <>
                 {header('row', 'record', 'The record (and jet) in file order', 'left')}
-                {COLUMNS.map((column) => header(column.key, column.heading, column.title, 'right'))}
+                {columns.map((column) => header(column.key, column.heading, column.title, 'right'))}
               </>
             }
           >
-            <JetRows jets={data.jets} />
+            <JetRows jets={data.jets} columns={columns} />
           </DataTable>
           <nav aria-label="Jet pages" className="flex flex-wrap items-center justify-between gap-2 text-sm text-ink-soft">
             <span aria-live="polite">{pageLabel}</span>

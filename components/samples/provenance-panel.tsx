@@ -1,12 +1,13 @@
 import type { ReactNode } from 'react';
 import type { SampleProvenance } from '@/lib/samples/shapes';
-import type { SampleSettings } from '@/models/sample-fields';
+import type { CompleteSampleSettings } from '@/models/sample-fields';
 import { buttonClass } from '../button';
 import { formatDateTime } from '../format';
 import { Panel } from '../panel';
 import { Typeset } from '../typeset';
 import { formatBytes } from './numbers';
-import { ALGORITHM_NAMES } from './processing-settings';
+import { constituentsText, exclusiveText } from './jet-definition-text';
+import { ALGORITHM_NAMES, EE_ALGORITHM_NAMES } from './processing-settings';
 
 type Fact = [label: string, value: ReactNode];
 
@@ -48,11 +49,23 @@ function metadataFacts(metadata: Record<string, unknown>): Fact[] {
   return Object.entries(metadata).map(([key, value]) => [key, <MetadataValue key={key} value={value} />]);
 }
 
-function settingsFacts(settings: SampleSettings, tree: SampleProvenance['tree']): Fact[] {
-  const { jet, softDrop } = settings;
+function settingsFacts(settings: CompleteSampleSettings, tree: SampleProvenance['tree']): Fact[] {
+  const { jet, softDrop, ee } = settings;
+  const jets: Fact[] =
+    settings.collision === 'ee'
+      ? [
+          ['Collision', 'e+e− (energy and angles; declustered in θ with kₜ = E sin θ, re-clustered with e+e− Cambridge)'],
+          ['Jets', `${EE_ALGORITHM_NAMES[ee.algorithm]}${ee.algorithm === 'genkt' ? `, R = ${jet.R}, p = ${ee.p}` : ''}, ${exclusiveText(jet.exclusive)}`],
+          ['Cuts', `E > ${ee.eMin} GeV, ${jet.maxJets === null ? 'all jets' : `${jet.maxJets} leading jets`} per record`],
+        ]
+      : [
+          ['Jets', `${ALGORITHM_NAMES[jet.algorithm]}, R = ${jet.R}${jet.exclusive ? `, ${exclusiveText(jet.exclusive)}` : ''}`],
+          ['Cuts', <Typeset key="cuts" text={`p_T > ${jet.ptMin} GeV, |y| < ${jet.yMax}, ${jet.maxJets === null ? 'all jets' : `${jet.maxJets} leading jets`} per record`} />],
+        ];
   return [
-    ['Jets', `${ALGORITHM_NAMES[jet.algorithm]}, R = ${jet.R}`],
-    ['Cuts', <Typeset key="cuts" text={`p_T > ${jet.ptMin} GeV, |y| < ${jet.yMax}, ${jet.maxJets === null ? 'all jets' : `${jet.maxJets} leading jets`} per record`} />],
+    ...jets,
+    ['Constituents', constituentsText(settings.particles)],
+    ['Flavour tags', settings.flavourTags ? 'b, c, light by ghost association' : 'off'],
     ['SoftDrop', <Typeset key="softdrop" text={`z_cut = ${softDrop.zCut}, β = ${softDrop.beta}, R_0 = ${softDrop.R0}`} />],
     ['Multiplicity', <Typeset key="multiplicity" text={`primary splittings with k_t > ${settings.multiplicityKtCut} GeV`} />],
     ['Stored', tree === 'full' ? 'every splitting of the C/A tree' : 'primary splittings'],

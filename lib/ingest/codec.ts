@@ -1,7 +1,8 @@
 // Packing of record batches and their results into a few typed arrays, so that they cross to and from the
 // worker threads by transfer (no copy, no per-object cloning).
 
-import type { JetResult, ProcessSettings, RecordResult } from '../physics/types';
+import type { JetResult, ProcessSettings, RecordResult, RemovedParticles } from '../physics/types';
+import { REMOVED_RULES } from '../physics/types';
 import type { PlainIngestError } from './errors';
 import type { RecordContext } from './types';
 import type { RecordMeta } from './pipeline/sink';
@@ -15,6 +16,13 @@ export interface PackedTask {
   particles: Float64Array;
   /** Start of record i's particles in `particles` (in doubles); offsets[n] = particles.length. */
   offsets: Float64Array;
+  /** Per-particle pids and charges of all records (same order as the particles), when every record has them. */
+  pid?: Int32Array;
+  charge?: Float64Array;
+  /** Tag particles of all records back to back, record i's from tagOffsets[i] (doubles), and their pids. */
+  tags?: Float64Array;
+  tagOffsets?: Float64Array;
+  tagPid?: Int32Array;
 }
 
 /** Unparsed records (JSON Lines records or HepMC3 event blocks): the worker parses, validates and processes them. */
@@ -31,8 +39,13 @@ export interface LinesTask {
 
 export type WorkerTask = PackedTask | LinesTask;
 
-/** Scalars a jet: pt, y, phi, m, n, mg, zg, Rg, multiplicity, primary length, all length (−1: null). */
-export const JET_SCALARS = 11;
+/**
+ * Scalars a jet: pt, y, phi, m, n, mg, zg, Rg, multiplicity, primary length, all length (−1: null), flavour (−1:
+ * none), E and theta (NaN: not set).
+ */
+export const JET_SCALARS = 14;
+/** Ints a record: jets, rejected pt, y, rank, whether particles were selected, then REMOVED_RULES counts. */
+const RECORD_INTS = 5 + REMOVED_RULES.length;
 
 export interface WorkerResult {
   /** Per processed record: number of jets, rejected pt, rejected y, rejected rank. */
@@ -50,17 +63,46 @@ export interface WorkerResult {
 
 export function packTask(records: ParticleRecord[], settings: ProcessSettings): PackedTask {
   let n = 0;
-  for (const r of records) n += r.particles.length;
+  let nTags = 0;
+  for (const r of records) {
+    n += r.particles.length;
+    if (r.tags) nTags += r.tags.length;
+  }
   const particles = new Float64Array(n);
   const offsets = new Float64Array(records.length + 1);
+  const withPid = records.every((r) => r.pid);
+  const withCharge = records.every((r) => r.charge);
+  const pid = withPid ? new Int32Array(n >> 2) : undefined;
+  const charge = withCharge ? new Float64Array(n >> 2) : undefined;
+  const tags = nTags ? new Float64Array(nTags) : undefined;
+  const tagPid = nTags ? new Int32Array(nTags >> 2) : undefined;
+  const tagOffsets = nTags ? new Float64Array(records.length + 1) : undefined;
   let at = 0;
+  let tagAt = 0;
   for (let i = 0; i < records.length; i++) {
+    const r = records[i];
     offsets[i] = at;
-    particles.set(records[i].particles, at);
-    at += records[i].particles.length;
+    particles.set(r.particles, at);
+    pid?.set(r.pid!, at >> 2);
+    charge?.set(r.charge!, at >> 2);
+    if (tagOffsets) {
+      tagOffsets[i] = tagAt;
+      if (r.tags && r.tagPid) {
+        tags!.set(r.tags, tagAt);
+        tagPid!.set(r.tagPid, tagAt >> 2);
+        tagAt += r.tags.length;
+      }
+    }
+    at += r.particles.length;
   }
   offsets[records.length] = at;
-  return { kind: 'packed', settings, particles, offsets };
+  if (tagOffsets) tagOffsets[records.length] = tagAt;
+  return { kind: 'packed', settings, particles, offsets, pid, charge, tags, tagOffsets, tagPid };
+}
+
+/** The transferable buffers of a packed task. */
+export function taskBuffers(t: PackedTask): ArrayBuffer[] {
+  return [t.particles, t.offsets, t.pid, t.charge, t.tags, t.tagOffsets, t.tagPid].filter((a) => a !== undefined).map((a) => a!.buffer as ArrayBuffer);
 }
 
 export function packResults(results: RecordResult[], error: WorkerResult['error'] = null): WorkerResult {
@@ -72,17 +114,22 @@ export function packResults(results: RecordResult[], error: WorkerResult['error'
       if (j.all) nAll += j.all.length;
     }
   }
-  const perRecord = new Int32Array(4 * results.length);
+  const perRecord = new Int32Array(RECORD_INTS * results.length);
   const jets = new Float64Array(JET_SCALARS * nJets);
   const primary = new Float64Array(nPrim);
   const all = new Float64Array(nAll);
   let jx = 0, px = 0, ax = 0;
   for (let i = 0; i < results.length; i++) {
     const r = results[i];
-    perRecord[4 * i] = r.jets.length;
-    perRecord[4 * i + 1] = r.rejected.pt;
-    perRecord[4 * i + 2] = r.rejected.y;
-    perRecord[4 * i + 3] = r.rejected.rank;
+    const q = RECORD_INTS * i;
+    perRecord[q] = r.jets.length;
+    perRecord[q + 1] = r.rejected.pt;
+    perRecord[q + 2] = r.rejected.y;
+    perRecord[q + 3] = r.rejected.rank;
+    if (r.removed) {
+      perRecord[q + 4] = 1;
+      REMOVED_RULES.forEach((rule, k) => (perRecord[q + 5 + k] = r.removed![rule]));
+    }
     for (const j of r.jets) {
       jets[jx] = j.pt;
       jets[jx + 1] = j.y;
@@ -95,6 +142,9 @@ export function packResults(results: RecordResult[], error: WorkerResult['error'
       jets[jx + 8] = j.multiplicity;
       jets[jx + 9] = j.primary.length;
       jets[jx + 10] = j.all ? j.all.length : -1;
+      jets[jx + 11] = j.flavour ?? -1;
+      jets[jx + 12] = j.E ?? NaN;
+      jets[jx + 13] = j.theta ?? NaN;
       jx += JET_SCALARS;
       primary.set(j.primary, px);
       px += j.primary.length;
@@ -107,12 +157,18 @@ export function packResults(results: RecordResult[], error: WorkerResult['error'
   return { perRecord, jets, primary, all, meta: null, problems: [], error };
 }
 
+/** The number of records a worker result holds. */
+export function resultRecords(w: WorkerResult): number {
+  return w.perRecord.length / RECORD_INTS;
+}
+
 export function unpackResults(w: WorkerResult, nRecords: number): RecordResult[] {
   const out: RecordResult[] = new Array(nRecords);
   const { perRecord, jets, primary, all } = w;
   let jx = 0, px = 0, ax = 0;
   for (let i = 0; i < nRecords; i++) {
-    const nj = perRecord[4 * i];
+    const q = RECORD_INTS * i;
+    const nj = perRecord[q];
     const list: JetResult[] = new Array(nj);
     for (let k = 0; k < nj; k++) {
       const np = jets[jx + 9];
@@ -128,11 +184,21 @@ export function unpackResults(w: WorkerResult, nRecords: number): RecordResult[]
         primary: primary.subarray(px, px + np),
         all: na < 0 ? null : all.subarray(ax, ax + na),
       };
+      if (jets[jx + 11] >= 0) list[k].flavour = jets[jx + 11];
+      if (!Number.isNaN(jets[jx + 12])) {
+        list[k].E = jets[jx + 12];
+        list[k].theta = jets[jx + 13];
+      }
       px += np;
       if (na > 0) ax += na;
       jx += JET_SCALARS;
     }
-    out[i] = { jets: list, rejected: { pt: perRecord[4 * i + 1], y: perRecord[4 * i + 2], rank: perRecord[4 * i + 3] } };
+    out[i] = { jets: list, rejected: { pt: perRecord[q + 1], y: perRecord[q + 2], rank: perRecord[q + 3] } };
+    if (perRecord[q + 4] === 1) {
+      const removed = {} as RemovedParticles;
+      REMOVED_RULES.forEach((rule, k) => (removed[rule] = perRecord[q + 5 + k]));
+      out[i].removed = removed;
+    }
   }
   return out;
 }

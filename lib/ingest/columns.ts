@@ -41,7 +41,16 @@ export const JET_COLUMNS = {
   zg: 'float64',
   Rg: 'float64',
   multiplicity: 'int32',
+  flavour: 'int32',
+  E: 'float64',
+  theta: 'float64',
 } as const satisfies Record<string, ColumnType>;
+
+/**
+ * Jet columns added after the first samples were stored: a sample without them reads them as their fill value
+ * (flavour −1 = not tagged; E and theta NaN).
+ */
+const ADDED_JET_COLUMNS: Partial<Record<keyof typeof JET_COLUMNS, number>> = { flavour: -1, E: NaN, theta: NaN };
 
 /** Per-splitting table: `jetRow` is the row of its jet in the jet table; primary splittings have generation 1. */
 export const SPLITTING_COLUMNS = {
@@ -274,6 +283,8 @@ export class ColumnWriter {
       zg: jet.softDrop.zg,
       Rg: jet.softDrop.Rg,
       multiplicity: jet.multiplicity,
+      flavour: jet.flavour ?? -1,
+      ...energyAndAngle(jet),
     };
     for (const [name, column] of this.jets) column.buffer.push(values[name]);
     const splittings = this.tree === 'full' ? jet.all! : jet.primary;
@@ -332,6 +343,18 @@ export class ColumnWriter {
   }
 }
 
+/** A jet's energy and polar angle: the e+e- engine's, or from pt, y and m. */
+function energyAndAngle(jet: JetResult): { E: number; theta: number } {
+  if (jet.E !== undefined && jet.theta !== undefined) return { E: jet.E, theta: jet.theta };
+  const mt = Math.sqrt(jet.pt * jet.pt + jet.m * Math.abs(jet.m));
+  return { E: mt * Math.cosh(jet.y), theta: Math.atan2(jet.pt, mt * Math.sinh(jet.y)) };
+}
+
+/** The jet columns a manifest lists: every current one, or those before ADDED_JET_COLUMNS existed. */
+function storedJetColumns(listed: Array<{ name: string }>): Set<string> {
+  return new Set(listed.map((c) => c.name));
+}
+
 function describe<T extends Record<string, ColumnType>>(columns: T): Array<{ name: keyof T & string; type: ColumnType }> {
   return Object.entries(columns).map(([name, type]) => ({ name: name as keyof T & string, type }));
 }
@@ -350,10 +373,25 @@ async function exists(p: string): Promise<boolean> {
 export const MAX_JET_PAGE = 10_000;
 
 export class ColumnReader {
+  /** The jet columns this sample stores (older samples lack ADDED_JET_COLUMNS). */
+  readonly stored: Set<string>;
   private constructor(
     readonly directory: string,
     readonly manifest: ColumnManifest,
-  ) {}
+  ) {
+    this.stored = storedJetColumns(manifest.jets.columns);
+  }
+
+  /** Rows of a jet column, or its fill value for a column this sample predates. */
+  private jetRows<K extends JetColumnName>(name: K, first: number, count: number): Promise<ColumnArray<(typeof JET_COLUMNS)[K]>> {
+    const type = JET_COLUMNS[name];
+    if (!this.stored.has(name)) {
+      const filled = type === 'int32' ? new Int32Array(count) : new Float64Array(count);
+      filled.fill(ADDED_JET_COLUMNS[name] ?? 0);
+      return Promise.resolve(filled as ColumnArray<(typeof JET_COLUMNS)[K]>);
+    }
+    return this.readRows(columnFile('jets', name, type), type, first, count);
+  }
 
   /** Opens a committed sample, checking its manifest and that every file has the size the manifest implies. */
   static async open(directory: string): Promise<ColumnReader> {
@@ -372,7 +410,7 @@ export class ColumnReader {
       [RECORD_IDS_FILE, manifest.records.bytes],
     ];
     for (const [name, type] of Object.entries(JET_COLUMNS)) {
-      expected.push([columnFile('jets', name, type), manifest.jets.rows * BYTES_PER_VALUE[type]]);
+      if (reader.stored.has(name)) expected.push([columnFile('jets', name, type), manifest.jets.rows * BYTES_PER_VALUE[type]]);
     }
     for (const [name, type] of Object.entries(SPLITTING_COLUMNS)) {
       expected.push([columnFile('splittings', name, type), manifest.splittings.rows * BYTES_PER_VALUE[type]]);
@@ -417,7 +455,7 @@ export class ColumnReader {
   jetColumn<K extends JetColumnName>(name: K): Promise<ColumnArray<(typeof JET_COLUMNS)[K]>> {
     const type = JET_COLUMNS[name];
     if (!type) return Promise.reject(new RangeError(`unknown jet column "${String(name)}"`));
-    return this.readRows(columnFile('jets', name, type), type, 0, this.manifest.jets.rows);
+    return this.jetRows(name, 0, this.manifest.jets.rows);
   }
 
   /** A whole splitting column. */
@@ -441,7 +479,7 @@ export class ColumnReader {
   /** Rows [first, first + count) of one jet column. */
   jetColumnRange<K extends JetColumnName>(name: K, first: number, count: number): Promise<ColumnArray<(typeof JET_COLUMNS)[K]>> {
     checkRange('jet', first, count, this.manifest.jets.rows);
-    return this.readRows(columnFile('jets', name, JET_COLUMNS[name]), JET_COLUMNS[name], first, count);
+    return this.jetRows(name, first, count);
   }
 
   /** Rows [first, first + count) of one splitting column. */
@@ -475,7 +513,7 @@ export class ColumnReader {
     for (const row of rows) checkRange('jet row', row, 1, this.manifest.jets.rows);
     const columns = {} as Record<JetColumnName, Float64Array | Int32Array>;
     for (const [name, type] of Object.entries(JET_COLUMNS) as Array<[JetColumnName, ColumnType]>) {
-      columns[name] = await this.readAt(columnFile('jets', name, type), type, rows);
+      columns[name] = this.stored.has(name) ? await this.readAt(columnFile('jets', name, type), type, rows) : await this.jetRows(name, 0, rows.length);
     }
     const records = Array.from(columns.record);
     const starts = await this.readAt(RECORD_OFFSETS_FILE, 'int32', records);
@@ -501,9 +539,7 @@ export class ColumnReader {
     const count = Math.max(0, Math.min(limit, this.manifest.jets.rows - offset));
     if (count === 0) return [];
     const columns = {} as Record<JetColumnName, Float64Array | Int32Array>;
-    for (const [name, type] of Object.entries(JET_COLUMNS) as Array<[JetColumnName, ColumnType]>) {
-      columns[name] = await this.readRows(columnFile('jets', name, type), type, offset, count);
-    }
+    for (const name of Object.keys(JET_COLUMNS) as JetColumnName[]) columns[name] = await this.jetRows(name, offset, count);
     const firstRecord = columns.record[0];
     const ids = await this.recordIds(firstRecord, columns.record[count - 1] - firstRecord + 1);
     const rows: JetRow[] = [];
@@ -544,7 +580,10 @@ function checkedManifest(text: string, directory: string): ColumnManifest {
   for (const [table, columns] of tables) {
     if (!count(m[table]?.rows)) fail(`has an invalid row count for ${table}`);
     const listed = JSON.stringify(m[table].columns);
-    if (listed !== JSON.stringify(describe(columns))) fail(`lists ${table} columns ${listed}, not those of version ${COLUMNS_VERSION}`);
+    const before = describe(columns).filter((c) => !(table === 'jets' && c.name in ADDED_JET_COLUMNS));
+    if (listed !== JSON.stringify(describe(columns)) && listed !== JSON.stringify(before)) {
+      fail(`lists ${table} columns ${listed}, not those of version ${COLUMNS_VERSION}`);
+    }
   }
   return m;
 }

@@ -5,7 +5,7 @@
 // 0-based positions in the record's "particles" array (particles[3] is "particle 3"); for HepMC3 the
 // particle is named by its HepMC id.
 
-export type IngestWhere = 'line' | 'record';
+export type IngestWhere = 'line' | 'record' | 'row';
 
 export interface IngestErrorDetail {
   /** 1-based line number (or record number in the one-document form); null when the whole file is concerned. */
@@ -15,6 +15,10 @@ export interface IngestErrorDetail {
   /** The record field or momentum component concerned, e.g. "pz", "weight", "header.version". */
   field?: string;
   where?: IngestWhere;
+  /** Columnar files: the row group (Parquet) or record batch (Arrow), 0-based; with where 'row', line is the row. */
+  rowGroup?: number;
+  /** Columnar files: the column concerned. */
+  column?: string;
   /** How the particle is named in the message (default "particle"). */
   particleLabel?: string;
   /** True when only this record is bad and the rest of the file can still be read (--skip-bad). */
@@ -32,13 +36,17 @@ export class IngestError extends Error {
   readonly recordLevel: boolean;
   readonly code: string;
   readonly particleLabel?: string;
+  readonly rowGroup?: number;
+  readonly column?: string;
   /** The message without the position prefix. */
   readonly detail: string;
 
   constructor(detail: string, info: IngestErrorDetail = {}) {
     const where = info.where ?? 'line';
     const parts: string[] = [];
+    if (info.rowGroup != null) parts.push(`row group ${info.rowGroup}`);
     if (info.line != null) parts.push(`${where} ${info.line}`);
+    if (info.column != null) parts.push(`column ${info.column}`);
     if (info.particle != null) parts.push(`${info.particleLabel ?? 'particle'} ${info.particle}`);
     super(parts.length ? `${parts.join(', ')}: ${detail}` : detail, info.cause !== undefined ? { cause: info.cause } : undefined);
     this.name = 'IngestError';
@@ -50,6 +58,8 @@ export class IngestError extends Error {
     this.recordLevel = info.recordLevel ?? false;
     this.code = info.code ?? 'record';
     this.particleLabel = info.particleLabel;
+    this.rowGroup = info.rowGroup;
+    this.column = info.column;
   }
 
   /** A plain object that crosses a worker-thread boundary (structured clone drops the class). */
@@ -63,6 +73,8 @@ export class IngestError extends Error {
       recordLevel: this.recordLevel,
       code: this.code,
       particleLabel: this.particleLabel,
+      rowGroup: this.rowGroup,
+      column: this.column,
     };
   }
 

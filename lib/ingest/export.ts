@@ -6,7 +6,9 @@ import { once } from 'node:events';
 import type { Writable } from 'node:stream';
 import pkg from '../../package.json';
 import { SPLIT_STRIDE, type ProcessSettings, type RecordResult } from '../physics/types';
+import { selectsAll } from '../physics/constituent-selection';
 import type { IngestHeader } from './header';
+import { flavourName } from './pipeline/flavour-counts';
 import type { PipelineSummary, RecordMeta, ResultSink } from './pipeline/sink';
 
 export const DECLUSTERINGS_FORMAT = 'splitfield-declusterings';
@@ -17,6 +19,30 @@ export const SOFTWARE_VERSION: string = (pkg as { version: string }).version;
 export const PRIMARY_COLUMNS = ['lnInvDelta', 'lnKt', 'z', 'delta', 'kt', 'psi', 'm'] as const;
 /** Column order of an "all" entry. */
 export const ALL_COLUMNS = ['generation', 'lnInvDelta', 'lnKt', 'z'] as const;
+/** e+e- samples: the same slots in energy and angle (PHYSICS.md "Lepton-collider (e+e-) events"). */
+export const EE_PRIMARY_COLUMNS = ['lnInvTheta', 'lnKt', 'z', 'theta', 'kt', 'psi', 'm'] as const;
+export const EE_ALL_COLUMNS = ['generation', 'lnInvTheta', 'lnKt', 'z'] as const;
+
+/** How jet lines are written: e+e- jets carry E and theta for pt and y; tagged jets carry their flavour. */
+export interface JetLineStyle {
+  fullTree: boolean;
+  ee: boolean;
+  flavour: boolean;
+}
+
+export function jetLineStyle(s: Omit<ProcessSettings, 'content'>): JetLineStyle {
+  return { fullTree: s.fullTree, ee: s.collision === 'ee', flavour: !!s.flavourTags };
+}
+
+/** The jet definition as the header states it (hadron-collider inclusive jets keep their original form). */
+function headerJetDefinition(s: ProcessSettings): Record<string, unknown> {
+  if (s.content !== 'events') return { algorithm: null, R: s.jet.R, jetsFound: false, note: 'each record is one jet, taken as given' };
+  const exclusive = s.jet.exclusive ? { exclusive: s.jet.exclusive } : {};
+  if (s.collision !== 'ee') return { algorithm: s.jet.algorithm, R: s.jet.R, recombination: 'E', ...exclusive };
+  const ee = s.ee!;
+  const radius = ee.algorithm === 'genkt' ? { R: s.jet.R, p: ee.p } : {};
+  return { collision: 'ee', algorithm: ee.algorithm, ...radius, recombination: 'E', ...exclusive };
+}
 
 /**
  * The export's header object. It says what the file holds: `fullTree` is the processing setting (the whole C/A
@@ -30,22 +56,25 @@ export function exportHeader(
   inputName?: string,
   includeAll: boolean = s.fullTree,
 ): Record<string, unknown> {
-  const jetDefinition =
-    s.content === 'events'
-      ? { algorithm: s.jet.algorithm, R: s.jet.R, recombination: 'E' }
-      : { algorithm: null, R: s.jet.R, jetsFound: false, note: 'each record is one jet, taken as given' };
+  const ee = s.collision === 'ee';
+  const extras: Record<string, unknown> = {};
+  if (!selectsAll(s.particles)) extras.constituents = s.particles;
+  if (s.flavourTags) extras.flavourTags = { method: 'ghost association', ghostScale: 1e-18, values: ['b', 'c', 'light'] };
   return {
     format: DECLUSTERINGS_FORMAT,
     version: DECLUSTERINGS_VERSION,
     content: s.content,
-    jetDefinition,
-    cuts: { ptMin: s.jet.ptMin, yMax: s.jet.yMax, maxJets: s.jet.maxJets },
-    reclustering: 'ca',
+    jetDefinition: headerJetDefinition(s),
+    cuts: ee ? { eMin: s.ee!.eMin, maxJets: s.jet.maxJets } : { ptMin: s.jet.ptMin, yMax: s.jet.yMax, maxJets: s.jet.maxJets },
+    reclustering: ee ? 'ee-cambridge' : 'ca',
+    ...extras,
     softDrop: { zCut: s.softDrop.zCut, beta: s.softDrop.beta, R0: s.softDrop.R0 },
     multiplicityKtCut: s.multiplicityKtCut,
     fullTree: s.fullTree,
     splittings: includeAll ? ['primary', 'all'] : ['primary'],
-    columns: { primary: [...PRIMARY_COLUMNS], all: includeAll ? [...ALL_COLUMNS] : undefined, sd: ['mg', 'zg', 'Rg'] },
+    columns: ee
+      ? { jet: ['E', 'theta', 'phi', 'm'], primary: [...EE_PRIMARY_COLUMNS], all: includeAll ? [...EE_ALL_COLUMNS] : undefined, sd: ['mg', 'zg', 'Rg'] }
+      : { primary: [...PRIMARY_COLUMNS], all: includeAll ? [...ALL_COLUMNS] : undefined, sd: ['mg', 'zg', 'Rg'] },
     software: { name: 'splitfield', version: SOFTWARE_VERSION },
     input: {
       ...(inputName ? { file: inputName } : {}),
@@ -76,7 +105,9 @@ function rowsAll(a: Float64Array | null): number[][] {
  * V8's serializer writes doubles in their shortest round-trip form (as String(x)) and NaN/±Infinity as null,
  * measured about twice as fast as building the text by concatenation.
  */
-export function formatJets(records: RecordMeta[], results: RecordResult[], fullTree: boolean): string {
+export function formatJets(records: RecordMeta[], results: RecordResult[], style: JetLineStyle): string {
+  const { fullTree } = style;
+  const plain = !style.ee && !style.flavour;
   const parts: string[] = [];
   for (let r = 0; r < records.length; r++) {
     const jets = results[r].jets;
@@ -85,9 +116,20 @@ export function formatJets(records: RecordMeta[], results: RecordResult[], fullT
     for (let j = 0; j < jets.length; j++) {
       const jt = jets[j];
       const sd = [jt.softDrop.mg, jt.softDrop.zg, jt.softDrop.Rg];
-      const o = fullTree
-        ? { rec: rec.id, jet: j, pt: jt.pt, y: jt.y, phi: jt.phi, m: jt.m, n: jt.n, weight: rec.weight, primary: rows7(jt.primary), all: rowsAll(jt.all), sd, mult: jt.multiplicity }
-        : { rec: rec.id, jet: j, pt: jt.pt, y: jt.y, phi: jt.phi, m: jt.m, n: jt.n, weight: rec.weight, primary: rows7(jt.primary), sd, mult: jt.multiplicity };
+      if (plain) {
+        const o = fullTree
+          ? { rec: rec.id, jet: j, pt: jt.pt, y: jt.y, phi: jt.phi, m: jt.m, n: jt.n, weight: rec.weight, primary: rows7(jt.primary), all: rowsAll(jt.all), sd, mult: jt.multiplicity }
+          : { rec: rec.id, jet: j, pt: jt.pt, y: jt.y, phi: jt.phi, m: jt.m, n: jt.n, weight: rec.weight, primary: rows7(jt.primary), sd, mult: jt.multiplicity };
+        parts.push(JSON.stringify(o));
+        continue;
+      }
+      const kin = style.ee ? { E: jt.E, theta: jt.theta } : { pt: jt.pt, y: jt.y };
+      const o: Record<string, unknown> = { rec: rec.id, jet: j, ...kin, phi: jt.phi, m: jt.m, n: jt.n, weight: rec.weight };
+      if (style.flavour) o.flavour = flavourName(jt.flavour);
+      o.primary = rows7(jt.primary);
+      if (fullTree) o.all = rowsAll(jt.all);
+      o.sd = sd;
+      o.mult = jt.multiplicity;
       parts.push(JSON.stringify(o));
     }
   }
@@ -96,7 +138,7 @@ export function formatJets(records: RecordMeta[], results: RecordResult[], fullT
 
 /** Sink that writes the export to a stream, respecting backpressure. It does not end the stream. */
 export class ExportWriter implements ResultSink {
-  private fullTree = false;
+  private style: JetLineStyle = { fullTree: false, ee: false, flavour: false };
   jetsWritten = 0;
   bytesWritten = 0;
   constructor(
@@ -114,13 +156,13 @@ export class ExportWriter implements ResultSink {
   }
 
   async begin(header: IngestHeader, settings: ProcessSettings): Promise<void> {
-    this.fullTree = settings.fullTree;
+    this.style = jetLineStyle(settings);
     await this.put(JSON.stringify(exportHeader(header, settings, this.opts.inputName)) + '\n');
   }
 
   async write(records: RecordMeta[], results: RecordResult[]): Promise<void> {
     for (const r of results) this.jetsWritten += r.jets.length;
-    await this.put(formatJets(records, results, this.fullTree));
+    await this.put(formatJets(records, results, this.style));
   }
 
   async end(_summary: PipelineSummary): Promise<void> {}

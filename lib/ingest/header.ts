@@ -6,6 +6,8 @@ import type { EnergyUnit, MomentumConvention } from '../physics/fourvector';
 import { IngestError, type IngestWhere } from './errors';
 
 export const PARTICLES_FORMAT = 'splitfield-particles';
+
+export type ColumnarLayout = 'parquet-lists' | 'parquet-flat' | 'arrow-lists' | 'arrow-flat';
 export const PARTICLES_VERSION = 1;
 
 /** What every reader reports about its input, whatever the file format. */
@@ -21,8 +23,11 @@ export interface IngestHeader {
   sample: { name?: string; label?: string; description?: string; tags?: string[] };
   /** Unknown header fields (splitfield-particles) or run information (HepMC3), kept as given. */
   metadata: Record<string, unknown>;
-  /** 'jsonl' or 'document' (one JSON document) for splitfield-particles; 'ascii' for HepMC3. */
-  layout: 'jsonl' | 'document' | 'ascii';
+  /**
+   * 'jsonl' or 'document' (one JSON document) for splitfield-particles; 'ascii' for HepMC3; 'parquet-lists',
+   * 'parquet-flat', 'arrow-lists', 'arrow-flat' for the columnar files (lib/ingest/columnar/).
+   */
+  layout: 'jsonl' | 'document' | 'ascii' | ColumnarLayout;
   /** True when the input was gzip-compressed. */
   gzip: boolean;
 }

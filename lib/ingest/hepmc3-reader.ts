@@ -12,6 +12,8 @@
 import { IngestError } from './errors';
 import type { IngestHeader } from './header';
 import type { LineSource } from './lines';
+import { heavyFlavour } from '../physics/particle-id';
+import { particleProblem } from '../physics/fourvector';
 import { ParticleScratch, quickParticleProblem, type ParsedRecord } from './record';
 import { BaseReader } from './reader-base';
 import type { ParticleReader, ParticleRecord, RawLineBatch, RawLineSource, ReaderOptions } from './types';
@@ -69,6 +71,7 @@ export function parseHepMCEventInto(block: string, line: number, scratch: Partic
   let nP = 0;
   let n = 0;
   let pids = new Int32Array(Math.max(16, declared));
+  const tagList: number[] = [];
   for (let k = 1; k < lines.length; k++) {
     const l = lines[k];
     const ln = line + k;
@@ -83,7 +86,11 @@ export function parseHepMCEventInto(block: string, line: number, scratch: Partic
       if (!Number.isInteger(status) || !Number.isInteger(pid) || t[9] === '' || t[3] === '') {
         throw hepErr(`status and pid must be integers, found status ${t[9]}, pid ${t[3]}`, ln, Number(t[1]), true, 'particle');
       }
-      if (status !== 1) continue; // only final-state particles are read (and checked)
+      if (status !== 1) {
+        // Decayed heavy-flavour hadrons (status 2) are kept as tag particles for flavour tags.
+        if (status === 2 && heavyFlavour(pid) !== 0) tagList.push(+t[4] * factor, +t[5] * factor, +t[6] * factor, +t[7] * factor, pid);
+        continue; // other particles that are not final-state are not read
+      }
       const px = +t[4] * factor, py = +t[5] * factor, pz = +t[6] * factor, E = +t[7] * factor;
       if (!(px - px === 0 && py - py === 0 && pz - pz === 0 && E - E === 0) || t[4] === '' || t[5] === '' || t[6] === '' || t[7] === '') {
         const q = [px, py, pz, E].findIndex((v, k) => !(v - v === 0) || t[4 + k] === '');
@@ -120,7 +127,19 @@ export function parseHepMCEventInto(block: string, line: number, scratch: Partic
   }
   if (nP !== declared) throw hepErr(`event ${num} declares ${declared} particles but has ${nP} P lines`, line);
   if (n === 0) throw hepErr(`event ${num} has no final-state (status 1) particles`, line);
-  return { line, id: num, weight, n, pid: pids.slice(0, n) };
+  const rec: ParsedRecord = { line, id: num, weight, n, pid: pids.slice(0, n) };
+  if (tagList.length) {
+    const nt = tagList.length / 5;
+    rec.tags = new Float64Array(4 * nt);
+    rec.tagPid = new Int32Array(nt);
+    for (let i = 0; i < nt; i++) {
+      for (let c = 0; c < 4; c++) rec.tags[4 * i + c] = tagList[5 * i + c];
+      rec.tagPid[i] = tagList[5 * i + 4];
+      const prob = particleProblem(rec.tags[4 * i], rec.tags[4 * i + 1], rec.tags[4 * i + 2], rec.tags[4 * i + 3]);
+      if (prob !== null) throw hepErr(`decayed hadron (status 2, pid ${rec.tagPid[i]}): ${prob}`, line, undefined, true, 'particle');
+    }
+  }
+  return rec;
 }
 
 interface EventBlock {
@@ -195,7 +214,7 @@ export class HepMC3Reader extends BaseReader implements RawLineSource {
       const full = this.add(
         () => {
           const r = parseHepMCEventInto(b.text, b.line, scratch);
-          return { line: r.line, id: r.id, weight: r.weight, particles: scratch.buf.slice(0, 4 * r.n), pid: r.pid };
+          return { line: r.line, id: r.id, weight: r.weight, particles: scratch.buf.slice(0, 4 * r.n), pid: r.pid, tags: r.tags, tagPid: r.tagPid };
         },
         maxParticles,
         maxRecords,

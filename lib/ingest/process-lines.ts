@@ -2,7 +2,7 @@
 // same code in this thread (threads = 1)
 // and in the worker threads, so that both give identical results and identical errors.
 
-import { processParticles } from '../physics/process';
+import { processRecord } from '../physics/process-record';
 import type { ProcessSettings, RecordResult } from '../physics/types';
 import { IngestError } from './errors';
 import { parseHepMCEventInto } from './hepmc3-reader';
@@ -45,7 +45,7 @@ export function processLineBatch(
     }
     metas.push({ line: rec.line, id: rec.id, weight: rec.weight, nParticles: rec.n });
     try {
-      results.push(processParticles(scratch.buf.subarray(0, 4 * rec.n), settings));
+      results.push(processRecord(scratch.buf.subarray(0, 4 * rec.n), rec, settings));
     } catch (e) {
       error = { index: results.length, message: e instanceof Error ? e.message : String(e) };
       break;

@@ -5,7 +5,14 @@ import type { IngestHeader } from './header';
 import type { LineSource } from './lines';
 import { MAX_KEPT_SKIP_ERRORS, type ParticleReader, type ParticleRecord, type ReaderOptions } from './types';
 
-export abstract class BaseReader implements ParticleReader {
+/** What a reader needs of its byte source: counts and closing (a LineSource, or a columnar file). */
+export interface ByteSource {
+  readonly bytesRead: number;
+  readonly bytesTotal: number | null;
+  close(): void;
+}
+
+export abstract class BaseReader<S extends ByteSource = LineSource> implements ParticleReader {
   skipped = 0;
   skippedErrors: IngestError[] = [];
   /** Good records read so far. */
@@ -15,7 +22,7 @@ export abstract class BaseReader implements ParticleReader {
 
   constructor(
     readonly header: IngestHeader,
-    protected readonly src: LineSource,
+    protected readonly src: S,
     protected readonly opts: ReaderOptions,
   ) {}
 

@@ -1,7 +1,11 @@
 // Opens an input file (or stream) of particles and returns the reader for its format:
-// splitfield-particles (JSON Lines or one document) or HepMC3 ASCII, each plain or gzip-compressed.
+// splitfield-particles (JSON Lines or one document) or HepMC3 ASCII, each plain or gzip-compressed, and by path
+// the columnar files (Apache Parquet, Arrow IPC) of lib/ingest/columnar/.
 
+import { open } from 'node:fs/promises';
 import type { Readable } from 'node:stream';
+import { isArrowStart, openArrowFile } from './columnar/arrow-reader';
+import { openParquetFile, PARQUET_MAGIC } from './columnar/parquet-reader';
 import { IngestError } from './errors';
 import { openHepMC3FromLines } from './hepmc3-reader';
 import { LineSource, openLineSource, type LineSourceOptions } from './lines';
@@ -32,8 +36,24 @@ async function openFromSource(src: LineSource, opts: ReaderOptions): Promise<Par
   }
 }
 
-/** Opens a file by path: format and compression are detected from the content. */
+/** The first bytes of a file (fewer for a shorter file; none for a file that cannot be opened, whose error the line source reports). */
+async function firstBytes(path: string, n: number): Promise<Uint8Array> {
+  const handle = await open(path, 'r').catch(() => null);
+  if (!handle) return new Uint8Array(0);
+  try {
+    const b = new Uint8Array(n);
+    const { bytesRead } = await handle.read(b, 0, n, 0);
+    return b.subarray(0, bytesRead);
+  } finally {
+    await handle.close();
+  }
+}
+
+/** Opens a file by path: format and compression are detected from the content (columnar files: columnar/). */
 export async function openParticleFile(path: string, opts: ReaderOptions = {}): Promise<ParticleReader> {
+  const start = await firstBytes(path, 8);
+  if (String.fromCharCode(...start.subarray(0, 4)) === PARQUET_MAGIC) return openParquetFile(path, opts);
+  if (isArrowStart(start)) return openArrowFile(path, opts);
   const src = await openLineSource(path, { maxLineLength: opts.maxDocumentLength, maxTextBytes: opts.maxTextBytes });
   return openFromSource(src, opts);
 }

@@ -3,6 +3,7 @@
 
 import { fromPtYPhiM, particleProblem, toGeV } from '../physics/fourvector';
 import { IngestError, type IngestWhere } from './errors';
+import { parseRecordTags } from './record-tags';
 import type { ParticleRecord, RecordContext } from './types';
 
 const PX_NAMES = ['px', 'py', 'pz', 'E'];
@@ -43,6 +44,9 @@ export interface ParsedRecord {
   n: number;
   pid?: Int32Array;
   charge?: Float64Array;
+  /** Tag particles (px, py, pz, E in GeV) and their pids (record-tags.ts). */
+  tags?: Float64Array;
+  tagPid?: Int32Array;
 }
 
 // Fast acceptance of a particle: finite, E > |pz| and E² ≥ p²·(1 − 1e-6) (a margin inside particleProblem's
@@ -147,6 +151,11 @@ export function parseRecordObjectInto(obj: unknown, line: number, ctx: RecordCon
     }
     rec.charge = arr;
   }
+  const tags = parseRecordTags(o, line, ctx);
+  if (tags) {
+    rec.tags = tags.tags;
+    rec.tagPid = tags.tagPid;
+  }
   return rec;
 }
 
@@ -156,6 +165,10 @@ function toRecord(r: ParsedRecord, scratch: ParticleScratch): ParticleRecord {
   const rec: ParticleRecord = { line: r.line, id: r.id, weight: r.weight, particles: scratch.buf.slice(0, 4 * r.n) };
   if (r.pid) rec.pid = r.pid;
   if (r.charge) rec.charge = r.charge;
+  if (r.tags) {
+    rec.tags = r.tags;
+    rec.tagPid = r.tagPid;
+  }
   return rec;
 }
 

@@ -19,6 +19,9 @@ export interface ParticleRecord {
   pid?: Int32Array;
   /** Optional per-particle charges. */
   charge?: Float64Array;
+  /** Optional tag particles (px, py, pz, E in GeV; HepMC3: decayed heavy-flavour hadrons) and their pids. */
+  tags?: Float64Array;
+  tagPid?: Int32Array;
 }
 
 /** How a record's numbers are read: the header's momentum convention and unit, and how errors name the place. */

@@ -3,7 +3,7 @@
 // scripts/build-engine.mjs.
 
 import { move, transferableSymbol, valueSymbol } from 'piscina';
-import { processParticles } from '../physics/process';
+import { processRecord } from '../physics/process-record';
 import type { RecordResult } from '../physics/types';
 import { packResults, resultBuffers, type LinesTask, type PackedTask, type WorkerResult, type WorkerTask } from './codec';
 import { processLineBatch } from './process-lines';
@@ -12,12 +12,19 @@ import { ParticleScratch } from './record';
 const scratch = new ParticleScratch();
 
 function processPacked(task: PackedTask): WorkerResult {
-  const { particles, offsets, settings } = task;
+  const { particles, offsets, settings, pid, charge, tags, tagOffsets, tagPid } = task;
   const n = offsets.length - 1;
   const results: RecordResult[] = [];
   for (let i = 0; i < n; i++) {
+    const a = offsets[i], b = offsets[i + 1];
+    const extras = {
+      pid: pid?.subarray(a >> 2, b >> 2),
+      charge: charge?.subarray(a >> 2, b >> 2),
+      tags: tags?.subarray(tagOffsets![i], tagOffsets![i + 1]),
+      tagPid: tagPid?.subarray(tagOffsets![i] >> 2, tagOffsets![i + 1] >> 2),
+    };
     try {
-      results.push(processParticles(particles.subarray(offsets[i], offsets[i + 1]), settings));
+      results.push(processRecord(particles.subarray(a, b), extras, settings));
     } catch (e) {
       return packResults(results, { index: i, message: e instanceof Error ? e.message : String(e) });
     }

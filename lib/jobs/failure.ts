@@ -17,7 +17,8 @@ const EXPLANATIONS: Record<string, string> = {
   version: 'The file is written in a format version this server does not read. Write it again in the version named.',
   json: 'A line is not valid JSON: often a line cut short, or two records run together. Fix that line and upload again.',
   record:
-    'A record lacks what a record needs (a "particles" list; "id", "weight", "pid" and "charge" are optional) ' +
+    'A record lacks what a record needs (a "particles" list; "id", "weight", "pid", "charge" and the tag particles ' +
+    'are optional) ' +
     'or has a field of the wrong kind.',
   particle:
     'A particle is not physical: a momentum component that is not a finite number, a negative energy, an energy below ' +
@@ -35,6 +36,13 @@ const EXPLANATIONS: Record<string, string> = {
     'decompressed; an admin sets the limits: SPLITFIELD_MAX_RECORDS, SPLITFIELD_MAX_DECOMPRESSED_BYTES). Split it ' +
     'into several samples, or ask an admin.',
   io: 'The server could not read the stored upload. Upload the file again; if it happens again, tell an admin.',
+  settings:
+    'The processing settings need something this record does not carry: charged-only needs "charge" or "pid" for ' +
+    'each particle, the pid lists and dropping neutrinos need "pid", flavour tags need whole events. Add it to the ' +
+    'file, or upload again with other settings.',
+  columnar:
+    'The Parquet or Arrow file does not follow Splitfield\'s columnar schema (README "Columnar input"), or is ' +
+    'incomplete, as happens when a copy stopped early. The message names the row group, the row and the column.',
   process: 'The physics engine could not process this record. Please report the file to an admin.',
   interrupted: 'The server stopped while this sample was being processed, and it was not resumed. Upload the file again.',
   internal: 'The processing job stopped because of an internal error. Please tell an admin; uploading again may help.',

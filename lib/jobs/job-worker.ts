@@ -51,11 +51,11 @@ async function run(): Promise<void> {
     },
   });
   const planes = sink.finishedPlanes();
-  const { records, particles, jets, rejected, primarySplittings, allSplittings } = summary;
+  const { records, particles, jets, rejected, primarySplittings, allSplittings, particlesRemoved, flavours } = summary;
   post(
     {
       type: 'done',
-      counts: { records, particles, jets, jetsRejected: rejected, primarySplittings, allSplittings },
+      counts: { records, particles, jets, jetsRejected: rejected, primarySplittings, allSplittings, particlesRemoved, flavours },
       // The pipeline always reports its final progress before it ends.
       progress: last!,
       planes,

@@ -53,6 +53,12 @@ export function writeSplitting(ws: ClusterWorkspace, k: number, generation: numb
   let sphi = phi[b] - phi[a];
   if (sphi > PI) sphi -= TWO_PI;
   else if (sphi <= -PI) sphi += TWO_PI;
+  putSplitting(ws, k, delta, kt, z, Math.atan2(rap[b] - rap[a], sphi), generation, out, at);
+  return a;
+}
+
+/** Writes one splitting's fields (angle, kt, z, ψ given; m = m of node k, the logarithms and κ derived). */
+export function putSplitting(ws: ClusterWorkspace, k: number, delta: number, kt: number, z: number, psi: number, generation: number, out: Float64Array, at: number): void {
   const px = ws.px[k], py = ws.py[k], pz = ws.pz[k], e = ws.E[k];
   const m2 = (e + pz) * (e - pz) - (px * px + py * py);
   out[at + S_LN_INV_DELTA] = Math.log(1 / delta);
@@ -60,24 +66,26 @@ export function writeSplitting(ws: ClusterWorkspace, k: number, generation: numb
   out[at + S_Z] = z;
   out[at + S_DELTA] = delta;
   out[at + S_KT] = kt;
-  out[at + S_PSI] = Math.atan2(rap[b] - rap[a], sphi);
+  out[at + S_PSI] = psi;
   out[at + S_M] = m2 >= 0 ? Math.sqrt(m2) : -Math.sqrt(-m2);
   out[at + S_KAPPA] = z * delta;
   out[at + S_GENERATION] = generation;
-  return a;
 }
+
+/** Writes one splitting of node k and returns its harder branch (writeSplitting; e+e-: ee-decluster.ts). */
+export type SplittingWriter = (ws: ClusterWorkspace, k: number, generation: number, out: Float64Array, at: number) => number;
 
 /**
  * Primary sequence: from the root, undo the last clustering and follow the harder branch until it is a single
  * particle. Writes the splittings (generation 1) from out[at] on; out needs (n−1)·SPLIT_STRIDE doubles at most.
  * Returns the number of splittings.
  */
-export function declusterPrimary(ws: ClusterWorkspace, root: number, out: Float64Array, at = 0): number {
+export function declusterPrimary(ws: ClusterWorkspace, root: number, out: Float64Array, at = 0, write: SplittingWriter = writeSplitting): number {
   let c = 0;
   let k = root;
   const p1 = ws.parent1;
   while (k >= 0 && p1[k] >= 0) {
-    k = writeSplitting(ws, k, 1, out, at + c * SPLIT_STRIDE);
+    k = write(ws, k, 1, out, at + c * SPLIT_STRIDE);
     c++;
   }
   return c;
@@ -88,7 +96,7 @@ export function declusterPrimary(ws: ClusterWorkspace, root: number, out: Float6
  * 1 + the number of softer branches on the path from the root. `stack` needs 2·(n+1) ints. The primary
  * splittings are exactly the generation-1 ones, in the same order. Returns the number of splittings (n − 1).
  */
-export function declusterAll(ws: ClusterWorkspace, root: number, out: Float64Array, at: number, stack: Int32Array): number {
+export function declusterAll(ws: ClusterWorkspace, root: number, out: Float64Array, at: number, stack: Int32Array, write: SplittingWriter = writeSplitting): number {
   if (root < 0) return 0;
   let c = 0;
   let sp = 0;
@@ -99,7 +107,7 @@ export function declusterAll(ws: ClusterWorkspace, root: number, out: Float64Arr
     const g = stack[--sp];
     const k = stack[--sp];
     if (p1[k] < 0) continue;
-    const a = writeSplitting(ws, k, g, out, at + c * SPLIT_STRIDE);
+    const a = write(ws, k, g, out, at + c * SPLIT_STRIDE);
     c++;
     const b = a === p1[k] ? p2[k] : p1[k];
     // Softer branch below, harder branch on top: the harder subtree is walked first.

@@ -5,7 +5,9 @@
 // results themselves (one Float64Array per jet for its splittings, one for the full tree when asked).
 
 import { ClusterWorkspace, algorithmExponent, cluster, loadConstituents, loadParticles } from './clustering';
-import { declusterAll, declusterPrimary, reclusterCA } from './decluster';
+import { clusterExclusive } from './clustering/exclusive';
+import { declusterAll, declusterPrimary, reclusterCA, writeSplitting, type SplittingWriter } from './decluster';
+import { hasRealConstituent, jetFlavour, type GhostTags } from './flavour';
 import { primaryMultiplicity, softDrop } from './observables';
 import type { JetResult, ProcessSettings, RecordResult } from './types';
 import { SPLIT_STRIDE } from './types';
@@ -23,15 +25,19 @@ function ensureScratch(n: number): void {
 }
 
 /**
- * Declusters the C/A tree in `recl` rooted at `root` and fills a JetResult with the given jet kinematics.
+ * Declusters the tree in `tree` (the C/A re-clustering; e+e-: its own writer) rooted at `root` and fills a
+ * JetResult with the given jet kinematics.
  */
-function jetFromTree(root: number, nConst: number, pt: number, y: number, phi: number, m: number, s: ProcessSettings): JetResult {
+export function jetFromTree(
+  root: number, nConst: number, pt: number, y: number, phi: number, m: number, s: ProcessSettings,
+  tree: ClusterWorkspace = recl, write: SplittingWriter = writeSplitting,
+): JetResult {
   ensureScratch(nConst);
-  const np = declusterPrimary(recl, root, splitBuf, 0);
+  const np = declusterPrimary(tree, root, splitBuf, 0, write);
   const primary = splitBuf.slice(0, np * SPLIT_STRIDE);
   let all: Float64Array | null = null;
   if (s.fullTree) {
-    const na = declusterAll(recl, root, splitBuf, 0, stack);
+    const na = declusterAll(tree, root, splitBuf, 0, stack, write);
     all = splitBuf.slice(0, na * SPLIT_STRIDE);
   }
   return {
@@ -43,7 +49,7 @@ function jetFromTree(root: number, nConst: number, pt: number, y: number, phi: n
   };
 }
 
-function signedMass(ws: ClusterWorkspace, k: number): number {
+export function signedMass(ws: ClusterWorkspace, k: number): number {
   const px = ws.px[k], py = ws.py[k], pz = ws.pz[k], e = ws.E[k];
   const m2 = (e + pz) * (e - pz) - (px * px + py * py);
   return m2 >= 0 ? Math.sqrt(m2) : -Math.sqrt(-m2);
@@ -57,8 +63,11 @@ function signedMass(ws: ClusterWorkspace, k: number): number {
  * tree of all its particles; its four-momentum is the root's), the pt and |y| cuts still apply.
  * Each kept jet is re-clustered with C/A, declustered (primary sequence, and the full tree if s.fullTree), and
  * gets its SoftDrop and primary multiplicity.
+ * Exclusive jets (s.jet.exclusive) replace the inclusive ones. With `tags`, the particles from tags.from on are
+ * flavour ghosts (flavour.ts): jets made of ghosts alone are no jets, ghosts are not re-clustered, and each jet
+ * gets its flavour.
  */
-export function processParticles(p: Float64Array, s: ProcessSettings): RecordResult {
+export function processParticles(p: Float64Array, s: ProcessSettings, tags?: GhostTags): RecordResult {
   const n = p.length >> 2;
   const jets: JetResult[] = [];
   const rejected = { pt: 0, y: 0, rank: 0 };
@@ -79,7 +88,9 @@ export function processParticles(p: Float64Array, s: ProcessSettings): RecordRes
   }
 
   loadParticles(finder, p, n);
-  cluster(finder, { p: algorithmExponent(s.jet.algorithm), R: s.jet.R, trackConstituents: true });
+  const exclusive = s.jet.exclusive;
+  if (exclusive) clusterExclusive(finder, { kind: 'hadron', p: algorithmExponent(s.jet.algorithm), R: s.jet.R }, exclusive);
+  else cluster(finder, { p: algorithmExponent(s.jet.algorithm), R: s.jet.R, trackConstituents: true });
   const nj = finder.nJets;
   if (candNode.length < nj) {
     candNode = new Int32Array(Math.max(nj, 2 * candNode.length));
@@ -91,6 +102,7 @@ export function processParticles(p: Float64Array, s: ProcessSettings): RecordRes
   let nc = 0;
   for (let j = nj - 1; j >= 0; j--) {
     const k = finder.jets[j];
+    if (tags && !hasRealConstituent(finder, k, tags)) continue;
     const k2 = finder.kt2[k];
     if (!(Math.sqrt(k2) > ptMin)) {
       rejected.pt++;
@@ -113,9 +125,11 @@ export function processParticles(p: Float64Array, s: ProcessSettings): RecordRes
   rejected.rank = nc - keep;
   for (let i = 0; i < keep; i++) {
     const k = candNode[i];
-    const nConst = loadConstituents(recl, finder, k);
+    const nConst = loadConstituents(recl, finder, k, tags ? tags.from : Infinity);
     const root = reclusterCA(recl);
-    jets.push(jetFromTree(root, nConst, Math.sqrt(finder.kt2[k]), finder.rap[k], finder.phi[k], signedMass(finder, k), s));
+    const jet = jetFromTree(root, nConst, Math.sqrt(finder.kt2[k]), finder.rap[k], finder.phi[k], signedMass(finder, k), s);
+    if (tags) jet.flavour = jetFlavour(finder, k, tags);
+    jets.push(jet);
   }
   return { jets, rejected };
 }

@@ -14,7 +14,60 @@ export interface JetDefinition {
   yMax: number;
   /** Keep at most this many leading jets (by pt) per record; null = all. */
   maxJets: number | null;
+  /**
+   * Exclusive jets instead of inclusive ones (clustering/exclusive.ts): the whole event clustered to exactly n
+   * jets, or until the smallest distance exceeds dcut (hadron collider: kt or C/A, d in GeV^2p), or ycut
+   * (e+e- Durham and Cambridge: y = d / E_vis^2). Missing or null: inclusive jets.
+   */
+  exclusive?: ExclusiveJets | null;
 }
+
+export type ExclusiveJets = { n: number } | { dcut: number } | { ycut: number };
+
+/** Hadron collider (pt, rapidity, azimuth; the default) or lepton collider (energy and angles). */
+export type CollisionType = 'hadron' | 'ee';
+
+/** e+e- jet finding (PHYSICS.md "Lepton-collider (e+e-) events"). */
+export interface EeJetDefinition {
+  /** Durham (exclusive n or ycut), e+e- Cambridge (ycut), generalised e+e- kt with radius jet.R (inclusive). */
+  algorithm: 'durham' | 'cambridge' | 'genkt';
+  /** Exponent p of the generalised e+e- kt algorithm (1 kt-like, 0 C/A-like, -1 anti-kt-like). */
+  p: number;
+  /** Keep jets with E > eMin (GeV). */
+  eMin: number;
+}
+
+/**
+ * Which particles take part (before jet finding for events, before re-clustering for jets). Each removed
+ * particle is counted under the first rule it fails, in the order of RemovedParticles.
+ */
+export interface ConstituentSelection {
+  /** Drop neutrinos (|pid| 12, 14, 16, 18): common practice for particle-level jets. Needs pid. */
+  dropNeutrinos: boolean;
+  /** Drop particles whose |pid| is listed (a code stands for the particle and its antiparticle). Needs pid. */
+  pidExclude: number[];
+  /** Keep only particles whose |pid| is listed; empty = no such rule. Needs pid. */
+  pidInclude: number[];
+  /** Keep only charged particles: from "charge" when the record has it, else from pid. */
+  chargedOnly: boolean;
+  /** Keep particles with pt > ptMin (GeV); 0 keeps all. */
+  ptMin: number;
+  /** Keep particles with |y| (or |eta|) < rapidityMax; null = no limit. */
+  rapidityMax: number | null;
+  rapidityKind: 'y' | 'eta';
+}
+
+/** Particles removed by the constituent selection, by the first rule each failed. */
+export interface RemovedParticles {
+  neutrino: number;
+  pidExcluded: number;
+  pidNotIncluded: number;
+  neutral: number;
+  pt: number;
+  rapidity: number;
+}
+
+export const REMOVED_RULES = ['neutrino', 'pidExcluded', 'pidNotIncluded', 'neutral', 'pt', 'rapidity'] as const;
 
 /** SoftDrop grooming parameters (arXiv:1402.2657). */
 export interface SoftDropSettings {
@@ -32,6 +85,24 @@ export interface ProcessSettings {
   multiplicityKtCut: number;
   /** Also return every splitting of the C/A tree with its generation. */
   fullTree: boolean;
+  /** Missing: 'hadron'. */
+  collision?: CollisionType;
+  /** e+e- jet finding; used when collision is 'ee'. */
+  ee?: EeJetDefinition;
+  /** Constituent selection; missing: every particle. */
+  particles?: ConstituentSelection;
+  /** Tag jets b, c or light by ghost association of the record's tag hadrons (events only). */
+  flavourTags?: boolean;
+}
+
+/** The extra per-particle information of a record, beside its momenta. */
+export interface RecordExtras {
+  pid?: Int32Array;
+  charge?: Float64Array;
+  /** Tag particles (heavy-flavour hadrons for ghost association): px, py, pz, E interleaved, GeV. */
+  tags?: Float64Array;
+  /** Their pids (same count as tags). */
+  tagPid?: Int32Array;
 }
 
 /**
@@ -80,6 +151,11 @@ export interface JetResult {
   softDrop: SoftDropResult;
   /** Primary splittings with kt > multiplicityKtCut. */
   multiplicity: number;
+  /** Flavour tag: 5 b, 4 c, 0 light; missing (or -1) when tags were not asked for. */
+  flavour?: number;
+  /** Energy and polar angle atan2(pt, pz); set by the e+e- engine (missing: computed from pt, y, m). */
+  E?: number;
+  theta?: number;
 }
 
 /** Jets that a record's jet finding produced but the selection dropped, by the first cut that failed. */
@@ -90,7 +166,9 @@ export interface RejectedCounts {
 }
 
 export interface RecordResult {
-  /** Selected jets, sorted by pt descending; index in this array = the export's `jet`. */
+  /** Selected jets, sorted by pt (e+e-: energy) descending; index in this array = the export's `jet`. */
   jets: JetResult[];
   rejected: RejectedCounts;
+  /** Particles the constituent selection removed (missing when there was no selection). */
+  removed?: RemovedParticles;
 }

@@ -10,11 +10,12 @@ import {
   SPLITTING_COLUMNS,
   type SplittingColumnName,
 } from '@/lib/ingest/columns';
-import { exportHeader, formatJets } from '@/lib/ingest/export';
+import { exportHeader, formatJets, jetLineStyle } from '@/lib/ingest/export';
 import type { IngestHeader } from '@/lib/ingest/header';
 import type { RecordMeta } from '@/lib/ingest/pipeline/sink';
 import { type JetResult, type RecordResult, S_GENERATION, SPLIT_STRIDE } from '@/lib/physics/types';
 import type { Sample } from '@/models/sample';
+import { completeSettings } from './settings';
 
 const JETS_PER_CHUNK = 4096;
 const SPLITTINGS_PER_BLOCK = 65_536;
@@ -93,8 +94,10 @@ export async function* exportLines(sample: Sample, reader: ColumnReader, all: bo
     );
   }
   const input = sample.input as IngestHeader;
-  const settings = { ...sample.settings, content: input.content };
-  yield `${JSON.stringify(exportHeader(input, settings, sample.fileName, all))}\n`;
+  const settings = completeSettings(sample.settings);
+  // The lines carry "all" when asked for; the header keeps the sample's own fullTree setting and says which lists it carries.
+  const style = jetLineStyle({ ...settings, fullTree: all });
+  yield `${JSON.stringify(exportHeader(input, { ...settings, content: input.content }, sample.fileName, all))}\n`;
   const splittings = new SplittingCursor(reader);
   const totalJets = reader.manifest.jets.rows;
   // The record being written: its jets may continue in the next chunk, so it is written with the chunk it ends in.
@@ -118,7 +121,10 @@ export async function* exportLines(sample: Sample, reader: ColumnReader, all: bo
         all: fullTree ? stored : null,
         softDrop: { mg: jets.mg[k], zg: jets.zg[k], Rg: jets.Rg[k] },
         multiplicity: jets.multiplicity[k],
+        E: jets.E[k],
+        theta: jets.theta[k],
       };
+      if (jets.flavour[k] >= 0) jet.flavour = jets.flavour[k];
       if (open?.record === jets.record[k]) {
         open.result.jets.push(jet);
         continue;
@@ -132,6 +138,6 @@ export async function* exportLines(sample: Sample, reader: ColumnReader, all: bo
       metas.pop();
       results.pop();
     }
-    yield formatJets(metas, results, all);
+    yield formatJets(metas, results, style);
   }
 }

@@ -1,6 +1,7 @@
 // GET …/jets: one page of a sample's jet table, in file order or sorted by a column (undefined values last).
 import { z } from 'zod';
 import type { ColumnReader, JetColumnName, JetRow } from '@/lib/ingest/columns';
+import { flavourName } from '@/lib/ingest/pipeline/flavour-counts';
 import type { JetRowView } from './shapes';
 import { orderParam, wholeNumberParam } from './query-params';
 
@@ -19,6 +20,9 @@ const SORTABLE = {
   zg: 'zg',
   Rg: 'Rg',
   mult: 'multiplicity',
+  flavour: 'flavour',
+  E: 'E',
+  theta: 'theta',
 } as const satisfies Record<string, JetColumnName | null>;
 const SORT_NAMES = Object.keys(SORTABLE) as [keyof typeof SORTABLE, ...(keyof typeof SORTABLE)[]];
 
@@ -51,6 +55,9 @@ function jetRowView(row: JetRow): JetRowView {
     zg: finiteOrNull(row.zg),
     Rg: finiteOrNull(row.Rg),
     mult: row.multiplicity,
+    flavour: flavourName(row.flavour),
+    E: row.E,
+    theta: row.theta,
   };
 }
 

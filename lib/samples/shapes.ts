@@ -1,6 +1,6 @@
 // The sample API's JSON shapes (DEVELOPERS.md "Samples API"): what routes answer and pages read. Types only, no
 // imports with runtime code, so client components may import them.
-import type { SampleCounts, SampleError, SampleInput, SampleProgress, SampleSettings } from '@/models/sample-fields';
+import type { CompleteSampleSettings, SampleCounts, SampleError, SampleInput, SampleProgress } from '@/models/sample-fields';
 import type { SampleState, StudyRole } from '@/models/vocabulary';
 
 export interface PersonRef {
@@ -28,7 +28,7 @@ export interface SampleSummary {
 
 /** One sample with everything (GET /api/samples/[sampleId]). */
 export interface SampleDetail extends SampleSummary {
-  settings: SampleSettings;
+  settings: CompleteSampleSettings;
   provenance: SampleProvenance;
   error: SampleError | null;
   /** The caller's role in the sample's study; null for a site admin who is not a member. */
@@ -41,7 +41,7 @@ export interface SampleProvenance {
   study: { id: number; title: string };
   file: { name: string; size: number; sha256: string };
   input: SampleInput | null;
-  settings: SampleSettings;
+  settings: CompleteSampleSettings;
   software: { name: 'splitfield'; version: string | null };
   uploadedBy: PersonRef | null;
   timings: {
@@ -72,6 +72,11 @@ export interface JetRowView {
   zg: number | null;
   Rg: number | null;
   mult: number;
+  /** Flavour tag "b", "c" or "light"; null when the sample has no flavour tags. */
+  flavour: 'b' | 'c' | 'light' | null;
+  /** Energy and polar angle (GeV, rad). */
+  E: number;
+  theta: number;
 }
 
 /** GET …/plane: `density[iy * nx + ix]` with nx = xEdges.length − 1. */

@@ -1,6 +1,7 @@
 // How samples look in API responses (the shapes of lib/samples/shapes.ts).
 import type { StudyRole } from '@/models/vocabulary';
 import type { LoadedSample } from './access';
+import { completeSettings } from './settings';
 import type { SampleDetail, SampleProvenance, SampleSummary } from './shapes';
 
 function personRef(user: LoadedSample['uploadedBy']) {
@@ -32,7 +33,7 @@ export function sampleProvenance(sample: LoadedSample): SampleProvenance {
     study: { id: sample.study.id, title: sample.study.title },
     file: { name: sample.fileName, size: Number(sample.fileSize), sha256: sample.fileHash },
     input: sample.input,
-    settings: sample.settings,
+    settings: completeSettings(sample.settings),
     software: { name: 'splitfield', version: sample.softwareVersion },
     uploadedBy: personRef(sample.uploadedBy),
     timings: {
@@ -50,7 +51,7 @@ export function sampleProvenance(sample: LoadedSample): SampleProvenance {
 export function sampleDetail(sample: LoadedSample, myRole: StudyRole | null): SampleDetail {
   return {
     ...sampleSummary(sample),
-    settings: sample.settings,
+    settings: completeSettings(sample.settings),
     provenance: sampleProvenance(sample),
     error: sample.error,
     myRole,

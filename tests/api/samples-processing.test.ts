@@ -171,6 +171,10 @@ describe('a processed file of events', () => {
         zg: jet.sd[1],
         Rg: jet.sd[2],
         mult: jet.mult,
+        // Not tagged; energy and polar angle from pt, y and m.
+        flavour: null,
+        E: expect.closeTo(Math.sqrt(jet.pt ** 2 + jet.m * Math.abs(jet.m)) * Math.cosh(jet.y), 9),
+        theta: expect.closeTo(Math.atan2(jet.pt, Math.sqrt(jet.pt ** 2 + jet.m * Math.abs(jet.m)) * Math.sinh(jet.y)), 12),
       })),
     );
     const byPt = await owner.client.get(`/api/samples/${sample.id}/jets?sort=pt&limit=200`);

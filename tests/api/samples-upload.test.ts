@@ -63,10 +63,14 @@ describe('an accepted upload', () => {
     const done = await waitForSample(owner.client, sample.id, isFinished);
     expect(done.state).toBe('done');
     expect(done.settings).toEqual({
-      jet: { algorithm: 'antikt', R: 0.4, ptMin: 20, yMax: 2.5, maxJets: null },
+      jet: { algorithm: 'antikt', R: 0.4, ptMin: 20, yMax: 2.5, maxJets: null, exclusive: null },
       softDrop: { zCut: 0.1, beta: 0, R0: 0.4 },
       multiplicityKtCut: 1,
       fullTree: false,
+      collision: 'hadron',
+      ee: { algorithm: 'durham', p: -1, eMin: 0 },
+      particles: { dropNeutrinos: false, pidExclude: [], pidInclude: [], chargedOnly: false, ptMin: 0, rapidityMax: null, rapidityKind: 'y' },
+      flavourTags: false,
     });
     expect(done.counts).toMatchObject({ records: 40, jets: 40 });
     expect(done.myRole).toBe('owner');
@@ -82,10 +86,14 @@ describe('an accepted upload', () => {
     const detail = (await owner.client.get(`/api/samples/${response.body.sample.id}`)).body.sample;
     expect(detail.tags).toEqual(['wide', 'R08']);
     expect(detail.settings).toEqual({
-      jet: { algorithm: 'antikt', R: 0.8, ptMin: 20, yMax: 2.5, maxJets: 1 },
+      jet: { algorithm: 'antikt', R: 0.8, ptMin: 20, yMax: 2.5, maxJets: 1, exclusive: null },
       softDrop: { zCut: 0.1, beta: 0, R0: 0.8 },
       multiplicityKtCut: 1,
       fullTree: true,
+      collision: 'hadron',
+      ee: { algorithm: 'durham', p: -1, eMin: 0 },
+      particles: { dropNeutrinos: false, pidExclude: [], pidInclude: [], chargedOnly: false, ptMin: 0, rapidityMax: null, rapidityKind: 'y' },
+      flavourTags: false,
     });
   });
 });

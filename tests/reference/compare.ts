@@ -3,15 +3,15 @@
 // What is left after identical clustering sequences is last-bit differences between V8's and glibc's log/atan2,
 // amplified where rapidities are subtracted (ψ, Δ of very collinear pairs): hence ψ's floor grows like 1/Δ.
 
-import { processParticles } from '../../lib/physics/process';
-import type { ProcessSettings, RecordResult } from '../../lib/physics/types';
+import { processRecord } from '../../lib/physics/process-record';
+import type { ProcessSettings, RecordExtras, RecordResult } from '../../lib/physics/types';
 import { SPLIT_FIELDS, SPLIT_STRIDE, S_DELTA } from '../../lib/physics/types';
 import { runFastjetRef, settingsFor, type RefInput, type RefOptions, type RefOutput } from './fastjet';
 
 export const REL_TOL = 1e-9;
 
 const FLOORS: Record<string, number> = {
-  pt: 1e-9, y: 1e-9, phi: 1e-9, m: 1e-9,
+  pt: 1e-9, y: 1e-9, phi: 1e-9, m: 1e-9, E: 1e-9, theta: 1e-12,
   lnInvDelta: 1e-9, lnKt: 1e-9, z: 1e-12, delta: 1e-12, kt: 1e-9, psi: 1e-9, kappa: 1e-12, generation: 0,
   mg: 1e-9, zg: 1e-12, Rg: 1e-12,
 };
@@ -62,6 +62,11 @@ export function compareWithRef(ours: RecordResult[], ref: RefOutput, fullTree: b
     if (a.rejected.pt !== b.rejected.pt || a.rejected.y !== b.rejected.y || a.rejected.rank !== b.rejected.rank) {
       bad(`${where}: rejected ${JSON.stringify(a.rejected)} vs ${JSON.stringify(b.rejected)}`);
     }
+    if (b.removed && a.removed) {
+      for (const [rule, count] of Object.entries(b.removed)) {
+        if ((a.removed as unknown as Record<string, number>)[rule] !== count) bad(`${where}: removed ${rule} ${(a.removed as unknown as Record<string, number>)[rule]} vs ${count}`);
+      }
+    }
     if (a.jets.length !== b.jets.length) {
       bad(`${where}: ${a.jets.length} jets vs ${b.jets.length}`);
       continue;
@@ -70,8 +75,10 @@ export function compareWithRef(ours: RecordResult[], ref: RefOutput, fullTree: b
       const x = a.jets[j], f = b.jets[j];
       const w = `${where} jet ${j}`;
       jets++;
-      for (const k of ['pt', 'y', 'phi', 'm'] as const) {
-        if (!close(k, x[k], f[k], o)) bad(`${w}: ${k} ${x[k]} vs ${f[k]}`);
+      const kin = f.E !== undefined ? (['E', 'theta', 'phi', 'm'] as const) : (['pt', 'y', 'phi', 'm'] as const);
+      for (const k of kin) {
+        const v = x[k] ?? NaN;
+        if (!close(k, v, f[k] ?? NaN, o)) bad(`${w}: ${k} ${v} vs ${f[k]}`);
       }
       if (x.n !== f.n) bad(`${w}: n ${x.n} vs ${f.n}`);
       if (x.multiplicity !== f.mult) bad(`${w}: multiplicity ${x.multiplicity} vs ${f.mult}`);
@@ -117,10 +124,11 @@ export function crossCheck(
   records: Float64Array[],
   opts: RefOptions,
   o: CompareOptions = {},
+  extras: RecordExtras[] = [],
 ): Comparison & { ref: RefOutput; ours: RecordResult[]; settings: ProcessSettings } {
-  const input: RefInput = { content, records: records.map((p, i) => ({ id: `r${i}`, particles: p })) };
+  const input: RefInput = { content, records: records.map((p, i) => ({ id: `r${i}`, particles: p, pid: extras[i]?.pid, charge: extras[i]?.charge })) };
   const ref = runFastjetRef(input, opts);
   const settings = settingsFor(content, opts);
-  const ours = records.map((p) => processParticles(p, settings));
+  const ours = records.map((p, i) => processRecord(p, extras[i], settings));
   return { ...compareWithRef(ours, ref, opts.all ?? false, o), ref, ours, settings };
 }

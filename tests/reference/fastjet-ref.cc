@@ -12,15 +12,25 @@
 // SoftDrop (arXiv:1402.2657) on the primary sequence: first splitting with z > zcut (Δ/R0)^β, groomed jet = that
 // node (m_g = m_{a+b}, z_g, R_g = Δ), null when none passes; multiplicity = primary splittings with kt > ktcut.
 //
-// Build: g++ -O2 -std=c++17 -o tests/reference/bin/fastjet-ref tests/reference/fastjet-ref.cc -lfastjettools -lfastjet
+// Build: g++ -O2 -std=c++17 -o tests/reference/bin/fastjet-ref tests/reference/fastjet-ref.cc -lfastjettools -lfastjetplugins -lfastjet
 // Usage: fastjet-ref [options] input.jsonl [--out output.jsonl]
 //   --R 0.4 --ptmin 20 --ymax 2.5 --njets N (default all) --algorithm antikt|kt|ca --all
 //   --zcut 0.1 --beta 0 --R0 (default R) --ktcut 1
+//   Exclusive jets (kt or ca): --exclusive-n N | --dcut D  (ClusterSequence::exclusive_jets_up_to / exclusive_jets)
+//   Constituent selection (before jet finding; rules in the order of lib/physics/constituent-selection.ts, the
+//   removed particles counted by the first rule failed): --drop-neutrinos --pid-exclude a,b --pid-include a,b
+//   --charged-only (from each record's "charge") --constituent-ptmin X --constituent-rapmax X [--constituent-eta]
+//   e+e- (--collision ee): --ee-algorithm durham|cambridge|genkt, --ee-p P (genkt), --emin E, with --exclusive-n N
+//   or --ycut Y: Durham = ee_kt_algorithm (exclusive_jets_up_to(n) / exclusive_jets_ycut), Cambridge =
+//   EECambridgePlugin(ycut) inclusive jets, genkt = ee_genkt_algorithm(R, p) inclusive jets; jets sorted by E,
+//   cut E > emin; each jet re-clustered with EECambridgePlugin(ycut = 1e300: one tree) and declustered with
+//   has_parents, the harder branch the more energetic one; jet lines carry E, theta, phi, m (PHYSICS.md).
 //   --debug: adds per jet "primaryFull"/"allFull" (all SPLIT_FIELDS of lib/physics/types.ts:
 //            lnInvDelta, lnKt, z, delta, kt, psi, m, kappa, generation), and after each record's jets one line
 //            {"rec":..,"rejected":{"pt":..,"y":..,"rank":..},"strategy":".."} (not part of the export format).
 
 #include <fastjet/ClusterSequence.hh>
+#include <fastjet/EECambridgePlugin.hh>
 #include <nlohmann/json.hpp>
 
 #include <cmath>
@@ -29,6 +39,7 @@
 #include <cstring>
 #include <fstream>
 #include <iostream>
+#include <set>
 #include <sstream>
 #include <string>
 #include <vector>
@@ -46,6 +57,14 @@ struct Options {
   std::string algorithm = "antikt";
   bool all = false;
   double zcut = 0.1, beta = 0, R0 = -1, ktcut = 1;
+  long exclusiveN = -1;
+  double dcut = -1, ycut = -1;
+  bool ee = false;
+  std::string eeAlgorithm = "durham";
+  double eeP = -1, emin = 0;
+  bool dropNeutrinos = false, chargedOnly = false, useEta = false;
+  std::set<long> pidInclude, pidExclude;
+  double cptmin = 0, crapmax = -1;
   bool debug = false;
   std::string in, out;
 };
@@ -106,10 +125,48 @@ Split make_split(const PseudoJet &j, PseudoJet a, PseudoJet b, int gen, PseudoJe
   return s;
 }
 
+// e+e- splitting (PHYSICS.md): E_a >= E_b (on a tie has_parents' order), theta = opening angle,
+// kt = E_b sin(theta), z = E_b/(E_a+E_b), psi = atan2(-p_b.e_theta(a), p_b.e_phi(a)).
+Split make_split_ee(const PseudoJet &j, PseudoJet a, PseudoJet b, int gen, PseudoJet &harder, PseudoJet &softer) {
+  if (a.E() < b.E()) std::swap(a, b);
+  const double ax = a.px(), ay = a.py(), az = a.pz(), bx = b.px(), by = b.py(), bz = b.pz();
+  const double cx = ay * bz - az * by, cy = az * bx - ax * bz, cz = ax * by - ay * bx;
+  const double cross = std::sqrt(cx * cx + cy * cy + cz * cz);
+  const double dot = ax * bx + ay * by + az * bz;
+  const double theta = std::atan2(cross, dot);
+  const double magA = std::sqrt(ax * ax + ay * ay + az * az), magB = std::sqrt(bx * bx + by * by + bz * bz);
+  const double z = b.E() / (a.E() + b.E());
+  const double kt = b.E() * (cross / (magA * magB));
+  const double ptA = std::sqrt(a.pt2());
+  const double cosPhi = ptA > 0 ? ax / ptA : 1, sinPhi = ptA > 0 ? ay / ptA : 0;
+  const double cosTheta = az / magA, sinTheta = ptA / magA;
+  const double alongTheta = cosTheta * (cosPhi * bx + sinPhi * by) - sinTheta * bz;
+  const double alongPhi = -sinPhi * bx + cosPhi * by;
+  Split s;
+  s.f[0] = std::log(1.0 / theta);
+  s.f[1] = std::log(kt);
+  s.f[2] = z;
+  s.f[3] = theta;
+  s.f[4] = kt;
+  s.f[5] = std::atan2(-alongTheta, alongPhi);
+  s.f[6] = j.m();
+  s.f[7] = z * theta;
+  s.f[8] = gen;
+  harder = a;
+  softer = b;
+  return s;
+}
+
+bool g_ee = false;
+
+Split split_of(const PseudoJet &j, const PseudoJet &p1, const PseudoJet &p2, int gen, PseudoJet &a, PseudoJet &b) {
+  return g_ee ? make_split_ee(j, p1, p2, gen, a, b) : make_split(j, p1, p2, gen, a, b);
+}
+
 void primary_sequence(const ClusterSequence &cs, const PseudoJet &root, std::vector<Split> &out) {
   PseudoJet j = root, p1, p2, a, b;
   while (cs.has_parents(j, p1, p2)) {
-    out.push_back(make_split(j, p1, p2, 1, a, b));
+    out.push_back(split_of(j, p1, p2, 1, a, b));
     j = a;
   }
 }
@@ -118,7 +175,7 @@ void primary_sequence(const ClusterSequence &cs, const PseudoJet &root, std::vec
 void full_tree(const ClusterSequence &cs, const PseudoJet &j, int gen, std::vector<Split> &out) {
   PseudoJet p1, p2, a, b;
   if (!cs.has_parents(j, p1, p2)) return;
-  out.push_back(make_split(j, p1, p2, gen, a, b));
+  out.push_back(split_of(j, p1, p2, gen, a, b));
   full_tree(cs, a, gen, out);
   full_tree(cs, b, gen + 1, out);
 }
@@ -137,6 +194,8 @@ struct Context {
   bool events = true;
   JetDefinition jetdef;
   JetDefinition cadef;
+  JetDefinition eeJetdef;
+  JetDefinition eeTreedef;
   Out out;
   std::FILE *f = stdout;
 };
@@ -188,10 +247,17 @@ void write_jet(Context &c, const std::string &rec, int index, const PseudoJet &j
   o.raw(rec);
   o.raw(",\"jet\":");
   o.integer(index);
-  o.raw(",\"pt\":");
-  o.num(jet.pt());
-  o.raw(",\"y\":");
-  o.num(jet.rap());
+  if (c.o.ee) {
+    o.raw(",\"E\":");
+    o.num(jet.E());
+    o.raw(",\"theta\":");
+    o.num(std::atan2(jet.pt(), jet.pz()));
+  } else {
+    o.raw(",\"pt\":");
+    o.num(jet.pt());
+    o.raw(",\"y\":");
+    o.num(jet.rap());
+  }
   o.raw(",\"phi\":");
   o.num(jet.phi());
   o.raw(",\"m\":");
@@ -228,6 +294,40 @@ void write_jet(Context &c, const std::string &rec, int index, const PseudoJet &j
   o.raw("}\n");
 }
 
+// The constituent selection; counts removed particles by the first rule failed (lib/physics/constituent-selection.ts).
+struct Removed {
+  long neutrino = 0, pidExcluded = 0, pidNotIncluded = 0, neutral = 0, pt = 0, rapidity = 0;
+};
+
+std::vector<PseudoJet> select_particles(const Options &o, const std::vector<PseudoJet> &in, const json &r, Removed &rm) {
+  const bool hasPid = r.contains("pid"), hasCharge = r.contains("charge");
+  std::vector<PseudoJet> out;
+  for (size_t i = 0; i < in.size(); i++) {
+    const PseudoJet &p = in[i];
+    if (hasPid) {
+      const long pid = r["pid"][i].get<long>(), apid = std::labs(pid);
+      if (o.dropNeutrinos && (apid == 12 || apid == 14 || apid == 16 || apid == 18)) { rm.neutrino++; continue; }
+      if (o.pidExclude.count(apid)) { rm.pidExcluded++; continue; }
+      if (!o.pidInclude.empty() && !o.pidInclude.count(apid)) { rm.pidNotIncluded++; continue; }
+    }
+    if (o.chargedOnly) {
+      if (!hasCharge) die("--charged-only needs \"charge\" in every record");
+      if (r["charge"][i].get<double>() == 0) { rm.neutral++; continue; }
+    }
+    if (o.cptmin > 0 && !(p.pt2() > o.cptmin * o.cptmin)) { rm.pt++; continue; }
+    if (o.crapmax >= 0) {
+      const double v = o.useEta ? std::asinh(p.pz() / std::sqrt(p.pt2())) : 0.5 * std::log((p.E() + p.pz()) / (p.E() - p.pz()));
+      if (!(std::abs(v) < o.crapmax)) { rm.rapidity++; continue; }
+    }
+    out.push_back(p);
+  }
+  return out;
+}
+
+bool selection_active(const Options &o) {
+  return o.dropNeutrinos || o.chargedOnly || !o.pidInclude.empty() || !o.pidExclude.empty() || o.cptmin > 0 || o.crapmax >= 0;
+}
+
 void process_record(Context &c, const json &r, long defaultId) {
   std::string rec;
   if (r.contains("id") && !r["id"].is_null()) rec = r["id"].dump();
@@ -247,43 +347,58 @@ void process_record(Context &c, const json &r, long defaultId) {
       particles.emplace_back(a * c.k, b * c.k, cc * c.k, d * c.k);
     }
   }
+  Removed rm;
+  if (selection_active(c.o)) particles = select_particles(c.o, particles, r, rm);
   long rejPt = 0, rejY = 0, rejRank = 0;
   std::string strategy = "-";
+  const Options &o = c.o;
   if (!particles.empty()) {
     if (c.events) {
-      ClusterSequence cs(particles, c.jetdef);
+      ClusterSequence cs(particles, o.ee ? c.eeJetdef : c.jetdef);
       strategy = cs.strategy_string();
-      std::vector<PseudoJet> jets = fastjet::sorted_by_pt(cs.inclusive_jets());
+      std::vector<PseudoJet> found;
+      if (o.exclusiveN >= 0) found = cs.exclusive_jets_up_to(static_cast<int>(o.exclusiveN));
+      else if (o.dcut >= 0) found = cs.exclusive_jets(o.dcut);
+      else if (o.ee && o.ycut >= 0 && o.eeAlgorithm == "durham") found = cs.exclusive_jets_ycut(o.ycut);
+      else found = cs.inclusive_jets();
+      std::vector<PseudoJet> jets = o.ee ? fastjet::sorted_by_E(found) : fastjet::sorted_by_pt(found);
       long kept = 0;
       for (const PseudoJet &jet : jets) {
-        if (!(jet.pt() > c.o.ptmin)) {
-          rejPt++;
-          continue;
+        if (o.ee) {
+          if (!(jet.E() > o.emin)) {
+            rejPt++;
+            continue;
+          }
+        } else {
+          if (!(jet.pt() > o.ptmin)) {
+            rejPt++;
+            continue;
+          }
+          if (!(std::abs(jet.rap()) < o.ymax)) {
+            rejY++;
+            continue;
+          }
         }
-        if (!(std::abs(jet.rap()) < c.o.ymax)) {
-          rejY++;
-          continue;
-        }
-        if (c.o.njets >= 0 && kept >= c.o.njets) {
+        if (o.njets >= 0 && kept >= o.njets) {
           rejRank++;
           continue;
         }
         std::vector<PseudoJet> constituents = jet.constituents();
-        ClusterSequence ca(constituents, c.cadef);
+        ClusterSequence ca(constituents, o.ee ? c.eeTreedef : c.cadef);
         std::vector<PseudoJet> roots = ca.inclusive_jets();
-        if (roots.size() != 1) die("C/A reclustering did not give one jet");
+        if (roots.size() != 1) die("reclustering did not give one jet");
         write_jet(c, rec, static_cast<int>(kept), jet, constituents.size(), weight, ca, roots[0]);
         kept++;
       }
     } else {
-      ClusterSequence ca(particles, c.cadef);
+      ClusterSequence ca(particles, o.ee ? c.eeTreedef : c.cadef);
       strategy = ca.strategy_string();
       std::vector<PseudoJet> roots = ca.inclusive_jets();
-      if (roots.size() != 1) die("C/A reclustering did not give one jet");
+      if (roots.size() != 1) die("reclustering did not give one jet");
       const PseudoJet &jet = roots[0];
-      if (!(jet.pt() > c.o.ptmin)) rejPt++;
-      else if (!(std::abs(jet.rap()) < c.o.ymax)) rejY++;
-      else if (c.o.njets == 0) rejRank++;
+      if (o.ee ? !(jet.E() > o.emin) : !(jet.pt() > o.ptmin)) rejPt++;
+      else if (!o.ee && !(std::abs(jet.rap()) < o.ymax)) rejY++;
+      else if (o.njets == 0) rejRank++;
       else write_jet(c, rec, 0, jet, particles.size(), weight, ca, jet);
     }
   }
@@ -297,11 +412,32 @@ void process_record(Context &c, const json &r, long defaultId) {
     o.integer(rejY);
     o.raw(",\"rank\":");
     o.integer(rejRank);
+    o.raw("},\"removed\":{\"neutrino\":");
+    o.integer(rm.neutrino);
+    o.raw(",\"pidExcluded\":");
+    o.integer(rm.pidExcluded);
+    o.raw(",\"pidNotIncluded\":");
+    o.integer(rm.pidNotIncluded);
+    o.raw(",\"neutral\":");
+    o.integer(rm.neutral);
+    o.raw(",\"pt\":");
+    o.integer(rm.pt);
+    o.raw(",\"rapidity\":");
+    o.integer(rm.rapidity);
     o.raw("},\"strategy\":\"");
     o.raw(strategy);
     o.raw("\"}\n");
   }
   flush(c, false);
+}
+
+std::set<long> id_list(int &i, int argc, char **argv) {
+  if (i + 1 >= argc) die(std::string("missing value after ") + argv[i]);
+  std::set<long> out;
+  std::stringstream ss(argv[++i]);
+  std::string item;
+  while (std::getline(ss, item, ',')) out.insert(std::labs(std::stol(item)));
+  return out;
 }
 
 double num_arg(int &i, int argc, char **argv) {
@@ -332,6 +468,24 @@ int main(int argc, char **argv) {
     else if (a == "--R0") o.R0 = num_arg(i, argc, argv);
     else if (a == "--ktcut") o.ktcut = num_arg(i, argc, argv);
     else if (a == "--debug") o.debug = true;
+    else if (a == "--exclusive-n") o.exclusiveN = static_cast<long>(num_arg(i, argc, argv));
+    else if (a == "--dcut") o.dcut = num_arg(i, argc, argv);
+    else if (a == "--ycut") o.ycut = num_arg(i, argc, argv);
+    else if (a == "--collision") {
+      if (i + 1 >= argc) die("missing value after --collision");
+      o.ee = std::string(argv[++i]) == "ee";
+    } else if (a == "--ee-algorithm") {
+      if (i + 1 >= argc) die("missing value after --ee-algorithm");
+      o.eeAlgorithm = argv[++i];
+    } else if (a == "--ee-p") o.eeP = num_arg(i, argc, argv);
+    else if (a == "--emin") o.emin = num_arg(i, argc, argv);
+    else if (a == "--drop-neutrinos") o.dropNeutrinos = true;
+    else if (a == "--charged-only") o.chargedOnly = true;
+    else if (a == "--constituent-ptmin") o.cptmin = num_arg(i, argc, argv);
+    else if (a == "--constituent-rapmax") o.crapmax = num_arg(i, argc, argv);
+    else if (a == "--constituent-eta") o.useEta = true;
+    else if (a == "--pid-include") o.pidInclude = id_list(i, argc, argv);
+    else if (a == "--pid-exclude") o.pidExclude = id_list(i, argc, argv);
     else if (a == "--out") {
       if (i + 1 >= argc) die("missing value after --out");
       o.out = argv[++i];
@@ -345,8 +499,20 @@ int main(int argc, char **argv) {
   else if (o.algorithm == "kt") alg = fastjet::kt_algorithm;
   else if (o.algorithm == "ca") alg = fastjet::cambridge_algorithm;
   else die("unknown algorithm " + o.algorithm);
-  c.jetdef = JetDefinition(alg, o.R);
+  // Exclusive jets: FastJet's N2Plain, whose order of equal distances (C/A: every d_iB = 1) the engine follows.
+  const bool exclusive = o.exclusiveN >= 0 || o.dcut >= 0;
+  c.jetdef = exclusive ? JetDefinition(alg, o.R, fastjet::E_scheme, fastjet::N2Plain) : JetDefinition(alg, o.R);
   c.cadef = JetDefinition(fastjet::cambridge_algorithm, JetDefinition::max_allowable_R);
+  g_ee = o.ee;
+  static fastjet::EECambridgePlugin eeTreePlugin(1e300);
+  static fastjet::EECambridgePlugin eeJetPlugin(o.ycut);
+  c.eeTreedef = JetDefinition(&eeTreePlugin);
+  if (o.ee) {
+    if (o.eeAlgorithm == "durham") c.eeJetdef = JetDefinition(fastjet::ee_kt_algorithm);
+    else if (o.eeAlgorithm == "cambridge") c.eeJetdef = JetDefinition(&eeJetPlugin);
+    else if (o.eeAlgorithm == "genkt") c.eeJetdef = JetDefinition(fastjet::ee_genkt_algorithm, o.R, o.eeP);
+    else die("unknown e+e- algorithm " + o.eeAlgorithm);
+  }
   ClusterSequence::set_fastjet_banner_stream(nullptr);
 
   std::ifstream fin;

@@ -7,7 +7,8 @@ import { existsSync, mkdirSync, mkdtempSync, renameSync, rmSync, statSync, write
 import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import type { Algorithm, ProcessSettings } from '../../lib/physics/types';
+import type { Algorithm, ConstituentSelection, EeJetDefinition, ExclusiveJets, ProcessSettings } from '../../lib/physics/types';
+import { NO_SELECTION } from '../../lib/physics/constituent-selection';
 import type { EnergyUnit, MomentumConvention } from '../../lib/physics/fourvector';
 
 const here = path.dirname(fileURLToPath(import.meta.url));
@@ -18,15 +19,15 @@ export const FASTJET_REF_BIN = path.join(here, 'bin', 'fastjet-ref');
 export function ensureFastjetRef(): string {
   const fresh = existsSync(FASTJET_REF_BIN) && statSync(FASTJET_REF_BIN).mtimeMs >= statSync(FASTJET_REF_SOURCE).mtimeMs;
   if (fresh) return FASTJET_REF_BIN;
-  if (!existsSync('/usr/include/fastjet/ClusterSequence.hh') || !existsSync('/usr/include/nlohmann/json.hpp')) {
+  if (!existsSync('/usr/include/fastjet/ClusterSequence.hh') || !existsSync('/usr/include/fastjet/EECambridgePlugin.hh') || !existsSync('/usr/include/nlohmann/json.hpp')) {
     throw new Error(
-      'The FastJet reference needs Debian packages libfastjet-dev libfastjettools-dev nlohmann-json3-dev ' +
+      'The FastJet reference needs Debian packages libfastjet-dev libfastjettools-dev libfastjetplugins-dev nlohmann-json3-dev ' +
         '(scripts/ensure-debian-packages.sh installs them).',
     );
   }
   mkdirSync(path.dirname(FASTJET_REF_BIN), { recursive: true });
   const tmp = `${FASTJET_REF_BIN}.${process.pid}.tmp`;
-  execFileSync('g++', ['-O2', '-std=c++17', '-o', tmp, FASTJET_REF_SOURCE, '-lfastjettools', '-lfastjet'], { stdio: 'pipe' });
+  execFileSync('g++', ['-O2', '-std=c++17', '-o', tmp, FASTJET_REF_SOURCE, '-lfastjettools', '-lfastjetplugins', '-lfastjet'], { stdio: 'pipe' });
   renameSync(tmp, FASTJET_REF_BIN);
   return FASTJET_REF_BIN;
 }
@@ -36,6 +37,8 @@ export interface RefInputRecord {
   weight?: number;
   /** px,py,pz,E interleaved (or pt,y,phi,m with momentum 'pt,y,phi,m'), in the file's energy unit. */
   particles: Float64Array | number[];
+  pid?: ArrayLike<number>;
+  charge?: ArrayLike<number>;
 }
 
 export interface RefInput {
@@ -56,6 +59,10 @@ export interface RefOptions {
   beta?: number;
   R0?: number;
   ktCut?: number;
+  exclusive?: ExclusiveJets;
+  /** e+e- jet finding (collision 'ee'). */
+  ee?: EeJetDefinition;
+  particles?: Partial<ConstituentSelection>;
 }
 
 export interface RefJet {
@@ -63,6 +70,9 @@ export interface RefJet {
   jet: number;
   pt: number;
   y: number;
+  /** e+e- jets: energy and polar angle instead of pt and y. */
+  E?: number;
+  theta?: number;
   phi: number;
   m: number;
   n: number;
@@ -80,6 +90,7 @@ export interface RefJet {
 export interface RefRecord {
   rec: string | number;
   rejected: { pt: number; y: number; rank: number };
+  removed: Record<string, number>;
   /** FastJet's strategy for the jet finding (or the reclustering of a 'jets' record). */
   strategy: string;
   jets: RefJet[];
@@ -95,13 +106,18 @@ export interface RefOutput {
 /** The ProcessSettings our engine gets for the same options as the reference (same defaults as fastjet-ref). */
 export function settingsFor(content: 'events' | 'jets', o: RefOptions = {}): ProcessSettings {
   const R = o.R ?? 0.4;
-  return {
+  const s: ProcessSettings = {
     content,
     jet: { algorithm: o.algorithm ?? 'antikt', R, ptMin: o.ptMin ?? 20, yMax: o.yMax ?? 2.5, maxJets: o.maxJets ?? null },
     softDrop: { zCut: o.zCut ?? 0.1, beta: o.beta ?? 0, R0: o.R0 ?? R },
     multiplicityKtCut: o.ktCut ?? 1,
     fullTree: o.all ?? false,
+    collision: o.ee ? 'ee' : 'hadron',
+    ee: o.ee,
+    particles: { ...NO_SELECTION, ...o.particles },
   };
+  if (o.exclusive) s.jet.exclusive = o.exclusive;
+  return s;
 }
 
 function argsFor(o: RefOptions): string[] {
@@ -116,6 +132,19 @@ function argsFor(o: RefOptions): string[] {
   if (o.beta !== undefined) a.push('--beta', String(o.beta));
   if (o.R0 !== undefined) a.push('--R0', String(o.R0));
   if (o.ktCut !== undefined) a.push('--ktcut', String(o.ktCut));
+  const ex = o.exclusive;
+  if (ex && 'n' in ex) a.push('--exclusive-n', String(ex.n));
+  if (ex && 'dcut' in ex) a.push('--dcut', String(ex.dcut));
+  if (ex && 'ycut' in ex) a.push('--ycut', String(ex.ycut));
+  if (o.ee) a.push('--collision', 'ee', '--ee-algorithm', o.ee.algorithm, '--ee-p', String(o.ee.p), '--emin', String(o.ee.eMin));
+  const sel = o.particles ?? {};
+  if (sel.dropNeutrinos) a.push('--drop-neutrinos');
+  if (sel.chargedOnly) a.push('--charged-only');
+  if (sel.pidInclude?.length) a.push('--pid-include', sel.pidInclude.join(','));
+  if (sel.pidExclude?.length) a.push('--pid-exclude', sel.pidExclude.join(','));
+  if (sel.ptMin) a.push('--constituent-ptmin', String(sel.ptMin));
+  if (sel.rapidityMax != null) a.push('--constituent-rapmax', String(sel.rapidityMax));
+  if (sel.rapidityKind === 'eta') a.push('--constituent-eta');
   return a;
 }
 
@@ -135,7 +164,8 @@ export function particlesFileText(input: RefInput): string {
     const parts: string[] = [];
     for (let j = 0; j < p.length; j += 4) parts.push(`[${p[j]},${p[j + 1]},${p[j + 2]},${p[j + 3]}]`);
     const id = r.id ?? `r${i}`;
-    lines.push(`{"id":${JSON.stringify(id)},"weight":${r.weight ?? 1},"particles":[${parts.join(',')}]}`);
+    const extra = (r.pid ? `,"pid":[${Array.from(r.pid).join(',')}]` : '') + (r.charge ? `,"charge":[${Array.from(r.charge).join(',')}]` : '');
+    lines.push(`{"id":${JSON.stringify(id)},"weight":${r.weight ?? 1},"particles":[${parts.join(',')}]${extra}}`);
   });
   return lines.join('\n') + '\n';
 }
@@ -152,12 +182,13 @@ export function parseRefOutput(text: string): RefOutput {
   for (let i = 1; i < lines.length; i++) {
     const o = JSON.parse(lines[i]);
     if (o.rejected) {
-      records.push({ rec: o.rec, rejected: o.rejected, strategy: o.strategy, jets: pending });
+      records.push({ rec: o.rec, rejected: o.rejected, removed: o.removed, strategy: o.strategy, jets: pending });
       pending = [];
     } else {
       pending.push({
         ...o,
-        pt: nanify(o.pt), y: nanify(o.y), phi: nanify(o.phi), m: nanify(o.m),
+        pt: nanify(o.pt ?? null), y: nanify(o.y ?? null), phi: nanify(o.phi), m: nanify(o.m),
+        E: o.E === undefined ? undefined : nanify(o.E), theta: o.theta === undefined ? undefined : nanify(o.theta),
         primary: nanifyRows(o.primary)!,
         all: nanifyRows(o.all),
         sd: o.sd.map(nanify),

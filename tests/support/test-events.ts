@@ -175,3 +175,102 @@ export function generateJets(seed: number, count: number, o: JetOptions & { spre
   }
   return out;
 }
+
+/** Options of lepton-collider-like events: sprays in isotropic directions plus soft isotropic particles. */
+export interface EeEventOptions extends ShapeOptions {
+  nParticles: number;
+  /** Number of sprays. Default 2 (back to back) or more at random directions. */
+  nJets?: number;
+  /** Fraction of the particles in the sprays. Default 0.8. */
+  jetFraction?: number;
+  /** Spray momentum range (GeV). Default [10, 60]. */
+  jetP?: [number, number];
+}
+
+/**
+ * One e+e- -like event (px,py,pz,E interleaved): sprays along random directions on the sphere (the first two back
+ * to back), each made as a spray around the x axis and rotated onto its direction, and soft isotropic particles.
+ */
+export function generateEeEvent(seed: number | Rng, o: EeEventOptions): Float64Array {
+  const rng = rngOf(seed);
+  const N = o.nParticles;
+  const nJets = o.nJets ?? 2;
+  const [pLo, pHi] = o.jetP ?? [10, 60];
+  const out = new Float64Array(4 * N);
+  const nInJets = Math.round(N * (o.jetFraction ?? 0.8));
+  let at = 0;
+  let first: [number, number, number] = [1, 0, 0];
+  for (let j = 0; j < nJets; j++) {
+    let d: [number, number, number];
+    if (j === 1) d = [-first[0], -first[1], -first[2]];
+    else {
+      const cz = rng.uniform(-1, 1), f = rng.uniform(0, TWO_PI), sz = Math.sqrt(1 - cz * cz);
+      d = [sz * Math.cos(f), sz * Math.sin(f), cz];
+      if (j === 0) first = d;
+    }
+    const nj = Math.floor(nInJets / nJets) + (j < nInJets % nJets ? 1 : 0);
+    const local = new Float64Array(4 * nj);
+    spray(rng, { n: nj, pt: pLo * Math.pow(pHi / pLo, rng.next()), y: 0, phi: 0, spread: o.spread ?? 0.15, massiveFraction: o.massiveFraction }, local, 0);
+    // Rotation taking e_x onto d (Rodrigues' formula about e_x × d).
+    const [dx, dy, dz] = d;
+    const c = dx, kx = 0, ky = -dz, kz = dy; // k = e_x × d, |k| = sin
+    const s2 = ky * ky + kz * kz;
+    const f = s2 > 0 ? (1 - c) / s2 : 0;
+    for (let i = 0; i < nj; i++) {
+      const x = local[4 * i], y = local[4 * i + 1], z = local[4 * i + 2];
+      // v' = v c + (k × v) + k (k·v)(1 − c)/|k|²
+      const kv = kx * x + ky * y + kz * z;
+      const cxv = ky * z - kz * y, cyv = kz * x - kx * z, czv = kx * y - ky * x;
+      out[4 * at] = x * c + cxv + kx * kv * f;
+      out[4 * at + 1] = y * c + cyv + ky * kv * f;
+      out[4 * at + 2] = z * c + czv + kz * kv * f;
+      out[4 * at + 3] = local[4 * i + 3];
+      at++;
+    }
+  }
+  for (; at < N; at++) {
+    const cz = rng.uniform(-0.98, 0.98), f = rng.uniform(0, TWO_PI), sz = Math.sqrt(1 - cz * cz);
+    const p = 0.2 + rng.exponential(1);
+    const m = mass(rng, o.massiveFraction ?? 0);
+    out[4 * at] = p * sz * Math.cos(f);
+    out[4 * at + 1] = p * sz * Math.sin(f);
+    out[4 * at + 2] = p * cz;
+    out[4 * at + 3] = Math.sqrt(p * p + m * m);
+  }
+  return out;
+}
+
+/** `count` e+e- -like events from one seed. */
+export function generateEeEvents(seed: number, count: number, o: EeEventOptions): Float64Array[] {
+  const rng = new Rng(seed);
+  return Array.from({ length: count }, () => generateEeEvent(rng, o));
+}
+
+/**
+ * Charges of a few particle codes as the Review of Particle Physics lists them (π±, K±, p, n, γ, K0L, e, μ, ν,
+ * Λ, Σ−, π0 — literal values, independent of lib/physics/particle-id.ts).
+ */
+export const LISTED_CHARGES: Record<number, number> = {
+  211: 1, [-211]: -1, 321: 1, [-321]: -1, 2212: 1, [-2212]: -1, 2112: 0, [-2112]: 0, 22: 0, 130: 0, 310: 0,
+  11: -1, [-11]: 1, 13: -1, [-13]: 1, 12: 0, [-12]: 0, 14: 0, 16: 0, [-16]: 0, 3122: 0, 3112: -1, 111: 0,
+};
+const LISTED_CODES = Object.keys(LISTED_CHARGES).map(Number);
+
+/** A code of LISTED_CHARGES for each particle (seeded), and its listed charge. */
+export function listedPids(seed: number, nParticles: number): { pid: Int32Array; charge: Float64Array } {
+  const rng = new Rng(seed);
+  const pid = new Int32Array(nParticles);
+  const charge = new Float64Array(nParticles);
+  for (let i = 0; i < nParticles; i++) {
+    pid[i] = LISTED_CODES[rng.int(0, LISTED_CODES.length - 1)];
+    charge[i] = LISTED_CHARGES[pid[i]];
+  }
+  return { pid, charge };
+}
+
+/** Pseudorapidity and azimuth of the particle with the largest pt (where a tag hadron placed along it lands in a jet). */
+export function hardestDirection(p: Float64Array): [number, number] {
+  let best = 0;
+  for (let i = 4; i < p.length; i += 4) if (Math.hypot(p[i], p[i + 1]) > Math.hypot(p[best], p[best + 1])) best = i;
+  return [Math.asinh(p[best + 2] / Math.hypot(p[best], p[best + 1])), Math.atan2(p[best + 1], p[best])];
+}

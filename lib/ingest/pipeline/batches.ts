@@ -1,6 +1,7 @@
 // What the two ways of processing (this thread, or a pool of worker threads) share: the batches they read, how
 // a failure inside the physics is reported, and how a record is described to the sink.
 
+import { SETTINGS_PROBLEM } from '../../physics/process-record';
 import type { ProcessSettings } from '../../physics/types';
 import { IngestAbortError, IngestError } from '../errors';
 import type { ParticleReader, ParticleRecord } from '../types';
@@ -13,7 +14,7 @@ export interface BatchRun {
   settings: ProcessSettings;
   delivery: ResultDelivery;
   /** How errors name a record's place: by line (JSON Lines, HepMC3) or by record (the one-document form). */
-  where: 'line' | 'record';
+  where: 'line' | 'record' | 'row';
   /** Batch sizes: particles and records of parsed batches, characters of raw text batches. */
   batchParticles: number;
   batchRecords: number;
@@ -29,6 +30,7 @@ export function recordMeta(r: ParticleRecord): RecordMeta {
   return { line: r.line, id: r.id, weight: r.weight, nParticles: r.particles.length >> 2 };
 }
 
-export function processingError(line: number, where: 'line' | 'record', message: string): IngestError {
+export function processingError(line: number, where: 'line' | 'record' | 'row', message: string): IngestError {
+  if (message.startsWith(SETTINGS_PROBLEM)) return new IngestError(message, { line, where, code: 'settings' });
   return new IngestError(`processing failed: ${message}`, { line, where, code: 'process' });
 }

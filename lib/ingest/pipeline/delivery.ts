@@ -1,7 +1,8 @@
 // The last step of the pipeline: results reach the sink here, in input order, and are counted on the way; the
 // same counts feed the progress reports and the run's summary.
 
-import { SPLIT_STRIDE, type ProcessSettings, type RecordResult } from '../../physics/types';
+import { REMOVED_RULES, SPLIT_STRIDE, type ProcessSettings, type RecordResult } from '../../physics/types';
+import { addFlavours } from './flavour-counts';
 import type { ParticleReader } from '../types';
 import type { PipelineCounts, PipelineProgress, PipelineSummary, RecordMeta, ResultSink } from './sink';
 
@@ -14,6 +15,8 @@ export class ResultDelivery {
     allSplittings: 0,
     skipped: 0,
     rejected: { pt: 0, y: 0, rank: 0 },
+    particlesRemoved: null,
+    flavours: null,
   };
   private lastProgress = -Infinity;
 
@@ -41,6 +44,11 @@ export class ResultDelivery {
       counts.rejected.pt += res.rejected.pt;
       counts.rejected.y += res.rejected.y;
       counts.rejected.rank += res.rejected.rank;
+      if (res.removed) {
+        const sum = (counts.particlesRemoved ??= { neutrino: 0, pidExcluded: 0, pidNotIncluded: 0, neutral: 0, pt: 0, rapidity: 0 });
+        for (const rule of REMOVED_RULES) sum[rule] += res.removed[rule];
+      }
+      addFlavours(counts, res.jets);
     }
     await this.sink.write(metas, results);
     this.progress(false);
@@ -55,6 +63,8 @@ export class ResultDelivery {
     this.onProgress({
       ...counts,
       rejected: { ...counts.rejected },
+      particlesRemoved: counts.particlesRemoved && { ...counts.particlesRemoved },
+      flavours: counts.flavours && { ...counts.flavours },
       skipped: reader.skipped,
       bytesRead: reader.bytesRead,
       bytesTotal: reader.bytesTotal,
@@ -70,6 +80,8 @@ export class ResultDelivery {
     return {
       ...counts,
       rejected: { ...counts.rejected },
+      particlesRemoved: counts.particlesRemoved && { ...counts.particlesRemoved },
+      flavours: counts.flavours && { ...counts.flavours },
       header: reader.header,
       settings,
       threads,

@@ -1,7 +1,7 @@
 // Processing in the calling thread (threads = 1): each batch is parsed and processed where it is read, with the
 // same code the worker threads run, so one thread and many give identical results.
 
-import { processParticles } from '../../physics/process';
+import { processRecord } from '../../physics/process-record';
 import type { RecordResult } from '../../physics/types';
 import { processLineBatch } from '../process-lines';
 import { ParticleScratch } from '../record';
@@ -29,7 +29,7 @@ export async function processInThisThread(run: BatchRun): Promise<void> {
     const results: RecordResult[] = new Array(batch.length);
     for (let i = 0; i < batch.length; i++) {
       try {
-        results[i] = processParticles(batch[i].particles, settings);
+        results[i] = processRecord(batch[i].particles, batch[i], settings);
       } catch (e) {
         throw processingError(batch[i].line, where, e instanceof Error ? e.message : String(e));
       }

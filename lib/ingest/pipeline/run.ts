@@ -56,7 +56,7 @@ export async function runPipeline(opts: PipelineOptions): Promise<PipelineSummar
     reader,
     settings,
     delivery: new ResultDelivery(reader, sink, t0, opts.onProgress, opts.progressIntervalMs ?? 250),
-    where: reader.header.layout === 'document' ? 'record' : 'line',
+    where: reader.header.layout === 'document' ? 'record' : reader.header.layout.includes('-') ? 'row' : 'line',
     batchParticles: opts.batchParticles ?? (threads > 1 ? 16384 : 32768),
     batchRecords: opts.batchRecords ?? 2048,
     batchChars: opts.batchChars ?? 1 << 20,

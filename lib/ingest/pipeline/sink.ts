@@ -1,6 +1,6 @@
 // What the pipeline hands to its consumers (the export writer here, the server's column writer later).
 
-import type { ProcessSettings, RecordResult } from '../../physics/types';
+import type { ProcessSettings, RecordResult, RemovedParticles } from '../../physics/types';
 import type { IngestHeader } from '../header';
 
 /** A record as the sinks see it (its particles are not kept). */
@@ -20,8 +20,18 @@ export interface PipelineCounts {
   allSplittings: number;
   /** Bad records skipped (only with skipBad). */
   skipped: number;
-  /** Jets found but dropped by the selection, by the first cut that failed. */
+  /** Jets found but dropped by the selection, by the first cut that failed (e+e-: "pt" is the energy cut). */
   rejected: { pt: number; y: number; rank: number };
+  /** Particles removed by the constituent selection, by rule (null without a selection). */
+  particlesRemoved: RemovedParticles | null;
+  /** Kept jets by flavour tag (null without flavour tags). */
+  flavours: JetFlavourCounts | null;
+}
+
+export interface JetFlavourCounts {
+  b: number;
+  c: number;
+  light: number;
 }
 
 export interface PipelineProgress extends PipelineCounts {

@@ -5,7 +5,7 @@
 import { existsSync } from 'node:fs';
 import path from 'node:path';
 import type { Piscina } from 'piscina';
-import { packTask, unpackMeta, unpackResults, type LinesTask, type WorkerResult, type WorkerTask } from '../codec';
+import { packTask, resultRecords, taskBuffers, unpackMeta, unpackResults, type LinesTask, type WorkerResult, type WorkerTask } from '../codec';
 import { IngestError } from '../errors';
 import type { ParticleRecord } from '../types';
 import { checkAbort, processingError, recordMeta, type BatchRun } from './batches';
@@ -106,7 +106,7 @@ export class WorkerPoolProcessing {
   }
 
   private submit(task: WorkerTask, records: ParticleRecord[] | null): InFlight {
-    const transferList = (task.kind === 'packed' ? [task.particles.buffer, task.offsets.buffer] : [task.lineNos.buffer]) as ArrayBuffer[];
+    const transferList = task.kind === 'packed' ? taskBuffers(task) : [task.lineNos.buffer as ArrayBuffer];
     const item: InFlight = { records, settled: false, promise: null as unknown as InFlight['promise'] };
     item.promise = (this.pool.run(task, { transferList }) as Promise<WorkerResult>).then(
       (w) => {
@@ -127,7 +127,7 @@ export class WorkerPoolProcessing {
     const head = this.inFlight.shift()!;
     const w = await Promise.race([head.promise, this.poolFailed]);
     checkAbort(run);
-    const n = w.perRecord.length >> 2;
+    const n = resultRecords(w);
     let metas: RecordMeta[];
     if (head.records) {
       if (w.error) throw processingError(head.records[w.error.index].line, run.where, w.error.message);

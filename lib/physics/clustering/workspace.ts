@@ -203,14 +203,17 @@ export function loadParticles(ws: ClusterWorkspace, p: Float64Array, n: number):
 
 /**
  * Loads the constituents of node `jet` of `src` (in FastJet's constituents() order: parent1's before parent2's)
- * as the particles of `dst`, copying their kinematics. Needs src's constituent lists. Returns the count.
+ * as the particles of `dst`, copying their kinematics. Needs src's constituent lists. Particles numbered from
+ * `below` on (flavour ghosts) are left out. Returns the count loaded.
  */
-export function loadConstituents(dst: ClusterWorkspace, src: ClusterWorkspace, jet: number): number {
-  const n = src.count[jet];
-  dst.ensure(n);
+export function loadConstituents(dst: ClusterWorkspace, src: ClusterWorkspace, jet: number, below = Infinity): number {
+  dst.ensure(src.count[jet]);
   const { px, py, pz, E, kt2, rap, phi, parent1, parent2, first, last, count, next } = dst;
-  let c = src.first[jet];
-  for (let i = 0; i < n; i++) {
+  let n = 0;
+  // The count bounds the walk: the list of a node that was merged further continues into its partner's.
+  for (let left = src.count[jet], c = src.first[jet]; left > 0; left--, c = src.next[c]) {
+    if (c >= below) continue;
+    const i = n++;
     px[i] = src.px[c];
     py[i] = src.py[c];
     pz[i] = src.pz[c];
@@ -224,7 +227,6 @@ export function loadConstituents(dst: ClusterWorkspace, src: ClusterWorkspace, j
     last[i] = i;
     count[i] = 1;
     next[i] = -1;
-    c = src.next[c];
   }
   dst.n = n;
   dst.nNodes = n;

@@ -269,3 +269,34 @@ describe('damaged stores', () => {
     await expect(ColumnReader.open(target)).rejects.toThrow(/is not valid JSON/);
   });
 });
+
+describe('jet columns added later (flavour, E, theta)', () => {
+  it('are stored for new samples, and samples stored before them read as untagged with NaN E and theta', async () => {
+    const target = path.join(root, 'new');
+    const writer = await ColumnWriter.create(target);
+    const tagged = { ...jet(100, [splitting(1)]), flavour: 5, E: 250, theta: 0.4 };
+    await writer.append([{ id: 'r1', weight: 1 }], [result(tagged, jet(50, []))]);
+    await writer.commit();
+    const reader = await ColumnReader.open(target);
+    const page = await reader.jetPage(0, 10);
+    expect(page.map((row) => [row.flavour, row.E, row.theta])).toEqual([
+      [5, 250, 0.4],
+      // Not tagged; E and θ from pt, y and m (m = 5, y = 0.05).
+      [-1, Math.sqrt(50 * 50 + 25) * Math.cosh(0.05), Math.atan2(50, Math.sqrt(50 * 50 + 25) * Math.sinh(0.05))],
+    ]);
+
+    // The same sample as an older version stored it: no such columns in the manifest or on disk.
+    const manifestFile = path.join(target, 'manifest.json');
+    const manifest = JSON.parse(await readFile(manifestFile, 'utf8'));
+    manifest.jets.columns = manifest.jets.columns.filter((c: { name: string }) => !['flavour', 'E', 'theta'].includes(c.name));
+    await writeFile(manifestFile, JSON.stringify(manifest));
+    for (const file of await readdir(target)) if (/^jets\.(flavour|E|theta)\./.test(file)) await rm(path.join(target, file));
+    const old = await ColumnReader.open(target);
+    const rows = await old.jetPage(0, 10);
+    expect(rows.map((row) => row.flavour)).toEqual([-1, -1]);
+    expect(rows.every((row) => Number.isNaN(row.E) && Number.isNaN(row.theta))).toBe(true);
+    expect(Array.from(await old.jetColumn('flavour'))).toEqual([-1, -1]);
+    expect(rows.map((row) => row.pt)).toEqual([100, 50]);
+    expect((await old.jetRowsAt([1]))[0].flavour).toBe(-1);
+  });
+});

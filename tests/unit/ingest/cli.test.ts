@@ -1,30 +1,21 @@
 // The command line end to end: `node dist/engine/cli.js` (the bundle `npm run decluster` runs) on small files.
-import { execFileSync, spawnSync } from 'node:child_process';
-import { existsSync, readdirSync, readFileSync, rmSync } from 'node:fs';
+import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { generateEvents } from '@/tests/support/test-events';
-import { HEADER, gz, hepmc3Text, jsonl, tempDir, toRows } from './helpers';
+import { HEADER, engineBundle, gz, hepmc3Text, jsonl, tempDir, toRows } from './helpers';
 
-const ROOT = path.resolve(__dirname, '../../..');
 const t = tempDir('sf-cli-');
-// `npm run decluster` runs dist/engine/cli.js; this test builds the same bundle into its own directory inside the
-// project (so that the bundle finds the installed piscina; parallel test files never share a bundle being rebuilt).
-const ENGINE = path.join(ROOT, 'tests/artifacts', `engine-cli-${process.pid}`);
-const CLI = path.join(ENGINE, 'cli.js');
+// `npm run decluster` runs dist/engine/cli.js; this test builds the same bundle into its own directory.
+const engine = engineBundle('cli');
 
-beforeAll(() => {
-  execFileSync('node', ['scripts/build-engine.mjs', '--outdir', ENGINE], { cwd: ROOT, stdio: 'pipe' });
-});
+beforeAll(() => engine.build());
 afterAll(() => {
   t.cleanup();
-  rmSync(ENGINE, { recursive: true, force: true });
+  engine.remove();
 });
 
-function run(args: string[], input?: Buffer | string) {
-  const r = spawnSync(process.execPath, [CLI, ...args], { cwd: t.dir, input, encoding: 'utf8', maxBuffer: 1 << 28 });
-  return { code: r.status, out: r.stdout, err: r.stderr };
-}
+const run = (args: string[], input?: Buffer | string) => engine.run(t.dir, args, input);
 
 const events = generateEvents(99, 20, { nParticles: 120, nJets: 3 });
 const records = events.map((p, i) => ({ id: `ev${i}`, particles: toRows(p) }));

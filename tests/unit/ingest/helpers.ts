@@ -1,4 +1,5 @@
 // Test helpers of the ingest tests: temporary files and small inputs.
+import { execFileSync, spawnSync } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
@@ -102,4 +103,24 @@ export function hepmc3Text(events: Float64Array[], opts: { weights?: number[]; u
   });
   out.push('HepMC::Asciiv3-END_EVENT_LISTING');
   return out.join('\n') + '\n';
+}
+
+/**
+ * The engine bundle of one test file, built into its own directory inside the project (so that the bundle finds
+ * the installed piscina; parallel test files never share a bundle that is being rebuilt), and a runner of its
+ * command line (`node cli.js ...`, the bundle `splitfield decluster` runs) in `cwd`.
+ */
+export function engineBundle(tag: string) {
+  const root = path.resolve(__dirname, '../../..');
+  const dir = path.join(root, 'tests/artifacts', `engine-${tag}-${process.pid}`);
+  const cli = path.join(dir, 'cli.js');
+  return {
+    dir,
+    build: () => execFileSync('node', ['scripts/build-engine.mjs', '--outdir', dir], { cwd: root, stdio: 'pipe' }),
+    remove: () => rmSync(dir, { recursive: true, force: true }),
+    run: (cwd: string, args: string[], input?: Buffer | string) => {
+      const r = spawnSync(process.execPath, [cli, ...args], { cwd, input, encoding: 'utf8', maxBuffer: 1 << 28 });
+      return { code: r.status, out: r.stdout, err: r.stderr };
+    },
+  };
 }

@@ -9,11 +9,24 @@ import { uploadFieldsSchema } from '@/lib/samples/upload-fields';
 describe('processing settings', () => {
   it('default to PHYSICS.md and common practice', () => {
     expect(defaultSettings()).toEqual({
-      jet: { algorithm: 'antikt', R: 0.4, ptMin: 20, yMax: 2.5, maxJets: null },
+      jet: { algorithm: 'antikt', R: 0.4, ptMin: 20, yMax: 2.5, maxJets: null, exclusive: null },
       softDrop: { zCut: 0.1, beta: 0, R0: 0.4 },
       multiplicityKtCut: 1,
       fullTree: false,
+      collision: 'hadron',
+      ee: { algorithm: 'durham', p: -1, eMin: 0 },
+      particles: { dropNeutrinos: false, pidExclude: [], pidInclude: [], chargedOnly: false, ptMin: 0, rapidityMax: null, rapidityKind: 'y' },
+      flavourTags: false,
     });
+  });
+
+  it('keep the key of samples made before the jet-definition settings existed', () => {
+    const old = { jet: { algorithm: 'antikt' as const, R: 0.4, ptMin: 20, yMax: 2.5, maxJets: null }, softDrop: { zCut: 0.1, beta: 0, R0: 0.4 }, multiplicityKtCut: 1, fullTree: false };
+    expect(settingsKey(old)).toBe('["antikt",0.4,20,2.5,null,0.1,0,0.4,1,false]');
+    expect(settingsKey(defaultSettings())).toBe(settingsKey(old));
+    for (const change of [{ collision: 'ee', jet: { exclusive: { n: 2 } } }, { particles: { chargedOnly: true } }, { flavourTags: true }, { jet: { algorithm: 'kt', exclusive: { n: 2 } } }]) {
+      expect(settingsKey(settingsInputSchema.parse(change))).not.toBe(settingsKey(old));
+    }
   });
 
   it('complete a partial object, R0 following R unless given', () => {
@@ -28,6 +41,17 @@ describe('processing settings', () => {
     [{ softDrop: { zCut: 1 } }, 'softDrop.zCut must be in [0, 1)'],
     [{ multiplicityKtCut: -1 }, 'multiplicityKtCut must be >= 0 (GeV)'],
     [{ fullTree: 'yes' }, 'fullTree must be true or false'],
+    [{ jet: { exclusive: { n: 2 } } }, 'exclusive jets need jet.algorithm "kt" or "ca"'],
+    [{ jet: { algorithm: 'kt', exclusive: { ycut: 0.1 } } }, 'jet.exclusive.ycut is for e+e- events (collision "ee"); use dcut or n'],
+    [{ jet: { algorithm: 'ca', exclusive: { n: 2 } }, flavourTags: true }, 'flavour tags with exclusive jets need jet.algorithm "kt" (a C/A ghost far from every particle would be a jet of its own)'],
+    [{ collision: 'ee' }, 'Durham jets need jet.exclusive {"n": N} or {"ycut": Y}'],
+    [{ collision: 'ee', ee: { algorithm: 'cambridge' }, jet: { exclusive: { n: 2 } } }, 'e+e- Cambridge jets need jet.exclusive {"ycut": Y}'],
+    [{ collision: 'ee', ee: { algorithm: 'genkt' }, jet: { exclusive: { n: 2 } } }, 'the generalised e+e- kt algorithm gives inclusive jets: leave jet.exclusive null'],
+    [{ collision: 'lep' }, 'collision must be "hadron" or "ee"'],
+    [{ particles: { rapidityMax: 0 } }, 'particles.rapidityMax must be > 0'],
+    [{ particles: { pidInclude: [211, 1.5] } }, 'particles.pidInclude must list whole numbers'],
+    [{ particles: { pidInclude: [211], pidExclude: [-211] } }, 'particles.pidExclude and particles.pidInclude name the same code'],
+    [{ particles: { colour: true } }, 'Unrecognized key: "colour"'],
   ])('refuse %j: %s', (input, message) => {
     const parsed = settingsInputSchema.safeParse(input);
     expect(parsed.success).toBe(false);
@@ -67,7 +91,17 @@ describe('uploaded file names', () => {
 });
 
 describe('job progress', () => {
-  const progress = { records: 50, particles: 0, jets: 100, primarySplittings: 900, allSplittings: 4000, skipped: 0, rejected: { pt: 0, y: 0, rank: 0 } };
+  const progress = {
+    records: 50,
+    particles: 0,
+    jets: 100,
+    primarySplittings: 900,
+    allSplittings: 4000,
+    skipped: 0,
+    rejected: { pt: 0, y: 0, rank: 0 },
+    particlesRemoved: null,
+    flavours: null,
+  };
 
   it('gives the fraction read, rates and the time left', () => {
     const view = progressView({ ...progress, bytesRead: 250, bytesTotal: 1000, elapsedMs: 2000, done: false }, 1000, false);
