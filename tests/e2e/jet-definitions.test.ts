@@ -64,13 +64,14 @@ describe('jet definitions in a browser', () => {
     await form.getByLabel('Particle file').setInputFiles(file);
     await expect.poll(() => form.getByLabel('Sample name').inputValue()).toBe('tallis-ee-events');
     await form.getByLabel('Collision').selectOption('ee');
-    // Durham without an exclusive mode is refused before the file is sent.
+    // Durham without an exclusive mode is refused before the file is sent, beside the field that says how many jets.
     await form.getByRole('button', { name: 'Upload and process' }).click();
-    const alert = form.getByRole('alert');
-    await alert.waitFor();
-    expect(await alert.textContent()).toContain('Durham jets need jet.exclusive');
+    const exclusiveValue = form.getByLabel('n, dcut or ycut');
+    await expect.poll(() => exclusiveValue.getAttribute('aria-invalid')).toBe('true');
+    const describedBy = (await exclusiveValue.getAttribute('aria-describedby'))!.split(' ')[0];
+    expect(await page.locator(`[id="${describedBy}"]`).textContent()).toContain('Durham jets need jet.exclusive');
     await form.getByLabel('Jets', { exact: true }).selectOption('n');
-    await form.getByLabel('n, d_cut or y_cut').fill('2');
+    await exclusiveValue.fill('2');
     await form.getByLabel('Charged particles only').check();
     await form.getByLabel('Flavour tagging (b, c, light)').check();
     await screenshot(page, 'jetdefs-upload-1280', 1280);
