@@ -1,11 +1,13 @@
-// fastjet-ref: the reference implementation the physics tests and the benchmark compare Splitfield against.
-// Reference: FastJet 3.4.0 (Debian libfastjet-dev). Only for tests and the benchmark; never used at run time.
+// fastjet-ref: the reference implementation the physics tests compare Splitfield against.
+// Reference: FastJet 3.4.0 (Debian libfastjet-dev). Only for tests; never used at run time. It reads its input
+// with a JSON DOM library (nlohmann-json), which accepts every form of the input format and lets the tests ask
+// for extras (--debug); the benchmark's speed reference is fastjet-speed.cc (same physics, declustering.hh).
 //
 // Reads a `splitfield-particles` file (JSON Lines or the one-document form; content events|jets; momentum
 // px,py,pz,E or pt,y,phi,m; energy unit GeV|MeV|TeV) and writes the `splitfield-declusterings` export of
 // DESIGN.md: a header line, then one line a selected jet, numbers with 17 significant digits (non-finite → null).
 //
-// Physics (PHYSICS.md): jets with FastJet's own JetDefinition(algorithm, R) (E-scheme, strategy Best), cuts in
+// Physics (PHYSICS.md, shared with fastjet-speed.cc in declustering.hh): jets with FastJet's own JetDefinition(algorithm, R) (E-scheme, strategy Best), cuts in
 // order pt > ptmin, |y| < ymax, at most njets leading jets; each jet is re-clustered with FastJet's
 // Cambridge/Aachen at R = JetDefinition::max_allowable_R (all constituents end in one jet) and declustered with
 // ClusterSequence::has_parents: j → a, b with pt_a ≥ pt_b (primary-emission plane, arXiv:1807.04758);
@@ -23,6 +25,8 @@
 #include <fastjet/ClusterSequence.hh>
 #include <nlohmann/json.hpp>
 
+#include "declustering.hh"
+
 #include <cmath>
 #include <cstdio>
 #include <cstdlib>
@@ -37,6 +41,7 @@ using fastjet::ClusterSequence;
 using fastjet::JetDefinition;
 using fastjet::PseudoJet;
 using json = nlohmann::json;
+using splitfield_ref::Split;
 
 namespace {
 
@@ -71,57 +76,6 @@ struct Out {
   void raw(const char *t) { s += t; }
   void raw(const std::string &t) { s += t; }
 };
-
-const double PI = 3.141592653589793238462643383279502884197;
-const double TWOPI = 2 * PI;
-
-// One splitting j -> a, b (pt_a >= pt_b), fields in the order of lib/physics/types.ts SPLIT_FIELDS.
-struct Split {
-  double f[9];
-};
-
-// has_parents already orders the parents by decreasing pt (parent1 = earlier history entry on a tie);
-// the swap below is a no-op kept for clarity. Returns the harder branch in `harder`, the softer in `softer`.
-Split make_split(const PseudoJet &j, PseudoJet a, PseudoJet b, int gen, PseudoJet &harder, PseudoJet &softer) {
-  if (a.pt2() < b.pt2()) std::swap(a, b);
-  const double delta = a.delta_R(b);
-  const double pta = a.pt(), ptb = b.pt();
-  const double z = ptb / (pta + ptb);
-  const double kt = ptb * delta;
-  double sphi = b.phi() - a.phi();
-  if (sphi > PI) sphi -= TWOPI;
-  else if (sphi <= -PI) sphi += TWOPI;
-  Split s;
-  s.f[0] = std::log(1.0 / delta);
-  s.f[1] = std::log(kt);
-  s.f[2] = z;
-  s.f[3] = delta;
-  s.f[4] = kt;
-  s.f[5] = std::atan2(b.rap() - a.rap(), sphi);
-  s.f[6] = j.m();
-  s.f[7] = z * delta;
-  s.f[8] = gen;
-  harder = a;
-  softer = b;
-  return s;
-}
-
-void primary_sequence(const ClusterSequence &cs, const PseudoJet &root, std::vector<Split> &out) {
-  PseudoJet j = root, p1, p2, a, b;
-  while (cs.has_parents(j, p1, p2)) {
-    out.push_back(make_split(j, p1, p2, 1, a, b));
-    j = a;
-  }
-}
-
-// Depth first, harder branch first; generation = 1 + softer branches followed from the root.
-void full_tree(const ClusterSequence &cs, const PseudoJet &j, int gen, std::vector<Split> &out) {
-  PseudoJet p1, p2, a, b;
-  if (!cs.has_parents(j, p1, p2)) return;
-  out.push_back(make_split(j, p1, p2, gen, a, b));
-  full_tree(cs, a, gen, out);
-  full_tree(cs, b, gen + 1, out);
-}
 
 double to_gev(const std::string &unit) {
   if (unit == "GeV") return 1;
@@ -166,22 +120,12 @@ void write_splits(Out &o, const std::vector<Split> &v, const int *fields, int nf
 void write_jet(Context &c, const std::string &rec, int index, const PseudoJet &jet, size_t n, double weight,
                const ClusterSequence &ca, const PseudoJet &root) {
   std::vector<Split> prim, all;
-  primary_sequence(ca, root, prim);
-  if (c.o.all) full_tree(ca, root, 1, all);
-  // SoftDrop on the primary sequence.
-  double mg = NAN, zg = NAN, rg = NAN;
-  const double R0 = c.o.R0 > 0 ? c.o.R0 : c.o.R;
-  for (const Split &s : prim) {
-    if (s.f[2] > c.o.zcut * std::pow(s.f[3] / R0, c.o.beta)) {
-      mg = s.f[6];
-      zg = s.f[2];
-      rg = s.f[3];
-      break;
-    }
-  }
-  long mult = 0;
-  for (const Split &s : prim)
-    if (s.f[4] > c.o.ktcut) mult++;
+  splitfield_ref::primary_sequence(ca, root, prim);
+  if (c.o.all) splitfield_ref::full_tree(ca, root, 1, all);
+  const splitfield_ref::Observables obs =
+      splitfield_ref::observables(prim, c.o.zcut, c.o.beta, c.o.R0 > 0 ? c.o.R0 : c.o.R, c.o.ktcut);
+  const double mg = obs.mg, zg = obs.zg, rg = obs.rg;
+  const long mult = obs.mult;
 
   Out &o = c.out;
   o.raw("{\"rec\":");

@@ -1,0 +1,94 @@
+// The physics both FastJet reference programs share (fastjet-ref.cc for the correctness tests, fastjet-speed.cc
+// for the benchmark): the declustering of a FastJet Cambridge/Aachen tree into splittings, SoftDrop and the
+// primary multiplicity, with the definitions of PHYSICS.md. Reference: FastJet 3.4.0 (Debian libfastjet-dev).
+//
+// A splitting j -> a, b (pt_a >= pt_b) is 9 doubles in the order of lib/physics/types.ts SPLIT_FIELDS:
+// ln(1/Δ), ln(kt), z, Δ, kt, ψ, m, κ, generation (primary-emission plane, arXiv:1807.04758).
+// SoftDrop (arXiv:1402.2657) on the primary sequence: the first splitting with z > zcut (Δ/R0)^β gives
+// m_g = m_{a+b}, z_g and R_g = Δ (NaN when none passes); multiplicity = primary splittings with kt > ktcut.
+
+#pragma once
+
+#include <fastjet/ClusterSequence.hh>
+
+#include <cmath>
+#include <utility>
+#include <vector>
+
+namespace splitfield_ref {
+
+using fastjet::ClusterSequence;
+using fastjet::PseudoJet;
+
+const double PI = 3.141592653589793238462643383279502884197;
+const double TWOPI = 2 * PI;
+
+struct Split {
+  double f[9];
+};
+
+// has_parents already orders the parents by decreasing pt (parent1 = earlier history entry on a tie);
+// the swap below is a no-op kept for clarity. Returns the harder branch in `harder`, the softer in `softer`.
+inline Split make_split(const PseudoJet &j, PseudoJet a, PseudoJet b, int gen, PseudoJet &harder, PseudoJet &softer) {
+  if (a.pt2() < b.pt2()) std::swap(a, b);
+  const double delta = a.delta_R(b);
+  const double pta = a.pt(), ptb = b.pt();
+  const double z = ptb / (pta + ptb);
+  const double kt = ptb * delta;
+  double sphi = b.phi() - a.phi();
+  if (sphi > PI) sphi -= TWOPI;
+  else if (sphi <= -PI) sphi += TWOPI;
+  Split s;
+  s.f[0] = std::log(1.0 / delta);
+  s.f[1] = std::log(kt);
+  s.f[2] = z;
+  s.f[3] = delta;
+  s.f[4] = kt;
+  s.f[5] = std::atan2(b.rap() - a.rap(), sphi);
+  s.f[6] = j.m();
+  s.f[7] = z * delta;
+  s.f[8] = gen;
+  harder = a;
+  softer = b;
+  return s;
+}
+
+// Primary sequence: undo the last clustering, follow the harder branch.
+inline void primary_sequence(const ClusterSequence &cs, const PseudoJet &root, std::vector<Split> &out) {
+  PseudoJet j = root, p1, p2, a, b;
+  while (cs.has_parents(j, p1, p2)) {
+    out.push_back(make_split(j, p1, p2, 1, a, b));
+    j = a;
+  }
+}
+
+// Depth first, harder branch first; generation = 1 + softer branches followed from the root.
+inline void full_tree(const ClusterSequence &cs, const PseudoJet &j, int gen, std::vector<Split> &out) {
+  PseudoJet p1, p2, a, b;
+  if (!cs.has_parents(j, p1, p2)) return;
+  out.push_back(make_split(j, p1, p2, gen, a, b));
+  full_tree(cs, a, gen, out);
+  full_tree(cs, b, gen + 1, out);
+}
+
+struct Observables {
+  double mg = NAN, zg = NAN, rg = NAN;
+  long mult = 0;
+};
+
+inline Observables observables(const std::vector<Split> &prim, double zcut, double beta, double R0, double ktcut) {
+  Observables o;
+  for (const Split &s : prim) {
+    if (s.f[2] > zcut * std::pow(s.f[3] / R0, beta)) {
+      o.mg = s.f[6];
+      o.zg = s.f[2];
+      o.rg = s.f[3];
+      break;
+    }
+  }
+  for (const Split &s : prim)
+    if (s.f[4] > ktcut) o.mult++;
+  return o;
+}
+
+}  // namespace splitfield_ref
