@@ -4,7 +4,7 @@
 import type { JetResult, ProcessSettings, RecordResult } from '../physics/types';
 import type { PlainIngestError } from './errors';
 import type { RecordContext } from './types';
-import type { RecordMeta } from './pipeline/sink';
+import type { RecordMeta, StageTimes, WorkerFormat } from './pipeline/sink';
 import type { ParticleRecord } from './types';
 
 /** Records already parsed (in the main thread), particles back to back. */
@@ -27,6 +27,10 @@ export interface LinesTask {
   context: RecordContext;
   /** Go on after a bad record (report it in `problems`), else stop at the first. */
   skipBad: boolean;
+  /** The sink's text to make here (the export), if any. */
+  sinkFormat: WorkerFormat | null;
+  /** Measure the worker's stages (parse, physics, format). */
+  timings: boolean;
 }
 
 export type WorkerTask = PackedTask | LinesTask;
@@ -46,6 +50,10 @@ export interface WorkerResult {
   problems: { before: number; error: PlainIngestError }[];
   /** A record whose processing threw: its index among the processed records, and the message. */
   error: { index: number; message: string } | null;
+  /** Lines tasks with a sinkFormat: the sink's text of the processed records. */
+  text: string | null;
+  /** Lines tasks with timings: the worker's stage times (seconds). */
+  times: Pick<StageTimes, 'parse' | 'physics' | 'format'> | null;
 }
 
 export function packTask(records: ParticleRecord[], settings: ProcessSettings): PackedTask {
@@ -104,7 +112,7 @@ export function packResults(results: RecordResult[], error: WorkerResult['error'
       }
     }
   }
-  return { perRecord, jets, primary, all, meta: null, problems: [], error };
+  return { perRecord, jets, primary, all, meta: null, problems: [], error, text: null, times: null };
 }
 
 export function unpackResults(w: WorkerResult, nRecords: number): RecordResult[] {

@@ -7,7 +7,7 @@ import type { Writable } from 'node:stream';
 import pkg from '../../package.json';
 import { SPLIT_STRIDE, type ProcessSettings, type RecordResult } from '../physics/types';
 import type { IngestHeader } from './header';
-import type { PipelineSummary, RecordMeta, ResultSink } from './pipeline/sink';
+import type { PipelineSummary, RecordMeta, ResultSink, WorkerFormat } from './pipeline/sink';
 
 export const DECLUSTERINGS_FORMAT = 'splitfield-declusterings';
 export const DECLUSTERINGS_VERSION = 1;
@@ -79,9 +79,18 @@ export function formatJets(records: RecordMeta[], results: RecordResult[], fullT
   return parts.length ? parts.join('\n') + '\n' : '';
 }
 
-/** Sink that writes the export to a stream, respecting backpressure. It does not end the stream. */
+/** The text a sink's WorkerFormat asks for (made in the thread that processed the batch). */
+export function formatForSink(f: WorkerFormat, records: RecordMeta[], results: RecordResult[]): string {
+  return formatJets(records, results, f.fullTree);
+}
+
+/**
+ * Sink that writes the export to a stream, respecting backpressure. It does not end the stream. The export text
+ * is made where each batch is processed (workerFormat), so that it scales with the threads.
+ */
 export class ExportWriter implements ResultSink {
   private fullTree = false;
+  workerFormat: WorkerFormat | null = null;
   jetsWritten = 0;
   bytesWritten = 0;
   constructor(
@@ -100,12 +109,13 @@ export class ExportWriter implements ResultSink {
 
   async begin(header: IngestHeader, settings: ProcessSettings): Promise<void> {
     this.fullTree = settings.fullTree;
+    this.workerFormat = { kind: 'export', fullTree: settings.fullTree };
     await this.put(JSON.stringify(exportHeader(header, settings, this.opts.inputName)) + '\n');
   }
 
-  async write(records: RecordMeta[], results: RecordResult[]): Promise<void> {
+  async write(records: RecordMeta[], results: RecordResult[], text?: string): Promise<void> {
     for (const r of results) this.jetsWritten += r.jets.length;
-    await this.put(formatJets(records, results, this.fullTree));
+    await this.put(text ?? formatJets(records, results, this.fullTree));
   }
 
   async end(_summary: PipelineSummary): Promise<void> {}

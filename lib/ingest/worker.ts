@@ -6,6 +6,7 @@ import { move, transferableSymbol, valueSymbol } from 'piscina';
 import { processParticles } from '../physics/process';
 import type { RecordResult } from '../physics/types';
 import { packResults, resultBuffers, type LinesTask, type PackedTask, type WorkerResult, type WorkerTask } from './codec';
+import { formatForSink } from './export';
 import { processLineBatch } from './process-lines';
 import { ParticleScratch } from './record';
 
@@ -26,8 +27,14 @@ function processPacked(task: PackedTask): WorkerResult {
 }
 
 function processLines(task: LinesTask): WorkerResult {
-  const o = processLineBatch(task.format, task.lines, task.lineNos, task.context, task.settings, task.skipBad, scratch);
+  const times = task.timings ? { parse: 0, physics: 0, format: 0 } : null;
+  const o = processLineBatch(task.format, task.lines, task.lineNos, task.context, task.settings, task.skipBad, scratch, times);
+  const t = performance.now();
+  const text = task.sinkFormat ? formatForSink(task.sinkFormat, o.metas, o.results) : null;
+  if (times) times.format += (performance.now() - t) / 1000;
   const r = packResults(o.results, o.error);
+  r.text = text;
+  r.times = times;
   const m = o.metas;
   r.meta = {
     ids: m.map((x) => x.id),

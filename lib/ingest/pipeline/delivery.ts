@@ -3,7 +3,7 @@
 
 import { SPLIT_STRIDE, type ProcessSettings, type RecordResult } from '../../physics/types';
 import type { ParticleReader } from '../types';
-import type { PipelineCounts, PipelineProgress, PipelineSummary, RecordMeta, ResultSink } from './sink';
+import type { PipelineCounts, PipelineProgress, PipelineSummary, RecordMeta, ResultSink, StageTimes } from './sink';
 
 export class ResultDelivery {
   private readonly counts: PipelineCounts = {
@@ -26,8 +26,11 @@ export class ResultDelivery {
     private readonly progressIntervalMs: number,
   ) {}
 
-  /** Counts consecutive records' results, writes them to the sink (awaiting its backpressure), reports progress. */
-  async deliver(metas: RecordMeta[], results: RecordResult[]): Promise<void> {
+  /**
+   * Counts consecutive records' results, writes them to the sink (awaiting its backpressure), reports progress.
+   * `text`: their text, when the sink's workerFormat was made where they were processed.
+   */
+  async deliver(metas: RecordMeta[], results: RecordResult[], text?: string): Promise<void> {
     const counts = this.counts;
     for (let i = 0; i < metas.length; i++) {
       const res = results[i];
@@ -42,7 +45,7 @@ export class ResultDelivery {
       counts.rejected.y += res.rejected.y;
       counts.rejected.rank += res.rejected.rank;
     }
-    await this.sink.write(metas, results);
+    await this.sink.write(metas, results, text);
     this.progress(false);
   }
 
@@ -64,7 +67,7 @@ export class ResultDelivery {
   }
 
   /** The whole run's figures, once the reader is exhausted. */
-  summary(settings: ProcessSettings, threads: number): PipelineSummary {
+  summary(settings: ProcessSettings, threads: number, stages: StageTimes | null): PipelineSummary {
     const { reader, counts } = this;
     counts.skipped = reader.skipped;
     return {
@@ -77,6 +80,7 @@ export class ResultDelivery {
       bytesTotal: reader.bytesTotal,
       elapsedMs: performance.now() - this.t0,
       skippedErrors: reader.skippedErrors.map((e) => e.message),
+      stages,
     };
   }
 }

@@ -8,8 +8,8 @@ import type { Piscina } from 'piscina';
 import { packTask, unpackMeta, unpackResults, type LinesTask, type WorkerResult, type WorkerTask } from '../codec';
 import { IngestError } from '../errors';
 import type { ParticleRecord } from '../types';
-import { checkAbort, processingError, recordMeta, type BatchRun } from './batches';
-import type { RecordMeta } from './sink';
+import { addStage, checkAbort, processingError, recordMeta, type BatchRun } from './batches';
+import type { RecordMeta, WorkerFormat } from './sink';
 
 /** Where the bundled worker is: next to the running bundle, else dist/engine under the working directory. */
 export function findWorkerFile(): string {
@@ -70,12 +70,21 @@ export class WorkerPoolProcessing {
     return new WorkerPoolProcessing(own, true, 2 * threads);
   }
 
-  /** Reads every batch, dispatches it, and delivers all results in input order. */
-  async process(run: BatchRun): Promise<void> {
+  /**
+   * Reads every batch, dispatches it, and delivers all results in input order. The workers also make the sink's
+   * text when it has a workerFormat.
+   */
+  async process(run: BatchRun, sinkFormat: WorkerFormat | null): Promise<void> {
     const { reader, settings } = run;
     const raw = reader.raw;
     if (raw) {
-      for await (const b of raw.rawBatches(run.batchChars, run.batchRecords)) {
+      const batches = raw.rawBatches(run.batchChars, run.batchRecords);
+      for (;;) {
+        const t = performance.now();
+        const next = await batches.next();
+        addStage(run, 'read', t);
+        if (next.done) break;
+        const b = next.value;
         const task: LinesTask = {
           kind: 'lines',
           format: raw.kind,
@@ -84,6 +93,8 @@ export class WorkerPoolProcessing {
           lineNos: b.lineNos,
           context: raw.context,
           skipBad: raw.skipBad,
+          sinkFormat,
+          timings: run.stages !== null,
         };
         await this.pump(run, task, null);
       }
@@ -99,7 +110,9 @@ export class WorkerPoolProcessing {
   /** Submits a task, then delivers the finished head of the queue (waiting when too many are in flight). */
   private async pump(run: BatchRun, task: WorkerTask, records: ParticleRecord[] | null): Promise<void> {
     checkAbort(run);
+    const t = performance.now();
     this.inFlight.push(this.submit(task, records));
+    addStage(run, 'dispatch', t);
     while (this.inFlight.length > 0 && (this.inFlight.length >= this.maxInFlight || this.inFlight[0].settled)) {
       await this.deliverHead(run);
     }
@@ -125,8 +138,15 @@ export class WorkerPoolProcessing {
   /** Results are interpreted strictly in input order (skipped-record callbacks included). */
   private async deliverHead(run: BatchRun): Promise<void> {
     const head = this.inFlight.shift()!;
+    let t = performance.now();
     const w = await Promise.race([head.promise, this.poolFailed]);
+    t = addStage(run, 'wait', t);
     checkAbort(run);
+    if (run.stages && w.times) {
+      run.stages.parse += w.times.parse;
+      run.stages.physics += w.times.physics;
+      run.stages.format += w.times.format;
+    }
     const n = w.perRecord.length >> 2;
     let metas: RecordMeta[];
     if (head.records) {
@@ -140,7 +160,8 @@ export class WorkerPoolProcessing {
       if (w.error) throw processingError(metas[w.error.index].line, run.where, w.error.message);
       raw.accepted(n);
     }
-    await run.delivery.deliver(metas, unpackResults(w, n));
+    await run.delivery.deliver(metas, unpackResults(w, n), w.text ?? undefined);
+    addStage(run, 'delivery', t);
   }
 
   /** Lets running tasks finish (cancellation is checked between batches) and stops a pool this run started. */
