@@ -50,8 +50,8 @@ export interface WorkerResult {
   problems: { before: number; error: PlainIngestError }[];
   /** A record whose processing threw: its index among the processed records, and the message. */
   error: { index: number; message: string } | null;
-  /** Lines tasks with a sinkFormat: the sink's text of the processed records. */
-  text: string | null;
+  /** Lines tasks with a sinkFormat: the sink's text (UTF-8) of the processed records. */
+  bytes: Uint8Array | null;
   /** Lines tasks with timings: the worker's stage times (seconds). */
   times: Pick<StageTimes, 'parse' | 'physics' | 'format'> | null;
 }
@@ -112,7 +112,7 @@ export function packResults(results: RecordResult[], error: WorkerResult['error'
       }
     }
   }
-  return { perRecord, jets, primary, all, meta: null, problems: [], error, text: null, times: null };
+  return { perRecord, jets, primary, all, meta: null, problems: [], error, bytes: null, times: null };
 }
 
 export function unpackResults(w: WorkerResult, nRecords: number): RecordResult[] {
@@ -157,5 +157,6 @@ export function unpackMeta(w: WorkerResult): RecordMeta[] {
 export function resultBuffers(r: WorkerResult): ArrayBuffer[] {
   const b = [r.perRecord.buffer, r.jets.buffer, r.primary.buffer, r.all.buffer] as ArrayBuffer[];
   if (r.meta) b.push(r.meta.weights.buffer as ArrayBuffer, r.meta.lines.buffer as ArrayBuffer, r.meta.nParticles.buffer as ArrayBuffer);
+  if (r.bytes) b.push(r.bytes.buffer as ArrayBuffer);
   return b;
 }

@@ -30,10 +30,10 @@ function processLines(task: LinesTask): WorkerResult {
   const times = task.timings ? { parse: 0, physics: 0, format: 0 } : null;
   const o = processLineBatch(task.format, task.lines, task.lineNos, task.context, task.settings, task.skipBad, scratch, times);
   const t = performance.now();
-  const text = task.sinkFormat ? formatForSink(task.sinkFormat, o.metas, o.results) : null;
+  const bytes = task.sinkFormat ? formatForSink(task.sinkFormat, o.metas, o.results) : null;
   if (times) times.format += (performance.now() - t) / 1000;
   const r = packResults(o.results, o.error);
-  r.text = text;
+  r.bytes = bytes;
   r.times = times;
   const m = o.metas;
   r.meta = {

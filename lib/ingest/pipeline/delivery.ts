@@ -28,9 +28,9 @@ export class ResultDelivery {
 
   /**
    * Counts consecutive records' results, writes them to the sink (awaiting its backpressure), reports progress.
-   * `text`: their text, when the sink's workerFormat was made where they were processed.
+   * `bytes`: their text for the sink's workerFormat, made where they were processed.
    */
-  async deliver(metas: RecordMeta[], results: RecordResult[], text?: string): Promise<void> {
+  async deliver(metas: RecordMeta[], results: RecordResult[], bytes?: Uint8Array): Promise<void> {
     const counts = this.counts;
     for (let i = 0; i < metas.length; i++) {
       const res = results[i];
@@ -45,7 +45,7 @@ export class ResultDelivery {
       counts.rejected.y += res.rejected.y;
       counts.rejected.rank += res.rejected.rank;
     }
-    await this.sink.write(metas, results, text);
+    await this.sink.write(metas, results, bytes);
     this.progress(false);
   }
 

@@ -29,9 +29,9 @@ export async function processInThisThread(run: BatchRun, sinkFormat: WorkerForma
       for (const pr of o.problems) raw.rejected(pr.error);
       if (o.error) throw processingError(o.metas[o.error.index].line, where, o.error.message);
       raw.accepted(o.results.length);
-      const text = sinkFormat ? formatForSink(sinkFormat, o.metas, o.results) : undefined;
+      const bytes = sinkFormat ? formatForSink(sinkFormat, o.metas, o.results) : undefined;
       t = addStage(run, 'format', t);
-      await delivery.deliver(o.metas, o.results, text);
+      await delivery.deliver(o.metas, o.results, bytes);
       t = addStage(run, 'delivery', t);
     }
     raw.finish();

@@ -71,7 +71,7 @@ export interface PipelineSummary extends PipelineCounts {
 }
 
 /**
- * A sink whose text the worker threads may write for it (the export): the pipeline then hands write() the text
+ * A sink whose text the worker threads may write for it (the export): the pipeline then hands write() the bytes
  * made where the batch was processed, so that formatting scales with the threads.
  */
 export interface WorkerFormat {
@@ -85,10 +85,10 @@ export interface ResultSink {
   /** The formatting worker threads may do for this sink (set by begin()), if any. */
   readonly workerFormat?: WorkerFormat | null;
   /**
-   * Called with consecutive records and their results, in input order; `text` is their formatted text when a
-   * worker thread made it (see workerFormat).
+   * Called with consecutive records and their results, in input order; `bytes` is their formatted text (UTF-8)
+   * when the thread that processed them made it (see workerFormat).
    */
-  write(records: RecordMeta[], results: RecordResult[], text?: string): void | Promise<void>;
+  write(records: RecordMeta[], results: RecordResult[], bytes?: Uint8Array): void | Promise<void>;
   /** Called once after the last record when everything succeeded. */
   end(summary: PipelineSummary): void | Promise<void>;
   /** Called instead of end() when the run failed or was cancelled. */

@@ -160,7 +160,7 @@ export class WorkerPoolProcessing {
       if (w.error) throw processingError(metas[w.error.index].line, run.where, w.error.message);
       raw.accepted(n);
     }
-    await run.delivery.deliver(metas, unpackResults(w, n), w.text ?? undefined);
+    await run.delivery.deliver(metas, unpackResults(w, n), w.bytes ?? undefined);
     addStage(run, 'delivery', t);
   }
 
