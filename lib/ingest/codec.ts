@@ -4,7 +4,7 @@
 import type { JetResult, ProcessSettings, RecordResult } from '../physics/types';
 import type { PlainIngestError } from './errors';
 import type { RecordContext } from './types';
-import type { RecordMeta, StageTimes, WorkerFormat } from './pipeline/sink';
+import type { BatchCounts, RecordMeta, StageTimes, WorkerFormat } from './pipeline/sink';
 import type { ParticleRecord } from './types';
 
 /** Records already parsed (in the main thread), particles back to back. */
@@ -50,8 +50,12 @@ export interface WorkerResult {
   problems: { before: number; error: PlainIngestError }[];
   /** A record whose processing threw: its index among the processed records, and the message. */
   error: { index: number; message: string } | null;
-  /** Lines tasks with a sinkFormat: the sink's text (UTF-8) of the processed records. */
+  /**
+   * Lines tasks with a sinkFormat: the sink's text (UTF-8) of the processed records and their counts; the results
+   * themselves are not sent (perRecord, jets, primary and all are empty), and `meta` holds only the lines.
+   */
   bytes: Uint8Array | null;
+  counts: BatchCounts | null;
   /** Lines tasks with timings: the worker's stage times (seconds). */
   times: Pick<StageTimes, 'parse' | 'physics' | 'format'> | null;
 }
@@ -112,7 +116,7 @@ export function packResults(results: RecordResult[], error: WorkerResult['error'
       }
     }
   }
-  return { perRecord, jets, primary, all, meta: null, problems: [], error, bytes: null, times: null };
+  return { perRecord, jets, primary, all, meta: null, problems: [], error, bytes: null, counts: null, times: null };
 }
 
 export function unpackResults(w: WorkerResult, nRecords: number): RecordResult[] {

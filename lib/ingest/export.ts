@@ -8,7 +8,7 @@ import pkg from '../../package.json';
 import type { ProcessSettings, RecordResult } from '../physics/types';
 import { encodeJets } from './export-lines';
 import type { IngestHeader } from './header';
-import type { PipelineSummary, RecordMeta, ResultSink, WorkerFormat } from './pipeline/sink';
+import type { BatchCounts, PipelineSummary, RecordMeta, ResultSink, WorkerFormat } from './pipeline/sink';
 
 export const DECLUSTERINGS_FORMAT = 'splitfield-declusterings';
 export const DECLUSTERINGS_VERSION = 1;
@@ -86,9 +86,14 @@ export class ExportWriter implements ResultSink {
     await this.put(JSON.stringify(exportHeader(header, settings, this.opts.inputName)) + '\n');
   }
 
-  async write(records: RecordMeta[], results: RecordResult[], bytes?: Uint8Array): Promise<void> {
+  async write(records: RecordMeta[], results: RecordResult[]): Promise<void> {
     for (const r of results) this.jetsWritten += r.jets.length;
-    await this.put(bytes ?? encodeJets(records, results, this.fullTree));
+    await this.put(encodeJets(records, results, this.fullTree));
+  }
+
+  async writeFormatted(bytes: Uint8Array, counts: BatchCounts): Promise<void> {
+    this.jetsWritten += counts.jets;
+    await this.put(bytes);
   }
 
   async end(_summary: PipelineSummary): Promise<void> {}

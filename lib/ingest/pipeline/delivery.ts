@@ -3,7 +3,26 @@
 
 import { SPLIT_STRIDE, type ProcessSettings, type RecordResult } from '../../physics/types';
 import type { ParticleReader } from '../types';
-import type { PipelineCounts, PipelineProgress, PipelineSummary, RecordMeta, ResultSink, StageTimes } from './sink';
+import type { BatchCounts, PipelineCounts, PipelineProgress, PipelineSummary, RecordMeta, ResultSink, StageTimes } from './sink';
+
+/** The counts of consecutive records' results. */
+export function countBatch(metas: RecordMeta[], results: RecordResult[]): BatchCounts {
+  const c: BatchCounts = { records: 0, particles: 0, jets: 0, primarySplittings: 0, allSplittings: 0, rejected: { pt: 0, y: 0, rank: 0 } };
+  for (let i = 0; i < metas.length; i++) {
+    const res = results[i];
+    c.records++;
+    c.particles += metas[i].nParticles;
+    c.jets += res.jets.length;
+    for (const j of res.jets) {
+      c.primarySplittings += j.primary.length / SPLIT_STRIDE;
+      if (j.all) c.allSplittings += j.all.length / SPLIT_STRIDE;
+    }
+    c.rejected.pt += res.rejected.pt;
+    c.rejected.y += res.rejected.y;
+    c.rejected.rank += res.rejected.rank;
+  }
+  return c;
+}
 
 export class ResultDelivery {
   private readonly counts: PipelineCounts = {
@@ -26,26 +45,29 @@ export class ResultDelivery {
     private readonly progressIntervalMs: number,
   ) {}
 
-  /**
-   * Counts consecutive records' results, writes them to the sink (awaiting its backpressure), reports progress.
-   * `bytes`: their text for the sink's workerFormat, made where they were processed.
-   */
-  async deliver(metas: RecordMeta[], results: RecordResult[], bytes?: Uint8Array): Promise<void> {
+  private add(c: BatchCounts): void {
     const counts = this.counts;
-    for (let i = 0; i < metas.length; i++) {
-      const res = results[i];
-      counts.records++;
-      counts.particles += metas[i].nParticles;
-      counts.jets += res.jets.length;
-      for (const j of res.jets) {
-        counts.primarySplittings += j.primary.length / SPLIT_STRIDE;
-        if (j.all) counts.allSplittings += j.all.length / SPLIT_STRIDE;
-      }
-      counts.rejected.pt += res.rejected.pt;
-      counts.rejected.y += res.rejected.y;
-      counts.rejected.rank += res.rejected.rank;
-    }
-    await this.sink.write(metas, results, bytes);
+    counts.records += c.records;
+    counts.particles += c.particles;
+    counts.jets += c.jets;
+    counts.primarySplittings += c.primarySplittings;
+    counts.allSplittings += c.allSplittings;
+    counts.rejected.pt += c.rejected.pt;
+    counts.rejected.y += c.rejected.y;
+    counts.rejected.rank += c.rejected.rank;
+  }
+
+  /** Counts consecutive records' results, writes them to the sink (awaiting its backpressure), reports progress. */
+  async deliver(metas: RecordMeta[], results: RecordResult[]): Promise<void> {
+    this.add(countBatch(metas, results));
+    await this.sink.write(metas, results);
+    this.progress(false);
+  }
+
+  /** As deliver(), for records the sink's workerFormat text was made of where they were processed. */
+  async deliverFormatted(bytes: Uint8Array, counts: BatchCounts): Promise<void> {
+    this.add(counts);
+    await this.sink.writeFormatted!(bytes, counts);
     this.progress(false);
   }
 

@@ -7,6 +7,7 @@ import { formatForSink } from '../export';
 import { processLineBatch } from '../process-lines';
 import { ParticleScratch } from '../record';
 import { addStage, checkAbort, processingError, recordMeta, type BatchRun } from './batches';
+import { countBatch } from './delivery';
 import type { WorkerFormat } from './sink';
 
 export async function processInThisThread(run: BatchRun, sinkFormat: WorkerFormat | null): Promise<void> {
@@ -29,9 +30,11 @@ export async function processInThisThread(run: BatchRun, sinkFormat: WorkerForma
       for (const pr of o.problems) raw.rejected(pr.error);
       if (o.error) throw processingError(o.metas[o.error.index].line, where, o.error.message);
       raw.accepted(o.results.length);
-      const bytes = sinkFormat ? formatForSink(sinkFormat, o.metas, o.results) : undefined;
-      t = addStage(run, 'format', t);
-      await delivery.deliver(o.metas, o.results, bytes);
+      if (sinkFormat) {
+        const bytes = formatForSink(sinkFormat, o.metas, o.results);
+        t = addStage(run, 'format', t);
+        await delivery.deliverFormatted(bytes, countBatch(o.metas, o.results));
+      } else await delivery.deliver(o.metas, o.results);
       t = addStage(run, 'delivery', t);
     }
     raw.finish();

@@ -12,6 +12,9 @@ export interface RecordMeta {
   nParticles: number;
 }
 
+/** What a batch of records added to a run's counts (PipelineCounts less the skipped records). */
+export type BatchCounts = Omit<PipelineCounts, 'skipped'>;
+
 export interface PipelineCounts {
   records: number;
   particles: number;
@@ -84,11 +87,13 @@ export interface ResultSink {
   begin(header: IngestHeader, settings: ProcessSettings): void | Promise<void>;
   /** The formatting worker threads may do for this sink (set by begin()), if any. */
   readonly workerFormat?: WorkerFormat | null;
+  /** Called with consecutive records and their results, in input order. */
+  write(records: RecordMeta[], results: RecordResult[]): void | Promise<void>;
   /**
-   * Called with consecutive records and their results, in input order; `bytes` is their formatted text (UTF-8)
-   * when the thread that processed them made it (see workerFormat).
+   * With a workerFormat, called instead of write() with the text (UTF-8) of consecutive records that the thread
+   * which processed them made, and their counts.
    */
-  write(records: RecordMeta[], results: RecordResult[], bytes?: Uint8Array): void | Promise<void>;
+  writeFormatted?(bytes: Uint8Array, counts: BatchCounts): void | Promise<void>;
   /** Called once after the last record when everything succeeded. */
   end(summary: PipelineSummary): void | Promise<void>;
   /** Called instead of end() when the run failed or was cancelled. */

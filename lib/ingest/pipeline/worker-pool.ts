@@ -156,11 +156,17 @@ export class WorkerPoolProcessing {
       // Raw text parsed in the worker: bad records come back in order.
       const raw = run.reader.raw!;
       for (const pr of w.problems) raw.rejected(IngestError.fromPlain(pr.error));
+      if (w.error) throw processingError(w.meta!.lines[w.error.index], run.where, w.error.message);
+      if (w.bytes) {
+        raw.accepted(w.counts!.records);
+        await run.delivery.deliverFormatted(w.bytes, w.counts!);
+        addStage(run, 'delivery', t);
+        return;
+      }
       metas = unpackMeta(w);
-      if (w.error) throw processingError(metas[w.error.index].line, run.where, w.error.message);
       raw.accepted(n);
     }
-    await run.delivery.deliver(metas, unpackResults(w, n), w.bytes ?? undefined);
+    await run.delivery.deliver(metas, unpackResults(w, n));
     addStage(run, 'delivery', t);
   }
 

@@ -164,6 +164,21 @@ describe('strategies agree', () => {
     }
   });
 
+  it('the C/A grid and plain give the same tree from the grid threshold up to 3 000 constituents', () => {
+    for (const N of [GRID_MIN_PARTICLES, 300, 1000, 3000]) {
+      for (const jet of generateJets(N, 2, { nConstituents: N, spreadN: 0, massiveFraction: 0.3 })) {
+        const [A, B] = runBoth(jet, 0, Infinity);
+        expect(B.nJets).toBe(1);
+        expect(B.nNodes).toBe(A.nNodes);
+        for (let k = N; k < A.nNodes; k++) {
+          expect(B.E[k]).toBe(A.E[k]);
+          expect(B.pz[k]).toBe(A.pz[k]);
+          expect(Math.min(B.parent1[k], B.parent2[k])).toBe(Math.min(A.parent1[k], A.parent2[k]));
+        }
+      }
+    }
+  });
+
   it('NN bookkeeping checked by brute force after every step, on many irregular configurations', () => {
     // Clumps of random size, isolated particles, wide pt range: exercises NN searches across tiles, the
     // reverse-NN lists, the tile bounds and the far list of the grid (a missed update fails the check).
