@@ -1,10 +1,10 @@
 // The jet lines of the splitfield-declusterings export (DESIGN.md "Export format") written straight as UTF-8
 // bytes: the same text JSON.stringify gives for the object {rec, jet, pt, y, phi, m, n, weight, primary, all?,
-// sd, mult} (numbers as String(x) writes them, by json-numbers/format.ts; NaN and ±Infinity as null), without
+// sd, mult} (numbers as String(x) writes them, by number-text.ts; NaN and ±Infinity as null), without
 // building the objects and strings first.
 
 import { SPLIT_STRIDE, type RecordResult } from '../physics/types';
-import { writeDouble, writeInteger } from './json-numbers/format';
+import { writeDouble, writeInteger } from './number-text';
 import type { RecordMeta } from './pipeline/sink';
 
 const ascii = (s: string) => Uint8Array.from(s, (c) => c.charCodeAt(0));

@@ -3,7 +3,7 @@
 // format"), NaN and ±Infinity as null, ids with JSON's escapes and UTF-8.
 import { describe, expect, it } from 'vitest';
 import { encodeJets } from '@/lib/ingest/export-lines';
-import { formatDouble } from '@/lib/ingest/json-numbers/format';
+import { formatDouble } from '@/lib/ingest/number-text';
 import type { RecordMeta } from '@/lib/ingest/pipeline/sink';
 import { Rng } from '@/lib/physics/random';
 import { SPLIT_STRIDE, type JetResult, type RecordResult } from '@/lib/physics/types';
