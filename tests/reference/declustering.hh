@@ -1,6 +1,7 @@
-// The physics both FastJet reference programs share (fastjet-ref.cc for the correctness tests, fastjet-speed.cc
-// for the benchmark): the declustering of a FastJet Cambridge/Aachen tree into splittings, SoftDrop and the
-// primary multiplicity, with the definitions of PHYSICS.md. Reference: FastJet 3.4.0 (Debian libfastjet-dev).
+// What both FastJet reference programs share (fastjet-ref.cc for the correctness tests, fastjet-speed.cc for the
+// benchmark): the declustering of a FastJet Cambridge/Aachen tree into splittings, SoftDrop and the primary
+// multiplicity, with the definitions of PHYSICS.md, and the export's header line. Reference: FastJet 3.4.0
+// (Debian libfastjet-dev).
 //
 // A splitting j -> a, b (pt_a >= pt_b) is 9 doubles in the order of lib/physics/types.ts SPLIT_FIELDS:
 // ln(1/Δ), ln(kt), z, Δ, kt, ψ, m, κ, generation (primary-emission plane, arXiv:1807.04758).
@@ -12,6 +13,7 @@
 #include <fastjet/ClusterSequence.hh>
 
 #include <cmath>
+#include <string>
 #include <utility>
 #include <vector>
 
@@ -89,6 +91,44 @@ inline Observables observables(const std::vector<Split> &prim, double zcut, doub
   for (const Split &s : prim)
     if (s.f[4] > ktcut) o.mult++;
   return o;
+}
+
+// The export's header line (same layout as lib/ingest/export.ts exportHeader), `software` = the program's name.
+// Out: raw(const char *), num(double), integer(long); Options: the programs' command-line options.
+template <class Out, class Options>
+void write_export_header(Out &h, const Options &o, const std::string &content, const char *software) {
+  h.raw("{\"format\":\"splitfield-declusterings\",\"version\":1,\"content\":\"");
+  h.raw(content.c_str());
+  h.raw("\",\"jetDefinition\":{\"algorithm\":\"");
+  h.raw(o.algorithm.c_str());
+  h.raw("\",\"R\":");
+  h.num(o.R);
+  h.raw(",\"recombination\":\"E\"},\"cuts\":{\"ptMin\":");
+  h.num(o.ptmin);
+  h.raw(",\"yMax\":");
+  h.num(o.ymax);
+  h.raw(",\"maxJets\":");
+  if (o.njets >= 0) h.integer(o.njets);
+  else h.raw("null");
+  h.raw("},\"reclustering\":\"ca\",\"softDrop\":{\"zCut\":");
+  h.num(o.zcut);
+  h.raw(",\"beta\":");
+  h.num(o.beta);
+  h.raw(",\"R0\":");
+  h.num(o.R0 > 0 ? o.R0 : o.R);
+  h.raw("},\"multiplicityKtCut\":");
+  h.num(o.ktcut);
+  h.raw(",\"fullTree\":");
+  h.raw(o.all ? "true" : "false");
+  h.raw(",\"columns\":{\"primary\":[\"lnInvDelta\",\"lnKt\",\"z\",\"delta\",\"kt\",\"psi\",\"m\"],");
+  if (o.all) h.raw("\"all\":[\"generation\",\"lnInvDelta\",\"lnKt\",\"z\"],");
+  h.raw("\"sd\":[\"mg\",\"zg\",\"Rg\"]},\"software\":{\"name\":\"");
+  h.raw(software);
+  h.raw("\",\"version\":\"");
+  h.raw(FASTJET_VERSION);
+  h.raw("\",\"library\":\"FastJet ");
+  h.raw(FASTJET_VERSION);
+  h.raw(" (Debian libfastjet-dev)\"}}\n");
 }
 
 }  // namespace splitfield_ref

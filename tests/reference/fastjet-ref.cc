@@ -334,40 +334,7 @@ int main(int argc, char **argv) {
   else if (momentum != "px,py,pz,E") die("unknown momentum " + momentum);
   c.k = to_gev(header.value("energyUnit", "GeV"));
 
-  {
-    // Same header layout as lib/ingest/export.ts (exportHeader), software = this program.
-    Out &h = c.out;
-    h.raw("{\"format\":\"splitfield-declusterings\",\"version\":1,\"content\":\"");
-    h.raw(content);
-    h.raw("\",\"jetDefinition\":{\"algorithm\":\"");
-    h.raw(o.algorithm);
-    h.raw("\",\"R\":");
-    h.num(o.R);
-    h.raw(",\"recombination\":\"E\"},\"cuts\":{\"ptMin\":");
-    h.num(o.ptmin);
-    h.raw(",\"yMax\":");
-    h.num(o.ymax);
-    h.raw(",\"maxJets\":");
-    if (o.njets >= 0) h.integer(o.njets);
-    else h.raw("null");
-    h.raw("},\"reclustering\":\"ca\",\"softDrop\":{\"zCut\":");
-    h.num(o.zcut);
-    h.raw(",\"beta\":");
-    h.num(o.beta);
-    h.raw(",\"R0\":");
-    h.num(o.R0 > 0 ? o.R0 : o.R);
-    h.raw("},\"multiplicityKtCut\":");
-    h.num(o.ktcut);
-    h.raw(",\"fullTree\":");
-    h.raw(o.all ? "true" : "false");
-    h.raw(",\"columns\":{\"primary\":[\"lnInvDelta\",\"lnKt\",\"z\",\"delta\",\"kt\",\"psi\",\"m\"],");
-    if (o.all) h.raw("\"all\":[\"generation\",\"lnInvDelta\",\"lnKt\",\"z\"],");
-    h.raw("\"sd\":[\"mg\",\"zg\",\"Rg\"]},\"software\":{\"name\":\"fastjet-ref\",\"version\":\"");
-    h.raw(FASTJET_VERSION);
-    h.raw("\",\"library\":\"FastJet ");
-    h.raw(FASTJET_VERSION);
-    h.raw(" (Debian libfastjet-dev)\"}}\n");
-  }
+  splitfield_ref::write_export_header(c.out, o, content, "fastjet-ref");
 
   if (oneDoc) {
     const json &recs = header.at("records");

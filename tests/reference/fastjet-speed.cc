@@ -407,41 +407,6 @@ void processRecord(Context &c, const std::vector<PseudoJet> &particles) {
   }
 }
 
-void writeHeader(Context &c, Out &h, const std::string &content) {
-  // Same header layout as lib/ingest/export.ts (exportHeader), software = this program.
-  const Options &o = c.o;
-  h.raw("{\"format\":\"splitfield-declusterings\",\"version\":1,\"content\":\"");
-  h.raw(content.c_str());
-  h.raw("\",\"jetDefinition\":{\"algorithm\":\"");
-  h.raw(o.algorithm.c_str());
-  h.raw("\",\"R\":");
-  h.num(o.R);
-  h.raw(",\"recombination\":\"E\"},\"cuts\":{\"ptMin\":");
-  h.num(o.ptmin);
-  h.raw(",\"yMax\":");
-  h.num(o.ymax);
-  h.raw(",\"maxJets\":");
-  if (o.njets >= 0) h.integer(o.njets);
-  else h.raw("null");
-  h.raw("},\"reclustering\":\"ca\",\"softDrop\":{\"zCut\":");
-  h.num(o.zcut);
-  h.raw(",\"beta\":");
-  h.num(o.beta);
-  h.raw(",\"R0\":");
-  h.num(o.R0 > 0 ? o.R0 : o.R);
-  h.raw("},\"multiplicityKtCut\":");
-  h.num(o.ktcut);
-  h.raw(",\"fullTree\":");
-  h.raw(o.all ? "true" : "false");
-  h.raw(",\"columns\":{\"primary\":[\"lnInvDelta\",\"lnKt\",\"z\",\"delta\",\"kt\",\"psi\",\"m\"],");
-  if (o.all) h.raw("\"all\":[\"generation\",\"lnInvDelta\",\"lnKt\",\"z\"],");
-  h.raw("\"sd\":[\"mg\",\"zg\",\"Rg\"]},\"software\":{\"name\":\"fastjet-speed\",\"version\":\"");
-  h.raw(FASTJET_VERSION);
-  h.raw("\",\"library\":\"FastJet ");
-  h.raw(FASTJET_VERSION);
-  h.raw(" (Debian libfastjet-dev)\"}}\n");
-}
-
 // ---- streaming lines ----
 struct LineReader {
   std::FILE *f;
@@ -603,7 +568,7 @@ int main(int argc, char **argv) {
     if (!outFile) die("cannot write " + o.out);
   }
   Out out;
-  writeHeader(c, out, content);
+  splitfield_ref::write_export_header(out, c.o, content, "fastjet-speed");
   double tParse = 0, tPhysics = 0, tWrite = 0;
   const bool timed = o.timings;
   while (lines.next(b, e)) {
