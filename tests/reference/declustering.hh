@@ -13,6 +13,8 @@
 #include <fastjet/ClusterSequence.hh>
 
 #include <cmath>
+#include <cstdlib>
+#include <stdexcept>
 #include <string>
 #include <utility>
 #include <vector>
@@ -93,10 +95,49 @@ inline Observables observables(const std::vector<Split> &prim, double zcut, doub
   return o;
 }
 
+// The options both programs take: jet definition, cuts, observables, --all, input and --out.
+struct CommonOptions {
+  double R = 0.4, ptmin = 20, ymax = 2.5;
+  long njets = -1;
+  std::string algorithm = "antikt";
+  bool all = false;
+  double zcut = 0.1, beta = 0, R0 = -1, ktcut = 1;
+  std::string in, out;
+};
+
+inline double number_arg(int &i, int argc, char **argv) {
+  if (i + 1 >= argc) throw std::runtime_error(std::string("missing value after ") + argv[i]);
+  char *end = nullptr;
+  const double v = std::strtod(argv[++i], &end);
+  if (!end || *end) throw std::runtime_error(std::string("not a number: ") + argv[i]);
+  return v;
+}
+
+// Takes argv[i] (and its value) when it is a common option or the input; false for anything else. Throws
+// std::runtime_error on a missing or bad value.
+inline bool common_option(CommonOptions &o, int &i, int argc, char **argv) {
+  const std::string a = argv[i];
+  if (a == "--R") o.R = number_arg(i, argc, argv);
+  else if (a == "--ptmin") o.ptmin = number_arg(i, argc, argv);
+  else if (a == "--ymax") o.ymax = number_arg(i, argc, argv);
+  else if (a == "--njets") o.njets = static_cast<long>(number_arg(i, argc, argv));
+  else if (a == "--algorithm" || a == "--out") {
+    if (i + 1 >= argc) throw std::runtime_error("missing value after " + a);
+    (a == "--out" ? o.out : o.algorithm) = argv[++i];
+  } else if (a == "--all") o.all = true;
+  else if (a == "--zcut") o.zcut = number_arg(i, argc, argv);
+  else if (a == "--beta") o.beta = number_arg(i, argc, argv);
+  else if (a == "--R0") o.R0 = number_arg(i, argc, argv);
+  else if (a == "--ktcut") o.ktcut = number_arg(i, argc, argv);
+  else if (a.empty() || a[0] != '-' || a == "-") o.in = a;
+  else return false;
+  return true;
+}
+
 // The export's header line (same layout as lib/ingest/export.ts exportHeader), `software` = the program's name.
-// Out: raw(const char *), num(double), integer(long); Options: the programs' command-line options.
-template <class Out, class Options>
-void write_export_header(Out &h, const Options &o, const std::string &content, const char *software) {
+// Out: raw(const char *), num(double), integer(long).
+template <class Out>
+void write_export_header(Out &h, const CommonOptions &o, const std::string &content, const char *software) {
   h.raw("{\"format\":\"splitfield-declusterings\",\"version\":1,\"content\":\"");
   h.raw(content.c_str());
   h.raw("\",\"jetDefinition\":{\"algorithm\":\"");

@@ -45,14 +45,8 @@ using splitfield_ref::Split;
 
 namespace {
 
-struct Options {
-  double R = 0.4, ptmin = 20, ymax = 2.5;
-  long njets = -1;
-  std::string algorithm = "antikt";
-  bool all = false;
-  double zcut = 0.1, beta = 0, R0 = -1, ktcut = 1;
+struct Options : splitfield_ref::CommonOptions {
   bool debug = false;
-  std::string in, out;
 };
 
 [[noreturn]] void die(const std::string &msg) {
@@ -248,39 +242,20 @@ void process_record(Context &c, const json &r, long defaultId) {
   flush(c, false);
 }
 
-double num_arg(int &i, int argc, char **argv) {
-  if (i + 1 >= argc) die(std::string("missing value after ") + argv[i]);
-  char *end = nullptr;
-  const double v = std::strtod(argv[++i], &end);
-  if (!end || *end) die(std::string("not a number: ") + argv[i]);
-  return v;
-}
-
 }  // namespace
 
 int main(int argc, char **argv) {
   Context c;
   Options &o = c.o;
-  for (int i = 1; i < argc; i++) {
-    const std::string a = argv[i];
-    if (a == "--R") o.R = num_arg(i, argc, argv);
-    else if (a == "--ptmin") o.ptmin = num_arg(i, argc, argv);
-    else if (a == "--ymax") o.ymax = num_arg(i, argc, argv);
-    else if (a == "--njets") o.njets = static_cast<long>(num_arg(i, argc, argv));
-    else if (a == "--algorithm") {
-      if (i + 1 >= argc) die("missing value after --algorithm");
-      o.algorithm = argv[++i];
-    } else if (a == "--all") o.all = true;
-    else if (a == "--zcut") o.zcut = num_arg(i, argc, argv);
-    else if (a == "--beta") o.beta = num_arg(i, argc, argv);
-    else if (a == "--R0") o.R0 = num_arg(i, argc, argv);
-    else if (a == "--ktcut") o.ktcut = num_arg(i, argc, argv);
-    else if (a == "--debug") o.debug = true;
-    else if (a == "--out") {
-      if (i + 1 >= argc) die("missing value after --out");
-      o.out = argv[++i];
-    } else if (!a.empty() && a[0] == '-' && a != "-") die("unknown option " + a);
-    else o.in = a;
+  try {
+    for (int i = 1; i < argc; i++) {
+      if (splitfield_ref::common_option(o, i, argc, argv)) continue;
+      const std::string a = argv[i];
+      if (a == "--debug") o.debug = true;
+      else die("unknown option " + a);
+    }
+  } catch (const std::runtime_error &e) {
+    die(e.what());
   }
   if (o.in.empty()) die("usage: fastjet-ref [options] input.jsonl [--out output.jsonl]");
 

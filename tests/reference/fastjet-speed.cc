@@ -49,16 +49,10 @@ using splitfield_ref::Split;
 
 namespace {
 
-struct Options {
-  double R = 0.4, ptmin = 20, ymax = 2.5;
-  long njets = -1;
-  std::string algorithm = "antikt";
-  bool all = false;
-  double zcut = 0.1, beta = 0, R0 = -1, ktcut = 1;
+struct Options : splitfield_ref::CommonOptions {
   bool timings = false, physicsOnly = false;
   long rounds = 5;
   double minSeconds = 0.2;
-  std::string in, out;
 };
 
 [[noreturn]] void die(const std::string &msg) {
@@ -452,43 +446,24 @@ bool blank(const char *b, const char *e) {
   return true;
 }
 
-double numArg(int &i, int argc, char **argv) {
-  if (i + 1 >= argc) die(std::string("missing value after ") + argv[i]);
-  char *end = nullptr;
-  const double v = std::strtod(argv[++i], &end);
-  if (!end || *end) die(std::string("not a number: ") + argv[i]);
-  return v;
-}
-
 }  // namespace
 
 int main(int argc, char **argv) {
   const double tStart = wallNow();
   Context c;
   Options &o = c.o;
-  for (int i = 1; i < argc; i++) {
-    const std::string a = argv[i];
-    if (a == "--R") o.R = numArg(i, argc, argv);
-    else if (a == "--ptmin") o.ptmin = numArg(i, argc, argv);
-    else if (a == "--ymax") o.ymax = numArg(i, argc, argv);
-    else if (a == "--njets") o.njets = static_cast<long>(numArg(i, argc, argv));
-    else if (a == "--algorithm") {
-      if (i + 1 >= argc) die("missing value after --algorithm");
-      o.algorithm = argv[++i];
-    } else if (a == "--all") o.all = true;
-    else if (a == "--zcut") o.zcut = numArg(i, argc, argv);
-    else if (a == "--beta") o.beta = numArg(i, argc, argv);
-    else if (a == "--R0") o.R0 = numArg(i, argc, argv);
-    else if (a == "--ktcut") o.ktcut = numArg(i, argc, argv);
-    else if (a == "--timings") o.timings = true;
-    else if (a == "--physics-only") o.physicsOnly = true;
-    else if (a == "--rounds") o.rounds = static_cast<long>(numArg(i, argc, argv));
-    else if (a == "--min-seconds") o.minSeconds = numArg(i, argc, argv);
-    else if (a == "--out") {
-      if (i + 1 >= argc) die("missing value after --out");
-      o.out = argv[++i];
-    } else if (!a.empty() && a[0] == '-' && a != "-") die("unknown option " + a);
-    else o.in = a;
+  try {
+    for (int i = 1; i < argc; i++) {
+      if (splitfield_ref::common_option(o, i, argc, argv)) continue;
+      const std::string a = argv[i];
+      if (a == "--timings") o.timings = true;
+      else if (a == "--physics-only") o.physicsOnly = true;
+      else if (a == "--rounds") o.rounds = static_cast<long>(splitfield_ref::number_arg(i, argc, argv));
+      else if (a == "--min-seconds") o.minSeconds = splitfield_ref::number_arg(i, argc, argv);
+      else die("unknown option " + a);
+    }
+  } catch (const std::runtime_error &e) {
+    die(e.what());
   }
   if (o.in.empty()) die("usage: fastjet-speed [options] input.jsonl [--out output.jsonl]");
 
