@@ -134,6 +134,19 @@ inline bool common_option(CommonOptions &o, int &i, int argc, char **argv) {
   return true;
 }
 
+// FastJet's JetDefinition of the options (strategy Best); throws std::runtime_error for an unknown algorithm.
+inline fastjet::JetDefinition jet_definition(const CommonOptions &o) {
+  if (o.algorithm == "antikt") return fastjet::JetDefinition(fastjet::antikt_algorithm, o.R);
+  if (o.algorithm == "kt") return fastjet::JetDefinition(fastjet::kt_algorithm, o.R);
+  if (o.algorithm == "ca") return fastjet::JetDefinition(fastjet::cambridge_algorithm, o.R);
+  throw std::runtime_error("unknown algorithm " + o.algorithm);
+}
+
+// The re-clustering: Cambridge/Aachen at JetDefinition::max_allowable_R (all constituents end in one jet).
+inline fastjet::JetDefinition reclustering_definition() {
+  return fastjet::JetDefinition(fastjet::cambridge_algorithm, fastjet::JetDefinition::max_allowable_R);
+}
+
 // The export's header line (same layout as lib/ingest/export.ts exportHeader), `software` = the program's name.
 // Out: raw(const char *), num(double), integer(long).
 template <class Out>

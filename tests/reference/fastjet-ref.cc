@@ -259,13 +259,12 @@ int main(int argc, char **argv) {
   }
   if (o.in.empty()) die("usage: fastjet-ref [options] input.jsonl [--out output.jsonl]");
 
-  fastjet::JetAlgorithm alg;
-  if (o.algorithm == "antikt") alg = fastjet::antikt_algorithm;
-  else if (o.algorithm == "kt") alg = fastjet::kt_algorithm;
-  else if (o.algorithm == "ca") alg = fastjet::cambridge_algorithm;
-  else die("unknown algorithm " + o.algorithm);
-  c.jetdef = JetDefinition(alg, o.R);
-  c.cadef = JetDefinition(fastjet::cambridge_algorithm, JetDefinition::max_allowable_R);
+  try {
+    c.jetdef = splitfield_ref::jet_definition(o);
+  } catch (const std::runtime_error &e) {
+    die(e.what());
+  }
+  c.cadef = splitfield_ref::reclustering_definition();
   ClusterSequence::set_fastjet_banner_stream(nullptr);
 
   std::ifstream fin;
