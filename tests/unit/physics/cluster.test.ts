@@ -205,12 +205,12 @@ describe('strategies agree', () => {
       loadParticles(ws, p, n);
       cluster(ws, { p: 0, R: Infinity, strategy: 'tiled' }); // C/A grid
       loadParticles(ws, p, n);
-      ws.tileRings = 1 + (t % 2); // tiles of side R and R/2
+      ws.tileRings = 1 + (t % 3); // tiles of side R, R/2 and R/3
       cluster(ws, { p: [-1, 0, 1][t % 3], R: rng.uniform(0.05, 1.2), strategy: 'tiled' }); // tiled finder
       ws.tileRings = 0;
     }
     for (const ev of generateEvents(31, 4, { nParticles: 400, nearPhiWrap: true })) {
-      for (const rings of [1, 2]) {
+      for (const rings of [1, 2, 3]) {
         ws.tileRings = rings;
         loadParticles(ws, ev, 400);
         cluster(ws, { p: -1, R: 0.4, strategy: 'tiled' });
