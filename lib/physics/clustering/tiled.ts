@@ -26,8 +26,8 @@ import type { ClusterWorkspace } from './workspace';
 
 const PI = Math.PI;
 
-/** Particles per R² above which tiles of side R/2 (5×5 blocks) replace tiles of side R (3×3 blocks). */
-const TILE_DENSE = 2;
+/** Particles per R² above which tiles of side R/2 (5×5 blocks) replace tiles of side R (3×3 blocks) (measured). */
+const TILE_DENSE = 25;
 /** Particles per R² above which tiles of side R/3 (7×7 blocks) are used (measured: large R on 10 000 particles). */
 const TILE_DENSER = 150;
 
@@ -176,8 +176,8 @@ export function clusterTiled(ws: ClusterWorkspace, R: number, R2: number, p: num
     if (y > yMax) yMax = y;
   }
   // Geometry: tiles of side ≥ R/K, K rings; nPhi ≥ 2K+1 so that the block's φ columns are distinct.
-  // Measured: R-sized tiles (K = 1) are best for sparse events, R/2 (K = 2) once there are a few particles
-  // per R² on average, R/3 (K = 3) from about 150.
+  // Measured: R-sized tiles (K = 1) are best up to about 25 particles per R² on average, R/2 (K = 2) above,
+  // R/3 (K = 3) from about 150.
   const side = R * (1 + 1e-6);
   const density = (n * R * R) / ((yMax - yMin + R) * TWO_PI);
   let K = ws.tileRings > 0 ? ws.tileRings : density > TILE_DENSER ? 3 : density > TILE_DENSE ? 2 : 1;
