@@ -1,7 +1,7 @@
 // What both FastJet reference programs share (fastjet-ref.cc for the correctness tests, fastjet-speed.cc for the
 // benchmark): the declustering of a FastJet Cambridge/Aachen tree into splittings, SoftDrop and the primary
-// multiplicity, with the definitions of PHYSICS.md, and the export's header line. Reference: FastJet 3.4.0
-// (Debian libfastjet-dev).
+// multiplicity, with the definitions of PHYSICS.md; the command-line options, the jet definitions, the reading of
+// a particle, and the export's header line. Reference: FastJet 3.4.0 (Debian libfastjet-dev).
 //
 // A splitting j -> a, b (pt_a >= pt_b) is 9 doubles in the order of lib/physics/types.ts SPLIT_FIELDS:
 // ln(1/Δ), ln(kt), z, Δ, kt, ψ, m, κ, generation (primary-emission plane, arXiv:1807.04758).
@@ -132,6 +132,35 @@ inline bool common_option(CommonOptions &o, int &i, int argc, char **argv) {
   else if (a.empty() || a[0] != '-' || a == "-") o.in = a;
   else return false;
   return true;
+}
+
+// The input's reading: GeV per unit of the file's energyUnit (std::runtime_error for an unknown one), and a
+// particle from its four numbers, (px, py, pz, E) or (pt, y, phi, m), times that factor (the same arithmetic as
+// lib/physics/fourvector.ts fromPtYPhiM).
+inline double to_gev(const std::string &unit) {
+  if (unit == "GeV") return 1;
+  if (unit == "MeV") return 1e-3;
+  if (unit == "TeV") return 1e3;
+  throw std::runtime_error("unknown energyUnit " + unit);
+}
+
+inline PseudoJet particle(double a, double b, double c, double d, bool ptForm, double k) {
+  if (!ptForm) return PseudoJet(a * k, b * k, c * k, d * k);
+  const double pt = a * k, m = d * k;
+  const double mt = std::sqrt(pt * pt + m * m);
+  return PseudoJet(pt * std::cos(c), pt * std::sin(c), mt * std::sinh(b), mt * std::cosh(b));
+}
+
+// Reads argv into o: the common options, then extra(a, i) for the program's own (false: not one of them).
+// Throws std::runtime_error for a bad or unknown option, and with `usage` when no input is named.
+template <class Options, class Extra>
+void parse_options(Options &o, int argc, char **argv, Extra extra, const char *usage) {
+  for (int i = 1; i < argc; i++) {
+    if (common_option(o, i, argc, argv)) continue;
+    const std::string a = argv[i];
+    if (!extra(a, i)) throw std::runtime_error("unknown option " + a);
+  }
+  if (o.in.empty()) throw std::runtime_error(usage);
 }
 
 // FastJet's JetDefinition of the options (strategy Best); throws std::runtime_error for an unknown algorithm.

@@ -71,13 +71,6 @@ struct Out {
   void raw(const std::string &t) { s += t; }
 };
 
-double to_gev(const std::string &unit) {
-  if (unit == "GeV") return 1;
-  if (unit == "MeV") return 1e-3;
-  if (unit == "TeV") return 1e3;
-  die("unknown energyUnit " + unit);
-}
-
 struct Context {
   Options o;
   bool ptForm = false;
@@ -175,15 +168,7 @@ void process_record(Context &c, const json &r, long defaultId) {
   std::vector<PseudoJet> particles;
   particles.reserve(ps.size());
   for (const json &p : ps) {
-    const double a = p[0].get<double>(), b = p[1].get<double>(), cc = p[2].get<double>(), d = p[3].get<double>();
-    if (c.ptForm) {
-      // Same arithmetic as lib/physics/fourvector.ts fromPtYPhiM.
-      const double pt = a * c.k, m = d * c.k;
-      const double mt = std::sqrt(pt * pt + m * m);
-      particles.emplace_back(pt * std::cos(cc), pt * std::sin(cc), mt * std::sinh(b), mt * std::cosh(b));
-    } else {
-      particles.emplace_back(a * c.k, b * c.k, cc * c.k, d * c.k);
-    }
+    particles.push_back(splitfield_ref::particle(p[0].get<double>(), p[1].get<double>(), p[2].get<double>(), p[3].get<double>(), c.ptForm, c.k));
   }
   long rejPt = 0, rejY = 0, rejRank = 0;
   std::string strategy = "-";
@@ -248,18 +233,12 @@ int main(int argc, char **argv) {
   Context c;
   Options &o = c.o;
   try {
-    for (int i = 1; i < argc; i++) {
-      if (splitfield_ref::common_option(o, i, argc, argv)) continue;
-      const std::string a = argv[i];
-      if (a == "--debug") o.debug = true;
-      else die("unknown option " + a);
-    }
-  } catch (const std::runtime_error &e) {
-    die(e.what());
-  }
-  if (o.in.empty()) die("usage: fastjet-ref [options] input.jsonl [--out output.jsonl]");
-
-  try {
+    const auto extra = [&](const std::string &a, int &) {
+      if (a != "--debug") return false;
+      o.debug = true;
+      return true;
+    };
+    splitfield_ref::parse_options(o, argc, argv, extra, "usage: fastjet-ref [options] input.jsonl [--out output.jsonl]");
     c.jetdef = splitfield_ref::jet_definition(o);
   } catch (const std::runtime_error &e) {
     die(e.what());
@@ -306,7 +285,11 @@ int main(int argc, char **argv) {
   if (!c.events && content != "jets") die("unknown content " + content);
   if (momentum == "pt,y,phi,m") c.ptForm = true;
   else if (momentum != "px,py,pz,E") die("unknown momentum " + momentum);
-  c.k = to_gev(header.value("energyUnit", "GeV"));
+  try {
+    c.k = splitfield_ref::to_gev(header.value("energyUnit", "GeV"));
+  } catch (const std::runtime_error &e) {
+    die(e.what());
+  }
 
   splitfield_ref::write_export_header(c.out, o, content, "fastjet-ref");
 

@@ -248,13 +248,6 @@ std::string headerField(const std::string &line, const char *key, const char *de
   }
 }
 
-double toGeV(const std::string &unit) {
-  if (unit == "GeV") return 1;
-  if (unit == "MeV") return 1e-3;
-  if (unit == "TeV") return 1e3;
-  die("unknown energyUnit " + unit);
-}
-
 // ---- the physics of one record ----
 struct Context {
   Options o;
@@ -279,15 +272,7 @@ void toPseudoJets(Context &c, const std::vector<double> &p, std::vector<PseudoJe
   out.clear();
   out.reserve(p.size() / 4);
   for (size_t i = 0; i + 3 < p.size(); i += 4) {
-    const double a = p[i], b = p[i + 1], cc = p[i + 2], d = p[i + 3];
-    if (c.ptForm) {
-      // Same arithmetic as lib/physics/fourvector.ts fromPtYPhiM.
-      const double pt = a * c.k, m = d * c.k;
-      const double mt = std::sqrt(pt * pt + m * m);
-      out.emplace_back(pt * std::cos(cc), pt * std::sin(cc), mt * std::sinh(b), mt * std::cosh(b));
-    } else {
-      out.emplace_back(a * c.k, b * c.k, cc * c.k, d * c.k);
-    }
+    out.push_back(splitfield_ref::particle(p[i], p[i + 1], p[i + 2], p[i + 3], c.ptForm, c.k));
   }
 }
 
@@ -453,21 +438,15 @@ int main(int argc, char **argv) {
   Context c;
   Options &o = c.o;
   try {
-    for (int i = 1; i < argc; i++) {
-      if (splitfield_ref::common_option(o, i, argc, argv)) continue;
-      const std::string a = argv[i];
+    const auto extra = [&](const std::string &a, int &i) {
       if (a == "--timings") o.timings = true;
       else if (a == "--physics-only") o.physicsOnly = true;
       else if (a == "--rounds") o.rounds = static_cast<long>(splitfield_ref::number_arg(i, argc, argv));
       else if (a == "--min-seconds") o.minSeconds = splitfield_ref::number_arg(i, argc, argv);
-      else die("unknown option " + a);
-    }
-  } catch (const std::runtime_error &e) {
-    die(e.what());
-  }
-  if (o.in.empty()) die("usage: fastjet-speed [options] input.jsonl [--out output.jsonl]");
-
-  try {
+      else return false;
+      return true;
+    };
+    splitfield_ref::parse_options(o, argc, argv, extra, "usage: fastjet-speed [options] input.jsonl [--out output.jsonl]");
     c.jetdef = splitfield_ref::jet_definition(o);
   } catch (const std::runtime_error &e) {
     die(e.what());
@@ -498,7 +477,11 @@ int main(int argc, char **argv) {
   if (!c.events && content != "jets") die("unknown content " + content);
   if (momentum == "pt,y,phi,m") c.ptForm = true;
   else if (momentum != "px,py,pz,E") die("unknown momentum " + momentum);
-  c.k = toGeV(headerField(header, "energyUnit", "GeV"));
+  try {
+    c.k = splitfield_ref::to_gev(headerField(header, "energyUnit", "GeV"));
+  } catch (const std::runtime_error &e) {
+    die(e.what());
+  }
 
   Record r;
   if (o.physicsOnly) {
