@@ -357,6 +357,7 @@ async function memorySection(): Promise<void> {
 
 async function main(): Promise<void> {
   if (!existsSync(BIN)) throw new Error('node_modules/.bin/splitfield is missing: run npm install (it links the command)');
+  if (!existsSync('/usr/bin/time')) throw new Error('the benchmark measures CPU time and peak memory with /usr/bin/time: apt-get install -y time');
   // Builds the engine bundle now if it is stale, so that no timed run includes a build.
   execFileSync(BIN, ['decluster', '--version'], { stdio: 'ignore' });
   await bundleTools();
