@@ -9,7 +9,7 @@ import type { ProcessSettings, RemovedParticles } from '@/lib/physics/types';
  */
 export type SampleSettings = Omit<ProcessSettings, 'content'>;
 
-/** Settings as stored and as the API answers: every field filled (lib/samples/settings.ts). */
+/** Settings as stored and as the API answers: every field filled (lib/ingest/settings.ts). */
 export type CompleteSampleSettings = Required<SampleSettings>;
 
 /** How far a job is; null fields are not known yet. */

@@ -1,7 +1,7 @@
 // The processing settings of an upload as form fields. The rules and defaults are the server's own
-// (lib/samples/settings.ts), checked here too so that obvious mistakes show before the file is sent.
+// (lib/ingest/settings.ts), checked here too so that obvious mistakes show before the file is sent.
 
-import { defaultSettings, settingsInputSchema } from '@/lib/samples/settings';
+import { defaultSettings, settingsInputSchema } from '@/lib/ingest/settings';
 import type { SampleSettings } from '@/models/sample-fields';
 
 export const ALGORITHM_NAMES: Record<SampleSettings['jet']['algorithm'], string> = {

@@ -8,7 +8,7 @@ import { writeGeneratedSampleFile } from '@/lib/ingest/generated-sample-file';
 import { demoSampleSpec } from './scenario';
 import type { Parton } from '@/lib/physics/lo-density';
 import type { Models } from '@/models';
-import { settingsInputSchema, settingsKey } from '../samples/settings';
+import { settingsInputSchema, settingsKey } from '../ingest/settings';
 import { newUploadFileName, sampleStorage, uploadPath } from '../samples/storage';
 
 export const DEMO_SAMPLE_JETS = 3000;

@@ -5,7 +5,7 @@ import type { JetResult, ProcessSettings, RecordResult, RemovedParticles } from 
 import { REMOVED_RULES } from '../physics/types';
 import type { PlainIngestError } from './errors';
 import type { RecordContext } from './types';
-import type { RecordMeta } from './pipeline/sink';
+import type { BatchCounts, RecordMeta, StageTimes, WorkerFormat } from './pipeline/sink';
 import type { ParticleRecord } from './types';
 
 /** Records already parsed (in the main thread), particles back to back. */
@@ -35,6 +35,10 @@ export interface LinesTask {
   context: RecordContext;
   /** Go on after a bad record (report it in `problems`), else stop at the first. */
   skipBad: boolean;
+  /** The sink's text to make here (the export), if any. */
+  sinkFormat: WorkerFormat | null;
+  /** Measure the worker's stages (parse, physics, format). */
+  timings: boolean;
 }
 
 export type WorkerTask = PackedTask | LinesTask;
@@ -59,6 +63,14 @@ export interface WorkerResult {
   problems: { before: number; error: PlainIngestError }[];
   /** A record whose processing threw: its index among the processed records, and the message. */
   error: { index: number; message: string } | null;
+  /**
+   * Lines tasks with a sinkFormat: the sink's text (UTF-8) of the processed records and their counts; the results
+   * themselves are not sent (perRecord, jets, primary and all are empty), and `meta` holds only the lines.
+   */
+  bytes: Uint8Array | null;
+  counts: BatchCounts | null;
+  /** Lines tasks with timings: the worker's stage times (seconds). */
+  times: Pick<StageTimes, 'parse' | 'physics' | 'format'> | null;
 }
 
 export function packTask(records: ParticleRecord[], settings: ProcessSettings): PackedTask {
@@ -154,7 +166,7 @@ export function packResults(results: RecordResult[], error: WorkerResult['error'
       }
     }
   }
-  return { perRecord, jets, primary, all, meta: null, problems: [], error };
+  return { perRecord, jets, primary, all, meta: null, problems: [], error, bytes: null, counts: null, times: null };
 }
 
 /** The number of records a worker result holds. */
@@ -215,5 +227,6 @@ export function unpackMeta(w: WorkerResult): RecordMeta[] {
 export function resultBuffers(r: WorkerResult): ArrayBuffer[] {
   const b = [r.perRecord.buffer, r.jets.buffer, r.primary.buffer, r.all.buffer] as ArrayBuffer[];
   if (r.meta) b.push(r.meta.weights.buffer as ArrayBuffer, r.meta.lines.buffer as ArrayBuffer, r.meta.nParticles.buffer as ArrayBuffer);
+  if (r.bytes) b.push(r.bytes.buffer as ArrayBuffer);
   return b;
 }

@@ -8,7 +8,7 @@ import { IngestError } from './errors';
 import { parseHepMCEventInto } from './hepmc3-reader';
 import { ParticleScratch, parseRecordLineInto } from './record';
 import type { RecordContext } from './types';
-import type { RecordMeta } from './pipeline/sink';
+import type { RecordMeta, StageTimes } from './pipeline/sink';
 
 export interface LineBatchOutcome {
   /** The good records, in order, and their results. */
@@ -28,11 +28,14 @@ export function processLineBatch(
   settings: ProcessSettings,
   skipBad: boolean,
   scratch: ParticleScratch,
+  /** Adds the time spent parsing and in the physics here, when given. */
+  times: Pick<StageTimes, 'parse' | 'physics'> | null = null,
 ): LineBatchOutcome {
   const metas: RecordMeta[] = [];
   const results: RecordResult[] = [];
   const problems: LineBatchOutcome['problems'] = [];
   let error: LineBatchOutcome['error'] = null;
+  let t = times ? performance.now() : 0;
   for (let i = 0; i < lines.length; i++) {
     let rec;
     try {
@@ -44,11 +47,21 @@ export function processLineBatch(
       continue;
     }
     metas.push({ line: rec.line, id: rec.id, weight: rec.weight, nParticles: rec.n });
+    if (times) {
+      const now = performance.now();
+      times.parse += (now - t) / 1000;
+      t = now;
+    }
     try {
       results.push(processRecord(scratch.buf.subarray(0, 4 * rec.n), rec, settings));
     } catch (e) {
       error = { index: results.length, message: e instanceof Error ? e.message : String(e) };
       break;
+    }
+    if (times) {
+      const now = performance.now();
+      times.physics += (now - t) / 1000;
+      t = now;
     }
   }
   return { metas, results, problems, error };

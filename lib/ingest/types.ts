@@ -84,3 +84,11 @@ export interface RawLineSource {
 }
 
 export const MAX_KEPT_SKIP_ERRORS = 20;
+
+/** How jet lines are written: e+e- jets carry E and theta for pt and y; tagged jets carry their flavour. */
+export interface JetLineStyle {
+  /** The lines carry "all", every splitting of the C/A tree. */
+  fullTree: boolean;
+  ee: boolean;
+  flavour: boolean;
+}

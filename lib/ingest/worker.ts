@@ -6,6 +6,8 @@ import { move, transferableSymbol, valueSymbol } from 'piscina';
 import { processRecord } from '../physics/process-record';
 import type { RecordResult } from '../physics/types';
 import { packResults, resultBuffers, type LinesTask, type PackedTask, type WorkerResult, type WorkerTask } from './codec';
+import { formatForSink } from './export';
+import { countBatch } from './pipeline/delivery';
 import { processLineBatch } from './process-lines';
 import { ParticleScratch } from './record';
 
@@ -33,15 +35,28 @@ function processPacked(task: PackedTask): WorkerResult {
 }
 
 function processLines(task: LinesTask): WorkerResult {
-  const o = processLineBatch(task.format, task.lines, task.lineNos, task.context, task.settings, task.skipBad, scratch);
-  const r = packResults(o.results, o.error);
+  const times = task.timings ? { parse: 0, physics: 0, format: 0 } : null;
+  const o = processLineBatch(task.format, task.lines, task.lineNos, task.context, task.settings, task.skipBad, scratch, times);
   const m = o.metas;
-  r.meta = {
-    ids: m.map((x) => x.id),
-    weights: Float64Array.from(m, (x) => x.weight),
-    lines: Float64Array.from(m, (x) => x.line),
-    nParticles: Float64Array.from(m, (x) => x.nParticles),
-  };
+  let r: WorkerResult;
+  if (task.sinkFormat) {
+    // The sink's text and the counts are all the main thread needs (and the lines, for messages).
+    const t = performance.now();
+    r = packResults([], o.error);
+    r.bytes = formatForSink(task.sinkFormat, m, o.results);
+    r.counts = countBatch(m, o.results);
+    if (times) times.format += (performance.now() - t) / 1000;
+    r.meta = { ids: [], weights: new Float64Array(0), lines: Float64Array.from(m, (x) => x.line), nParticles: new Float64Array(0) };
+  } else {
+    r = packResults(o.results, o.error);
+    r.meta = {
+      ids: m.map((x) => x.id),
+      weights: Float64Array.from(m, (x) => x.weight),
+      lines: Float64Array.from(m, (x) => x.line),
+      nParticles: Float64Array.from(m, (x) => x.nParticles),
+    };
+  }
+  r.times = times;
   r.problems = o.problems.map((p) => ({ before: p.before, error: p.error.toPlain() }));
   return r;
 }

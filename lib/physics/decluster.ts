@@ -19,10 +19,12 @@ const PI = Math.PI;
 /**
  * Re-clusters the particles loaded in ws with Cambridge/Aachen so that all end in one jet: the radius is
  * infinite, i.e. d_iB is never the smallest distance while two jets remain (FastJet gives the same tree with
- * R = JetDefinition::max_allowable_R = 1000 as long as all ΔR < 1000). Returns the root node (−1 if empty).
+ * R = JetDefinition::max_allowable_R = 1000 as long as all ΔR < 1000). The plain loop below
+ * GRID_MIN_PARTICLES constituents (FastJet's own N2Plain order, exact ties included), the C/A grid above.
+ * Returns the root node (−1 if empty).
  */
 export function reclusterCA(ws: ClusterWorkspace): number {
-  cluster(ws, { p: 0, R: Infinity, strategy: 'plain' });
+  cluster(ws, { p: 0, R: Infinity });
   return ws.nJets > 0 ? ws.jets[0] : -1;
 }
 

@@ -4,7 +4,7 @@
 // together with the event; a jet whose constituents hold a ghost is tagged by it, b outranking c; other jets are
 // light. Ghosts are numbered after the real particles, so a constituent index tells them apart.
 
-import { FLAVOUR_LIGHT, heavyFlavour } from './particle-id';
+import { FLAVOUR_B, FLAVOUR_C, FLAVOUR_LIGHT, heavyFlavour } from './particle-id';
 import type { ClusterWorkspace } from './clustering';
 import type { RecordExtras } from './types';
 
@@ -58,4 +58,10 @@ export function jetFlavour(ws: ClusterWorkspace, k: number, tags: GhostTags): nu
     }
   }
   return f;
+}
+
+/** The tag's name in files and the API: "b", "c", "light"; null for no tag. */
+export function flavourName(f: number | undefined): 'b' | 'c' | 'light' | null {
+  if (f === undefined || f < 0) return null;
+  return f === FLAVOUR_B ? 'b' : f === FLAVOUR_C ? 'c' : 'light';
 }

@@ -15,7 +15,7 @@ import type { IngestHeader } from '@/lib/ingest/header';
 import type { RecordMeta } from '@/lib/ingest/pipeline/sink';
 import { type JetResult, type RecordResult, S_GENERATION, SPLIT_STRIDE } from '@/lib/physics/types';
 import type { Sample } from '@/models/sample';
-import { completeSettings } from './settings';
+import { completeSettings } from '../ingest/settings';
 
 const JETS_PER_CHUNK = 4096;
 const SPLITTINGS_PER_BLOCK = 65_536;

@@ -1,7 +1,7 @@
 // GET …/jets: one page of a sample's jet table, in file order or sorted by a column (undefined values last).
 import { z } from 'zod';
 import type { ColumnReader, JetColumnName, JetRow } from '@/lib/ingest/columns';
-import { flavourName } from '@/lib/ingest/pipeline/flavour-counts';
+import { flavourName } from '@/lib/physics/flavour';
 import type { JetRowView } from './shapes';
 import { orderParam, wholeNumberParam } from './query-params';
 

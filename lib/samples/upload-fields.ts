@@ -9,7 +9,7 @@ import {
   SAMPLE_TAG_MAX,
   SAMPLE_TAGS_MAX,
 } from '@/models/vocabulary';
-import { settingsInputSchema } from './settings';
+import { settingsInputSchema } from '../ingest/settings';
 
 /** Text that must be JSON; the parsed value goes on to `schema`. */
 function jsonText<T>(field: string, schema: z.ZodType<T>) {

@@ -14,7 +14,7 @@ import { sampleIncludes, visibleStudyIds, type LoadedSample } from './access';
 import { readSampleConfig } from './config';
 import { fileNameProblem } from './file-name';
 import { receiveUpload, type ReceivedFile } from './multipart-upload';
-import { settingsKey } from './settings';
+import { settingsKey } from '../ingest/settings';
 import { createSharingSample } from './sharing';
 import { sampleStorage } from './storage';
 import { uploadFieldsSchema, type UploadFields } from './upload-fields';

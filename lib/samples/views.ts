@@ -1,7 +1,7 @@
 // How samples look in API responses (the shapes of lib/samples/shapes.ts).
 import type { StudyRole } from '@/models/vocabulary';
 import type { LoadedSample } from './access';
-import { completeSettings } from './settings';
+import { completeSettings } from '../ingest/settings';
 import type { SampleDetail, SampleProvenance, SampleSummary } from './shapes';
 
 function personRef(user: LoadedSample['uploadedBy']) {

@@ -162,3 +162,21 @@ describe('large events (tiled strategies on both sides) vs FastJet (Reference: F
     });
   }
 });
+
+describe("the engine benchmark's sizes vs FastJet (Reference: FastJet 3.4.0 (Debian libfastjet-dev))", () => {
+  // Events as `npm run bench` makes them (one spray per 100 particles, at least 3; 30 % massive particles), at
+  // 100, 1 000 and 10 000 particles, for the three algorithms and radii it times; the largest inputs stay in the
+  // benchmark (its outputs are compared with fastjet-speed's too).
+  const shape = (n: number) => ({ nParticles: n, nJets: Math.max(3, Math.round(n / 100)), massiveFraction: 0.3 });
+  for (const algorithm of ['antikt', 'kt', 'ca'] as const) {
+    for (const R of [0.4, 0.8, 1.2]) {
+      it(`${algorithm}, R = ${R}: 100, 1 000 and 10 000 particles`, () => {
+        const seed = 9000 + R * 10 + (algorithm === 'kt' ? 1 : algorithm === 'ca' ? 2 : 0);
+        const events = [...generateEvents(seed, 3, shape(100)), ...generateEvents(seed + 1, 1, shape(1000)), ...generateEvents(seed + 2, 1, shape(10000))];
+        const c = crossCheck('events', events, { algorithm, R, all: true });
+        expectAgreement(c, 20);
+        expect(c.ours[4].jets.length).toBeGreaterThan(8);
+      });
+    }
+  }
+});

@@ -1,11 +1,13 @@
-// fastjet-ref: the reference implementation the physics tests and the benchmark compare Splitfield against.
-// Reference: FastJet 3.4.0 (Debian libfastjet-dev). Only for tests and the benchmark; never used at run time.
+// fastjet-ref: the reference implementation the physics tests compare Splitfield against.
+// Reference: FastJet 3.4.0 (Debian libfastjet-dev). Only for tests; never used at run time. It reads its input
+// with a JSON DOM library (nlohmann-json), which accepts every form of the input format and lets the tests ask
+// for extras (--debug); the benchmark's speed reference is fastjet-speed.cc (same physics, declustering.hh).
 //
 // Reads a `splitfield-particles` file (JSON Lines or the one-document form; content events|jets; momentum
 // px,py,pz,E or pt,y,phi,m; energy unit GeV|MeV|TeV) and writes the `splitfield-declusterings` export of
 // DESIGN.md: a header line, then one line a selected jet, numbers with 17 significant digits (non-finite → null).
 //
-// Physics (PHYSICS.md): jets with FastJet's own JetDefinition(algorithm, R) (E-scheme, strategy Best), cuts in
+// Physics (PHYSICS.md, shared with fastjet-speed.cc in declustering.hh): jets with FastJet's own JetDefinition(algorithm, R) (E-scheme, strategy Best), cuts in
 // order pt > ptmin, |y| < ymax, at most njets leading jets; each jet is re-clustered with FastJet's
 // Cambridge/Aachen at R = JetDefinition::max_allowable_R (all constituents end in one jet) and declustered with
 // ClusterSequence::has_parents: j → a, b with pt_a ≥ pt_b (primary-emission plane, arXiv:1807.04758);
@@ -33,6 +35,8 @@
 #include <fastjet/EECambridgePlugin.hh>
 #include <nlohmann/json.hpp>
 
+#include "declustering.hh"
+
 #include <cmath>
 #include <cstdio>
 #include <cstdlib>
@@ -48,15 +52,12 @@ using fastjet::ClusterSequence;
 using fastjet::JetDefinition;
 using fastjet::PseudoJet;
 using json = nlohmann::json;
+using splitfield_ref::Split;
 
 namespace {
 
-struct Options {
-  double R = 0.4, ptmin = 20, ymax = 2.5;
-  long njets = -1;
-  std::string algorithm = "antikt";
-  bool all = false;
-  double zcut = 0.1, beta = 0, R0 = -1, ktcut = 1;
+struct Options : splitfield_ref::CommonOptions {
+  bool debug = false;
   long exclusiveN = -1;
   double dcut = -1, ycut = -1;
   bool ee = false;
@@ -65,8 +66,6 @@ struct Options {
   bool dropNeutrinos = false, chargedOnly = false, useEta = false;
   std::set<long> pidInclude, pidExclude;
   double cptmin = 0, crapmax = -1;
-  bool debug = false;
-  std::string in, out;
 };
 
 [[noreturn]] void die(const std::string &msg) {
@@ -90,102 +89,6 @@ struct Out {
   void raw(const char *t) { s += t; }
   void raw(const std::string &t) { s += t; }
 };
-
-const double PI = 3.141592653589793238462643383279502884197;
-const double TWOPI = 2 * PI;
-
-// One splitting j -> a, b (pt_a >= pt_b), fields in the order of lib/physics/types.ts SPLIT_FIELDS.
-struct Split {
-  double f[9];
-};
-
-// has_parents already orders the parents by decreasing pt (parent1 = earlier history entry on a tie);
-// the swap below is a no-op kept for clarity. Returns the harder branch in `harder`, the softer in `softer`.
-Split make_split(const PseudoJet &j, PseudoJet a, PseudoJet b, int gen, PseudoJet &harder, PseudoJet &softer) {
-  if (a.pt2() < b.pt2()) std::swap(a, b);
-  const double delta = a.delta_R(b);
-  const double pta = a.pt(), ptb = b.pt();
-  const double z = ptb / (pta + ptb);
-  const double kt = ptb * delta;
-  double sphi = b.phi() - a.phi();
-  if (sphi > PI) sphi -= TWOPI;
-  else if (sphi <= -PI) sphi += TWOPI;
-  Split s;
-  s.f[0] = std::log(1.0 / delta);
-  s.f[1] = std::log(kt);
-  s.f[2] = z;
-  s.f[3] = delta;
-  s.f[4] = kt;
-  s.f[5] = std::atan2(b.rap() - a.rap(), sphi);
-  s.f[6] = j.m();
-  s.f[7] = z * delta;
-  s.f[8] = gen;
-  harder = a;
-  softer = b;
-  return s;
-}
-
-// e+e- splitting (PHYSICS.md): E_a >= E_b (on a tie has_parents' order), theta = opening angle,
-// kt = E_b sin(theta), z = E_b/(E_a+E_b), psi = atan2(-p_b.e_theta(a), p_b.e_phi(a)).
-Split make_split_ee(const PseudoJet &j, PseudoJet a, PseudoJet b, int gen, PseudoJet &harder, PseudoJet &softer) {
-  if (a.E() < b.E()) std::swap(a, b);
-  const double ax = a.px(), ay = a.py(), az = a.pz(), bx = b.px(), by = b.py(), bz = b.pz();
-  const double cx = ay * bz - az * by, cy = az * bx - ax * bz, cz = ax * by - ay * bx;
-  const double cross = std::sqrt(cx * cx + cy * cy + cz * cz);
-  const double dot = ax * bx + ay * by + az * bz;
-  const double theta = std::atan2(cross, dot);
-  const double magA = std::sqrt(ax * ax + ay * ay + az * az), magB = std::sqrt(bx * bx + by * by + bz * bz);
-  const double z = b.E() / (a.E() + b.E());
-  const double kt = b.E() * (cross / (magA * magB));
-  const double ptA = std::sqrt(a.pt2());
-  const double cosPhi = ptA > 0 ? ax / ptA : 1, sinPhi = ptA > 0 ? ay / ptA : 0;
-  const double cosTheta = az / magA, sinTheta = ptA / magA;
-  const double alongTheta = cosTheta * (cosPhi * bx + sinPhi * by) - sinTheta * bz;
-  const double alongPhi = -sinPhi * bx + cosPhi * by;
-  Split s;
-  s.f[0] = std::log(1.0 / theta);
-  s.f[1] = std::log(kt);
-  s.f[2] = z;
-  s.f[3] = theta;
-  s.f[4] = kt;
-  s.f[5] = std::atan2(-alongTheta, alongPhi);
-  s.f[6] = j.m();
-  s.f[7] = z * theta;
-  s.f[8] = gen;
-  harder = a;
-  softer = b;
-  return s;
-}
-
-bool g_ee = false;
-
-Split split_of(const PseudoJet &j, const PseudoJet &p1, const PseudoJet &p2, int gen, PseudoJet &a, PseudoJet &b) {
-  return g_ee ? make_split_ee(j, p1, p2, gen, a, b) : make_split(j, p1, p2, gen, a, b);
-}
-
-void primary_sequence(const ClusterSequence &cs, const PseudoJet &root, std::vector<Split> &out) {
-  PseudoJet j = root, p1, p2, a, b;
-  while (cs.has_parents(j, p1, p2)) {
-    out.push_back(split_of(j, p1, p2, 1, a, b));
-    j = a;
-  }
-}
-
-// Depth first, harder branch first; generation = 1 + softer branches followed from the root.
-void full_tree(const ClusterSequence &cs, const PseudoJet &j, int gen, std::vector<Split> &out) {
-  PseudoJet p1, p2, a, b;
-  if (!cs.has_parents(j, p1, p2)) return;
-  out.push_back(split_of(j, p1, p2, gen, a, b));
-  full_tree(cs, a, gen, out);
-  full_tree(cs, b, gen + 1, out);
-}
-
-double to_gev(const std::string &unit) {
-  if (unit == "GeV") return 1;
-  if (unit == "MeV") return 1e-3;
-  if (unit == "TeV") return 1e3;
-  die("unknown energyUnit " + unit);
-}
 
 struct Context {
   Options o;
@@ -225,22 +128,12 @@ void write_splits(Out &o, const std::vector<Split> &v, const int *fields, int nf
 void write_jet(Context &c, const std::string &rec, int index, const PseudoJet &jet, size_t n, double weight,
                const ClusterSequence &ca, const PseudoJet &root) {
   std::vector<Split> prim, all;
-  primary_sequence(ca, root, prim);
-  if (c.o.all) full_tree(ca, root, 1, all);
-  // SoftDrop on the primary sequence.
-  double mg = NAN, zg = NAN, rg = NAN;
-  const double R0 = c.o.R0 > 0 ? c.o.R0 : c.o.R;
-  for (const Split &s : prim) {
-    if (s.f[2] > c.o.zcut * std::pow(s.f[3] / R0, c.o.beta)) {
-      mg = s.f[6];
-      zg = s.f[2];
-      rg = s.f[3];
-      break;
-    }
-  }
-  long mult = 0;
-  for (const Split &s : prim)
-    if (s.f[4] > c.o.ktcut) mult++;
+  splitfield_ref::primary_sequence(ca, root, prim, c.o.ee);
+  if (c.o.all) splitfield_ref::full_tree(ca, root, 1, all, c.o.ee);
+  const splitfield_ref::Observables obs =
+      splitfield_ref::observables(prim, c.o.zcut, c.o.beta, c.o.R0 > 0 ? c.o.R0 : c.o.R, c.o.ktcut);
+  const double mg = obs.mg, zg = obs.zg, rg = obs.rg;
+  const long mult = obs.mult;
 
   Out &o = c.out;
   o.raw("{\"rec\":");
@@ -337,15 +230,7 @@ void process_record(Context &c, const json &r, long defaultId) {
   std::vector<PseudoJet> particles;
   particles.reserve(ps.size());
   for (const json &p : ps) {
-    const double a = p[0].get<double>(), b = p[1].get<double>(), cc = p[2].get<double>(), d = p[3].get<double>();
-    if (c.ptForm) {
-      // Same arithmetic as lib/physics/fourvector.ts fromPtYPhiM.
-      const double pt = a * c.k, m = d * c.k;
-      const double mt = std::sqrt(pt * pt + m * m);
-      particles.emplace_back(pt * std::cos(cc), pt * std::sin(cc), mt * std::sinh(b), mt * std::cosh(b));
-    } else {
-      particles.emplace_back(a * c.k, b * c.k, cc * c.k, d * c.k);
-    }
+    particles.push_back(splitfield_ref::particle(p[0].get<double>(), p[1].get<double>(), p[2].get<double>(), p[3].get<double>(), c.ptForm, c.k));
   }
   Removed rm;
   if (selection_active(c.o)) particles = select_particles(c.o, particles, r, rm);
@@ -440,12 +325,31 @@ std::set<long> id_list(int &i, int argc, char **argv) {
   return out;
 }
 
-double num_arg(int &i, int argc, char **argv) {
+std::string text_arg(int &i, int argc, char **argv) {
   if (i + 1 >= argc) die(std::string("missing value after ") + argv[i]);
-  char *end = nullptr;
-  const double v = std::strtod(argv[++i], &end);
-  if (!end || *end) die(std::string("not a number: ") + argv[i]);
-  return v;
+  return argv[++i];
+}
+
+// The options of this program beyond the common ones (declustering.hh): false when `a` is none of them.
+bool own_option(Options &o, const std::string &a, int &i, int argc, char **argv) {
+  using splitfield_ref::number_arg;
+  if (a == "--debug") o.debug = true;
+  else if (a == "--exclusive-n") o.exclusiveN = static_cast<long>(number_arg(i, argc, argv));
+  else if (a == "--dcut") o.dcut = number_arg(i, argc, argv);
+  else if (a == "--ycut") o.ycut = number_arg(i, argc, argv);
+  else if (a == "--collision") o.ee = text_arg(i, argc, argv) == "ee";
+  else if (a == "--ee-algorithm") o.eeAlgorithm = text_arg(i, argc, argv);
+  else if (a == "--ee-p") o.eeP = number_arg(i, argc, argv);
+  else if (a == "--emin") o.emin = number_arg(i, argc, argv);
+  else if (a == "--drop-neutrinos") o.dropNeutrinos = true;
+  else if (a == "--charged-only") o.chargedOnly = true;
+  else if (a == "--constituent-ptmin") o.cptmin = number_arg(i, argc, argv);
+  else if (a == "--constituent-rapmax") o.crapmax = number_arg(i, argc, argv);
+  else if (a == "--constituent-eta") o.useEta = true;
+  else if (a == "--pid-include") o.pidInclude = id_list(i, argc, argv);
+  else if (a == "--pid-exclude") o.pidExclude = id_list(i, argc, argv);
+  else return false;
+  return true;
 }
 
 }  // namespace
@@ -453,57 +357,17 @@ double num_arg(int &i, int argc, char **argv) {
 int main(int argc, char **argv) {
   Context c;
   Options &o = c.o;
-  for (int i = 1; i < argc; i++) {
-    const std::string a = argv[i];
-    if (a == "--R") o.R = num_arg(i, argc, argv);
-    else if (a == "--ptmin") o.ptmin = num_arg(i, argc, argv);
-    else if (a == "--ymax") o.ymax = num_arg(i, argc, argv);
-    else if (a == "--njets") o.njets = static_cast<long>(num_arg(i, argc, argv));
-    else if (a == "--algorithm") {
-      if (i + 1 >= argc) die("missing value after --algorithm");
-      o.algorithm = argv[++i];
-    } else if (a == "--all") o.all = true;
-    else if (a == "--zcut") o.zcut = num_arg(i, argc, argv);
-    else if (a == "--beta") o.beta = num_arg(i, argc, argv);
-    else if (a == "--R0") o.R0 = num_arg(i, argc, argv);
-    else if (a == "--ktcut") o.ktcut = num_arg(i, argc, argv);
-    else if (a == "--debug") o.debug = true;
-    else if (a == "--exclusive-n") o.exclusiveN = static_cast<long>(num_arg(i, argc, argv));
-    else if (a == "--dcut") o.dcut = num_arg(i, argc, argv);
-    else if (a == "--ycut") o.ycut = num_arg(i, argc, argv);
-    else if (a == "--collision") {
-      if (i + 1 >= argc) die("missing value after --collision");
-      o.ee = std::string(argv[++i]) == "ee";
-    } else if (a == "--ee-algorithm") {
-      if (i + 1 >= argc) die("missing value after --ee-algorithm");
-      o.eeAlgorithm = argv[++i];
-    } else if (a == "--ee-p") o.eeP = num_arg(i, argc, argv);
-    else if (a == "--emin") o.emin = num_arg(i, argc, argv);
-    else if (a == "--drop-neutrinos") o.dropNeutrinos = true;
-    else if (a == "--charged-only") o.chargedOnly = true;
-    else if (a == "--constituent-ptmin") o.cptmin = num_arg(i, argc, argv);
-    else if (a == "--constituent-rapmax") o.crapmax = num_arg(i, argc, argv);
-    else if (a == "--constituent-eta") o.useEta = true;
-    else if (a == "--pid-include") o.pidInclude = id_list(i, argc, argv);
-    else if (a == "--pid-exclude") o.pidExclude = id_list(i, argc, argv);
-    else if (a == "--out") {
-      if (i + 1 >= argc) die("missing value after --out");
-      o.out = argv[++i];
-    } else if (!a.empty() && a[0] == '-' && a != "-") die("unknown option " + a);
-    else o.in = a;
+  try {
+    const auto extra = [&](const std::string &a, int &i) { return own_option(o, a, i, argc, argv); };
+    splitfield_ref::parse_options(o, argc, argv, extra, "usage: fastjet-ref [options] input.jsonl [--out output.jsonl]");
+    // Exclusive jets: FastJet's N2Plain, whose order of equal distances (C/A: every d_iB = 1) the engine follows.
+    const bool exclusive = o.exclusiveN >= 0 || o.dcut >= 0;
+    const JetDefinition best = splitfield_ref::jet_definition(o);
+    c.jetdef = exclusive ? JetDefinition(best.jet_algorithm(), o.R, fastjet::E_scheme, fastjet::N2Plain) : best;
+  } catch (const std::runtime_error &e) {
+    die(e.what());
   }
-  if (o.in.empty()) die("usage: fastjet-ref [options] input.jsonl [--out output.jsonl]");
-
-  fastjet::JetAlgorithm alg;
-  if (o.algorithm == "antikt") alg = fastjet::antikt_algorithm;
-  else if (o.algorithm == "kt") alg = fastjet::kt_algorithm;
-  else if (o.algorithm == "ca") alg = fastjet::cambridge_algorithm;
-  else die("unknown algorithm " + o.algorithm);
-  // Exclusive jets: FastJet's N2Plain, whose order of equal distances (C/A: every d_iB = 1) the engine follows.
-  const bool exclusive = o.exclusiveN >= 0 || o.dcut >= 0;
-  c.jetdef = exclusive ? JetDefinition(alg, o.R, fastjet::E_scheme, fastjet::N2Plain) : JetDefinition(alg, o.R);
-  c.cadef = JetDefinition(fastjet::cambridge_algorithm, JetDefinition::max_allowable_R);
-  g_ee = o.ee;
+  c.cadef = splitfield_ref::reclustering_definition();
   static fastjet::EECambridgePlugin eeTreePlugin(1e300);
   static fastjet::EECambridgePlugin eeJetPlugin(o.ycut);
   c.eeTreedef = JetDefinition(&eeTreePlugin);
@@ -554,42 +418,13 @@ int main(int argc, char **argv) {
   if (!c.events && content != "jets") die("unknown content " + content);
   if (momentum == "pt,y,phi,m") c.ptForm = true;
   else if (momentum != "px,py,pz,E") die("unknown momentum " + momentum);
-  c.k = to_gev(header.value("energyUnit", "GeV"));
-
-  {
-    // Same header layout as lib/ingest/export.ts (exportHeader), software = this program.
-    Out &h = c.out;
-    h.raw("{\"format\":\"splitfield-declusterings\",\"version\":1,\"content\":\"");
-    h.raw(content);
-    h.raw("\",\"jetDefinition\":{\"algorithm\":\"");
-    h.raw(o.algorithm);
-    h.raw("\",\"R\":");
-    h.num(o.R);
-    h.raw(",\"recombination\":\"E\"},\"cuts\":{\"ptMin\":");
-    h.num(o.ptmin);
-    h.raw(",\"yMax\":");
-    h.num(o.ymax);
-    h.raw(",\"maxJets\":");
-    if (o.njets >= 0) h.integer(o.njets);
-    else h.raw("null");
-    h.raw("},\"reclustering\":\"ca\",\"softDrop\":{\"zCut\":");
-    h.num(o.zcut);
-    h.raw(",\"beta\":");
-    h.num(o.beta);
-    h.raw(",\"R0\":");
-    h.num(o.R0 > 0 ? o.R0 : o.R);
-    h.raw("},\"multiplicityKtCut\":");
-    h.num(o.ktcut);
-    h.raw(",\"fullTree\":");
-    h.raw(o.all ? "true" : "false");
-    h.raw(",\"columns\":{\"primary\":[\"lnInvDelta\",\"lnKt\",\"z\",\"delta\",\"kt\",\"psi\",\"m\"],");
-    if (o.all) h.raw("\"all\":[\"generation\",\"lnInvDelta\",\"lnKt\",\"z\"],");
-    h.raw("\"sd\":[\"mg\",\"zg\",\"Rg\"]},\"software\":{\"name\":\"fastjet-ref\",\"version\":\"");
-    h.raw(FASTJET_VERSION);
-    h.raw("\",\"library\":\"FastJet ");
-    h.raw(FASTJET_VERSION);
-    h.raw(" (Debian libfastjet-dev)\"}}\n");
+  try {
+    c.k = splitfield_ref::to_gev(header.value("energyUnit", "GeV"));
+  } catch (const std::runtime_error &e) {
+    die(e.what());
   }
+
+  splitfield_ref::write_export_header(c.out, o, content, "fastjet-ref");
 
   if (oneDoc) {
     const json &recs = header.at("records");

@@ -1,6 +1,7 @@
 // Test helper around tests/reference/fastjet-ref.cc (Reference: FastJet 3.4.0 (Debian libfastjet-dev)):
-// compiles it when the binary is missing or older than the source, writes a splitfield-particles input file,
-// runs it, and parses its splitfield-declusterings output (with its --debug extras).
+// compiles it (and the benchmark's fastjet-speed.cc) when the binary is missing or older than its sources,
+// writes a splitfield-particles input file, runs it, and parses its splitfield-declusterings output (with its
+// --debug extras).
 
 import { execFileSync } from 'node:child_process';
 import { existsSync, mkdirSync, mkdtempSync, renameSync, rmSync, statSync, writeFileSync, readFileSync } from 'node:fs';
@@ -12,24 +13,42 @@ import { NO_SELECTION } from '../../lib/physics/constituent-selection';
 import type { EnergyUnit, MomentumConvention } from '../../lib/physics/fourvector';
 
 const here = path.dirname(fileURLToPath(import.meta.url));
-export const FASTJET_REF_SOURCE = path.join(here, 'fastjet-ref.cc');
-export const FASTJET_REF_BIN = path.join(here, 'bin', 'fastjet-ref');
+/**
+ * The two FastJet programs: fastjet-ref (the tests' reference: a JSON DOM reader, --debug extras) and
+ * fastjet-speed (the benchmark's speed reference: streaming hand-written reader). Both include declustering.hh.
+ */
+export type ReferenceProgram = 'fastjet-ref' | 'fastjet-speed';
 
-/** Builds the reference program if needed; returns the binary's path. Safe with parallel test files. */
-export function ensureFastjetRef(): string {
-  const fresh = existsSync(FASTJET_REF_BIN) && statSync(FASTJET_REF_BIN).mtimeMs >= statSync(FASTJET_REF_SOURCE).mtimeMs;
-  if (fresh) return FASTJET_REF_BIN;
-  if (!existsSync('/usr/include/fastjet/ClusterSequence.hh') || !existsSync('/usr/include/fastjet/EECambridgePlugin.hh') || !existsSync('/usr/include/nlohmann/json.hpp')) {
+const SHARED_SOURCE = path.join(here, 'declustering.hh');
+
+/** Builds a reference program (g++ -O2) if its binary is missing or older than its sources; returns its path. */
+export function ensureReferenceProgram(name: ReferenceProgram): string {
+  const source = path.join(here, `${name}.cc`);
+  const bin = path.join(here, 'bin', name);
+  const built = existsSync(bin) ? statSync(bin).mtimeMs : -Infinity;
+  if ([source, SHARED_SOURCE].every((f) => statSync(f).mtimeMs <= built)) return bin;
+  const headers = [
+    '/usr/include/fastjet/ClusterSequence.hh',
+    ...(name === 'fastjet-ref' ? ['/usr/include/nlohmann/json.hpp', '/usr/include/fastjet/EECambridgePlugin.hh'] : []),
+  ];
+  if (!headers.every((h) => existsSync(h))) {
     throw new Error(
       'The FastJet reference needs Debian packages libfastjet-dev libfastjettools-dev libfastjetplugins-dev nlohmann-json3-dev ' +
         '(scripts/ensure-debian-packages.sh installs them).',
     );
   }
-  mkdirSync(path.dirname(FASTJET_REF_BIN), { recursive: true });
-  const tmp = `${FASTJET_REF_BIN}.${process.pid}.tmp`;
-  execFileSync('g++', ['-O2', '-std=c++17', '-o', tmp, FASTJET_REF_SOURCE, '-lfastjettools', '-lfastjetplugins', '-lfastjet'], { stdio: 'pipe' });
-  renameSync(tmp, FASTJET_REF_BIN);
-  return FASTJET_REF_BIN;
+  mkdirSync(path.dirname(bin), { recursive: true });
+  // Safe with parallel test files: each builds into its own file, renamed into place.
+  const tmp = `${bin}.${process.pid}.tmp`;
+  const plugins = name === 'fastjet-ref' ? ['-lfastjetplugins'] : []; // the e+e- Cambridge plugin
+  execFileSync('g++', ['-O2', '-std=c++17', '-o', tmp, source, '-lfastjettools', ...plugins, '-lfastjet'], { stdio: 'pipe' });
+  renameSync(tmp, bin);
+  return bin;
+}
+
+/** Builds the tests' reference program if needed; returns the binary's path. */
+export function ensureFastjetRef(): string {
+  return ensureReferenceProgram('fastjet-ref');
 }
 
 export interface RefInputRecord {

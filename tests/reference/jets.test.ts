@@ -120,3 +120,20 @@ describe('pre-clustered jets vs FastJet (Reference: FastJet 3.4.0 (Debian libfas
     expect(c.jets).toBe(40);
   });
 });
+
+describe("single jets of the engine benchmark's sizes vs FastJet (Reference: FastJet 3.4.0 (Debian libfastjet-dev))", () => {
+  it('30, 300, 1 000 and 3 000 constituents (plain loop, then the C/A grid): every primary and full-tree splitting', () => {
+    const jets = [
+      ...generateJets(19, 10, { nConstituents: 30, spreadN: 0, massiveFraction: 0.3 }),
+      ...generateJets(20, 3, { nConstituents: 300, spreadN: 0, massiveFraction: 0.3 }),
+      ...generateJets(21, 2, { nConstituents: 1000, spreadN: 0, massiveFraction: 0.3 }),
+      ...generateJets(22, 1, { nConstituents: 3000, spreadN: 0, massiveFraction: 0.3 }),
+    ];
+    expect(jets.filter((p) => p.length / 4 >= GRID_MIN_PARTICLES)).toHaveLength(6);
+    const c = crossCheck('jets', jets, ALL_JETS);
+    expect(c.mismatches, c.mismatches.join('\n')).toEqual([]);
+    expect(c.jets).toBe(16);
+    // The full tree has n − 1 splittings a jet, all compared (and the primary ones besides).
+    expect(c.splittings).toBeGreaterThan(10 * 29 + 3 * 299 + 2 * 999 + 2999);
+  });
+});

@@ -6,7 +6,7 @@ import type { ProcessSettings } from '../../physics/types';
 import { IngestAbortError, IngestError } from '../errors';
 import type { ParticleReader, ParticleRecord } from '../types';
 import type { ResultDelivery } from './delivery';
-import type { RecordMeta } from './sink';
+import type { RecordMeta, StageTimes } from './sink';
 
 /** One run's reading and delivery, handed to the step that processes its batches. */
 export interface BatchRun {
@@ -20,6 +20,15 @@ export interface BatchRun {
   batchRecords: number;
   batchChars: number;
   signal?: AbortSignal;
+  /** Stage times accumulated here when the run was asked for them. */
+  stages: StageTimes | null;
+}
+
+/** Seconds since `t0` (a performance.now() value) added to a stage, when stages are measured. */
+export function addStage(run: BatchRun, stage: keyof StageTimes, t0: number): number {
+  const now = performance.now();
+  if (run.stages) run.stages[stage] += (now - t0) / 1000;
+  return now;
 }
 
 export function checkAbort(run: BatchRun): void {

@@ -4,7 +4,7 @@ import { FLAVOUR_B, FLAVOUR_C } from '../../physics/particle-id';
 import type { JetResult } from '../../physics/types';
 import type { PipelineCounts } from './sink';
 
-export function addFlavours(counts: PipelineCounts, jets: JetResult[]): void {
+export function addFlavours(counts: Pick<PipelineCounts, 'flavours'>, jets: JetResult[]): void {
   for (const j of jets) {
     if (j.flavour === undefined || j.flavour < 0) continue;
     const f = (counts.flavours ??= { b: 0, c: 0, light: 0 });
@@ -12,10 +12,4 @@ export function addFlavours(counts: PipelineCounts, jets: JetResult[]): void {
     else if (j.flavour === FLAVOUR_C) f.c++;
     else f.light++;
   }
-}
-
-/** The tag's name in files and the API: "b", "c", "light"; null for no tag. */
-export function flavourName(f: number | undefined): 'b' | 'c' | 'light' | null {
-  if (f === undefined || f < 0) return null;
-  return f === FLAVOUR_B ? 'b' : f === FLAVOUR_C ? 'c' : 'light';
 }

@@ -3,23 +3,39 @@
 
 import { processRecord } from '../../physics/process-record';
 import type { RecordResult } from '../../physics/types';
+import { formatForSink } from '../export';
 import { processLineBatch } from '../process-lines';
 import { ParticleScratch } from '../record';
-import { checkAbort, processingError, recordMeta, type BatchRun } from './batches';
+import { addStage, checkAbort, processingError, recordMeta, type BatchRun } from './batches';
+import { countBatch } from './delivery';
+import type { WorkerFormat } from './sink';
 
-export async function processInThisThread(run: BatchRun): Promise<void> {
+export async function processInThisThread(run: BatchRun, sinkFormat: WorkerFormat | null): Promise<void> {
   const { reader, settings, delivery, where } = run;
   const raw = reader.raw;
   if (raw) {
-    // Raw records (JSON Lines, HepMC3): parse into a reused buffer and process at once (the workers' code).
+    // Raw records (JSON Lines, HepMC3): parse into a reused buffer and process at once, and format for the sink
+    // (the workers' code).
     const scratch = new ParticleScratch();
-    for await (const b of raw.rawBatches(run.batchChars, run.batchRecords)) {
+    const batches = raw.rawBatches(run.batchChars, run.batchRecords);
+    let t = performance.now();
+    for (;;) {
+      const next = await batches.next();
+      t = addStage(run, 'read', t);
+      if (next.done) break;
+      const b = next.value;
       checkAbort(run);
-      const o = processLineBatch(raw.kind, b.lines, b.lineNos, raw.context, settings, raw.skipBad, scratch);
+      const o = processLineBatch(raw.kind, b.lines, b.lineNos, raw.context, settings, raw.skipBad, scratch, run.stages);
+      t = performance.now();
       for (const pr of o.problems) raw.rejected(pr.error);
       if (o.error) throw processingError(o.metas[o.error.index].line, where, o.error.message);
       raw.accepted(o.results.length);
-      await delivery.deliver(o.metas, o.results);
+      if (sinkFormat) {
+        const bytes = formatForSink(sinkFormat, o.metas, o.results);
+        t = addStage(run, 'format', t);
+        await delivery.deliverFormatted(bytes, countBatch(o.metas, o.results));
+      } else await delivery.deliver(o.metas, o.results);
+      t = addStage(run, 'delivery', t);
     }
     raw.finish();
     return;

@@ -16,7 +16,7 @@ import type { ParticleReader } from '../types';
 import { checkAbort, type BatchRun } from './batches';
 import { ResultDelivery } from './delivery';
 import { processInThisThread } from './in-thread';
-import type { PipelineProgress, PipelineSummary, ResultSink } from './sink';
+import { noStageTimes, type PipelineProgress, type PipelineSummary, type ResultSink } from './sink';
 import { WorkerPoolProcessing } from './worker-pool';
 
 /** Settings of a run; `content` comes from the input's header. */
@@ -41,6 +41,8 @@ export interface PipelineOptions {
   workerFile?: string;
   /** Use this pool instead of creating one (it is not destroyed at the end). */
   pool?: Piscina;
+  /** Measure where the time goes (PipelineSummary.stages). */
+  timings?: boolean;
 }
 
 export function defaultThreads(): number {
@@ -61,19 +63,21 @@ export async function runPipeline(opts: PipelineOptions): Promise<PipelineSummar
     batchRecords: opts.batchRecords ?? 2048,
     batchChars: opts.batchChars ?? 1 << 20,
     signal,
+    stages: opts.timings ? noStageTimes() : null,
   };
   let pool: WorkerPoolProcessing | null = null;
   try {
     checkAbort(run);
     await sink.begin(reader.header, settings);
+    const sinkFormat = sink.workerFormat ?? null;
     if (threads === 1 && !opts.pool) {
-      await processInThisThread(run);
+      await processInThisThread(run, sinkFormat);
     } else {
       pool = await WorkerPoolProcessing.open(threads, opts.pool, opts.workerFile);
-      await pool.process(run);
+      await pool.process(run, sinkFormat);
     }
     checkAbort(run);
-    const summary = run.delivery.summary(settings, threads);
+    const summary = run.delivery.summary(settings, threads, run.stages);
     run.delivery.progress(true);
     await sink.end(summary);
     return summary;

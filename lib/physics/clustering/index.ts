@@ -71,8 +71,11 @@ export function algorithmExponent(a: Algorithm): number {
 /** Above this many particles 'auto' uses tiles (when R allows at least 3 tiles in φ). */
 export const TILED_MIN_PARTICLES = 64;
 
-/** Below this many particles the plain strategy is used (measured: the grid only pays off for large jets). */
-export const GRID_MIN_PARTICLES = 400;
+/**
+ * From this many particles the C/A re-clustering (R = ∞) uses the grid instead of the plain loop (measured: the
+ * two cost the same near 230 constituents; the grid grows more slowly).
+ */
+export const GRID_MIN_PARTICLES = 240;
 
 export interface ClusterOptions {
   /** Generalised-kt exponent: 1 kt, 0 C/A, −1 anti-kt. */

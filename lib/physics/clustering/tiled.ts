@@ -3,7 +3,7 @@
 // the kt jet-finder", arXiv:hep-ph/0512210, and FastJet's N2Tiled / N2MinHeapTiled / lazy-tiling strategies
 // (FastJet manual, arXiv:1111.6097 §3 and appendix).
 //
-// Tiles of side ≥ R/K (K = 1 or 2 from the particle density, see TILE_DENSE) in (y, φ), φ periodic: a jet's
+// Tiles of side ≥ R/K (K = 1, 2 or 3 from the particle density, see TILE_DENSE) in (y, φ), φ periodic: a jet's
 // neighbours within R lie at most K tiles away, in the (2K+1)² block around its tile. Three devices keep the work per
 // step proportional to the local density rather than to the block population:
 //  - NN searches visit the block's tiles ring by ring and skip a tile when the lower bound of the distance from
@@ -26,8 +26,10 @@ import type { ClusterWorkspace } from './workspace';
 
 const PI = Math.PI;
 
-/** Particles per R² above which tiles of side R/2 (5×5 blocks) replace tiles of side R (3×3 blocks). */
-const TILE_DENSE = 2;
+/** Particles per R² above which tiles of side R/2 (5×5 blocks) replace tiles of side R (3×3 blocks) (measured). */
+const TILE_DENSE = 25;
+/** Particles per R² above which tiles of side R/3 (7×7 blocks) are used (measured: large R on 10 000 particles). */
+const TILE_DENSER = 150;
 
 /** Sets the NN of slot i (j, squared distance d), keeping the reverse lists and the tile bound. */
 function setNN(ws: ClusterWorkspace, i: number, j: number, d: number): void {
@@ -174,10 +176,11 @@ export function clusterTiled(ws: ClusterWorkspace, R: number, R2: number, p: num
     if (y > yMax) yMax = y;
   }
   // Geometry: tiles of side ≥ R/K, K rings; nPhi ≥ 2K+1 so that the block's φ columns are distinct.
-  // Measured: R-sized tiles (K = 1) are best for sparse events, R/2 (K = 2) once there are a few particles
-  // per R² on average.
+  // Measured: R-sized tiles (K = 1) are best up to about 25 particles per R² on average, R/2 (K = 2) above,
+  // R/3 (K = 3) from about 150.
   const side = R * (1 + 1e-6);
-  let K = ws.tileRings > 0 ? ws.tileRings : (n * R * R) / ((yMax - yMin + R) * TWO_PI) > TILE_DENSE ? 2 : 1;
+  const density = (n * R * R) / ((yMax - yMin + R) * TWO_PI);
+  let K = ws.tileRings > 0 ? ws.tileRings : density > TILE_DENSER ? 3 : density > TILE_DENSE ? 2 : 1;
   let nPhi = Math.floor((TWO_PI * K) / side);
   while (K > 1 && nPhi < 2 * K + 1) {
     K--;

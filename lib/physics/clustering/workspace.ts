@@ -70,8 +70,9 @@ export class ClusterWorkspace {
   tileHead = new Int32Array(0);
   /** Upper bound of the NN distances of the jets in each tile. */
   tileMax = new Float64Array(0);
-  offY = new Int32Array(64);
-  offU = new Int32Array(64);
+  /** Block offsets of the tiled strategy, ring by ring: (2K+1)² ≤ 49 for K ≤ 3. */
+  offY = new Int32Array(49);
+  offU = new Int32Array(49);
   // Grid strategy of the C/A re-clustering.
   sU = new Float64Array(0);
   alive = new Uint8Array(0);
@@ -103,7 +104,7 @@ export class ClusterWorkspace {
   gK = 1;
   lbY2 = new Float64Array(16);
   lbU2 = new Float64Array(16);
-  /** Tiles are at least R/tileRings wide; 0 = chosen from the particle density (see TILE_DENSE). */
+  /** Tiles are at least R/tileRings wide (1 to 3); 0 = chosen from the particle density (see TILE_DENSE). */
   tileRings = 0;
 
   /** Pair distances evaluated so far (a cost measure for tests; never reset by the engine). */

@@ -7,7 +7,7 @@ import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { fromPtYPhiM } from '@/lib/physics/fourvector';
 import { processRecord } from '@/lib/physics/process-record';
-import { settingsInputSchema } from '@/lib/samples/settings';
+import { settingsInputSchema } from '@/lib/ingest/settings';
 import { generateEeEvents, generateEvents, listedPids } from '@/tests/support/test-events';
 import { engineBundle, HEADER, jsonl, tempDir, toRows } from './helpers';
 

@@ -164,6 +164,21 @@ describe('strategies agree', () => {
     }
   });
 
+  it('the C/A grid and plain give the same tree from the grid threshold up to 3 000 constituents', () => {
+    for (const N of [GRID_MIN_PARTICLES, 300, 1000, 3000]) {
+      for (const jet of generateJets(N, 2, { nConstituents: N, spreadN: 0, massiveFraction: 0.3 })) {
+        const [A, B] = runBoth(jet, 0, Infinity);
+        expect(B.nJets).toBe(1);
+        expect(B.nNodes).toBe(A.nNodes);
+        for (let k = N; k < A.nNodes; k++) {
+          expect(B.E[k]).toBe(A.E[k]);
+          expect(B.pz[k]).toBe(A.pz[k]);
+          expect(Math.min(B.parent1[k], B.parent2[k])).toBe(Math.min(A.parent1[k], A.parent2[k]));
+        }
+      }
+    }
+  });
+
   it('NN bookkeeping checked by brute force after every step, on many irregular configurations', () => {
     // Clumps of random size, isolated particles, wide pt range: exercises NN searches across tiles, the
     // reverse-NN lists, the tile bounds and the far list of the grid (a missed update fails the check).
@@ -190,12 +205,12 @@ describe('strategies agree', () => {
       loadParticles(ws, p, n);
       cluster(ws, { p: 0, R: Infinity, strategy: 'tiled' }); // C/A grid
       loadParticles(ws, p, n);
-      ws.tileRings = 1 + (t % 2); // tiles of side R and R/2
+      ws.tileRings = 1 + (t % 3); // tiles of side R, R/2 and R/3
       cluster(ws, { p: [-1, 0, 1][t % 3], R: rng.uniform(0.05, 1.2), strategy: 'tiled' }); // tiled finder
       ws.tileRings = 0;
     }
     for (const ev of generateEvents(31, 4, { nParticles: 400, nearPhiWrap: true })) {
-      for (const rings of [1, 2]) {
+      for (const rings of [1, 2, 3]) {
         ws.tileRings = rings;
         loadParticles(ws, ev, 400);
         cluster(ws, { p: -1, R: 0.4, strategy: 'tiled' });

@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { progressView } from '@/lib/jobs/progress';
 import { readSampleConfig } from '@/lib/samples/config';
 import { fileNameProblem } from '@/lib/samples/file-name';
-import { defaultSettings, settingsInputSchema, settingsKey } from '@/lib/samples/settings';
+import { defaultSettings, settingsInputSchema, settingsKey } from '@/lib/ingest/settings';
 import { uploadFieldsSchema } from '@/lib/samples/upload-fields';
 
 describe('processing settings', () => {
