@@ -25,6 +25,8 @@ Jet finding (content "events") and selection:
   --njets N                  keep at most the N leading jets of each record (default: all)
 Observables:
   --zcut 0.1  --beta 0  --R0 R   SoftDrop parameters (R0 defaults to R)
+  --sdmode grooming          SoftDrop mode: grooming (a jet no splitting passes keeps its last constituent,
+                             z_g = R_g = 0) or tagging (such a jet fails: m_g, z_g, R_g are null)
   --ktcut 1                  kt cut (GeV) of the primary emission multiplicity
   --all                      also write every splitting of the C/A tree ("all")
 Running:
@@ -55,7 +57,7 @@ export interface CliConfig {
   settings: PipelineSettings;
 }
 
-const VALUE_OPTIONS = new Set(['--R', '--ptmin', '--ymax', '--njets', '--algorithm', '--zcut', '--beta', '--R0', '--ktcut', '--threads', '--out', '-o']);
+const VALUE_OPTIONS = new Set(['--R', '--ptmin', '--ymax', '--njets', '--algorithm', '--zcut', '--beta', '--R0', '--sdmode', '--ktcut', '--threads', '--out', '-o']);
 
 /** "--beta -1" → "--beta=-1" (parseArgs takes a value starting with a dash for an option). */
 function joinNegativeValues(argv: string[]): string[] {
@@ -87,6 +89,7 @@ export function parseCli(argv: string[]): CliConfig | 'help' | 'version' {
         zcut: { type: 'string' },
         beta: { type: 'string' },
         R0: { type: 'string' },
+        sdmode: { type: 'string' },
         ktcut: { type: 'string' },
         all: { type: 'boolean' },
         threads: { type: 'string' },
@@ -116,6 +119,8 @@ export function parseCli(argv: string[]): CliConfig | 'help' | 'version' {
   const zCut = numberOption('zcut', v.zcut, 0.1, (x) => x >= 0 && x < 1, 'a number in [0, 1)');
   const beta = numberOption('beta', v.beta, 0, () => true, 'a number');
   const R0 = numberOption('R0', v.R0, R, (x) => x > 0, 'a number > 0');
+  const sdMode = v.sdmode ?? 'grooming';
+  if (sdMode !== 'grooming' && sdMode !== 'tagging') throw new UsageError(`--sdmode ${sdMode}: must be grooming or tagging`);
   const ktCut = numberOption('ktcut', v.ktcut, 1, (x) => x >= 0, 'a number >= 0 (GeV)');
   const threads = numberOption('threads', v.threads, defaultThreads(), (x) => Number.isInteger(x) && x >= 1 && x <= 256, 'an integer >= 1');
   return {
@@ -127,7 +132,7 @@ export function parseCli(argv: string[]): CliConfig | 'help' | 'version' {
     quiet: !!v.quiet,
     settings: {
       jet: { algorithm, R, ptMin, yMax, maxJets: njets },
-      softDrop: { zCut, beta, R0 },
+      softDrop: { zCut, beta, R0, mode: sdMode },
       multiplicityKtCut: ktCut,
       fullTree: !!v.all,
     },

@@ -27,7 +27,7 @@ export function exportHeader(input: IngestHeader, s: ProcessSettings, inputName?
     jetDefinition: { algorithm: s.jet.algorithm, R: s.jet.R, recombination: 'E' },
     cuts: { ptMin: s.jet.ptMin, yMax: s.jet.yMax, maxJets: s.jet.maxJets },
     reclustering: 'ca',
-    softDrop: { zCut: s.softDrop.zCut, beta: s.softDrop.beta, R0: s.softDrop.R0 },
+    softDrop: { zCut: s.softDrop.zCut, beta: s.softDrop.beta, R0: s.softDrop.R0, mode: s.softDrop.mode ?? 'grooming' },
     multiplicityKtCut: s.multiplicityKtCut,
     fullTree: s.fullTree,
     columns: { primary: [...PRIMARY_COLUMNS], all: s.fullTree ? [...ALL_COLUMNS] : undefined, sd: ['mg', 'zg', 'Rg'] },

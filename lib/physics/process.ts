@@ -5,7 +5,7 @@
 // results themselves (one Float64Array per jet for its splittings, one for the full tree when asked).
 
 import { ClusterWorkspace, algorithmExponent, cluster, loadConstituents, loadParticles } from './clustering';
-import { declusterAll, declusterPrimary, reclusterCA } from './decluster';
+import { declusterAll, declusterPrimary, type PrimaryEnd, reclusterCA } from './decluster';
 import { primaryMultiplicity, softDrop } from './observables';
 import type { JetResult, ProcessSettings, RecordResult } from './types';
 import { SPLIT_STRIDE } from './types';
@@ -16,6 +16,7 @@ let splitBuf = new Float64Array(256 * SPLIT_STRIDE);
 let stack = new Int32Array(512);
 let candNode = new Int32Array(64);
 let candKt2 = new Float64Array(64);
+const primaryEnd: PrimaryEnd = { node: -1 };
 
 function ensureScratch(n: number): void {
   if (splitBuf.length < n * SPLIT_STRIDE) splitBuf = new Float64Array(Math.max(n, 2 * (splitBuf.length / SPLIT_STRIDE)) * SPLIT_STRIDE);
@@ -27,7 +28,7 @@ function ensureScratch(n: number): void {
  */
 function jetFromTree(root: number, nConst: number, pt: number, y: number, phi: number, m: number, s: ProcessSettings): JetResult {
   ensureScratch(nConst);
-  const np = declusterPrimary(recl, root, splitBuf, 0);
+  const np = declusterPrimary(recl, root, splitBuf, 0, primaryEnd);
   const primary = splitBuf.slice(0, np * SPLIT_STRIDE);
   let all: Float64Array | null = null;
   if (s.fullTree) {
@@ -38,7 +39,7 @@ function jetFromTree(root: number, nConst: number, pt: number, y: number, phi: n
     pt, y, phi, m, n: nConst,
     primary,
     all,
-    softDrop: softDrop(primary, np, s.softDrop),
+    softDrop: softDrop(primary, np, s.softDrop, signedMass(recl, primaryEnd.node)),
     multiplicity: primaryMultiplicity(primary, np, s.multiplicityKtCut),
   };
 }

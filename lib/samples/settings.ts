@@ -24,6 +24,7 @@ const softDropSchema = z.strictObject({
   beta: finite('softDrop.beta').default(0),
   /** Missing: the jet radius R. */
   R0: finite('softDrop.R0').refine((v) => v > 0, 'softDrop.R0 must be > 0').optional(),
+  mode: z.enum(['grooming', 'tagging'], { error: 'softDrop.mode must be "grooming" or "tagging"' }).default('grooming'),
 });
 
 export const settingsInputSchema = z
@@ -36,7 +37,12 @@ export const settingsInputSchema = z
   .transform(
     (input): SampleSettings => ({
       jet: input.jet,
-      softDrop: { zCut: input.softDrop.zCut, beta: input.softDrop.beta, R0: input.softDrop.R0 ?? input.jet.R },
+      softDrop: {
+        zCut: input.softDrop.zCut,
+        beta: input.softDrop.beta,
+        R0: input.softDrop.R0 ?? input.jet.R,
+        mode: input.softDrop.mode,
+      },
       multiplicityKtCut: input.multiplicityKtCut,
       fullTree: input.fullTree,
     }),
@@ -50,6 +56,8 @@ export function defaultSettings(): SampleSettings {
 /** The settings as text with a fixed key order: equal settings give equal keys. */
 export function settingsKey(s: SampleSettings): string {
   const { algorithm, R, ptMin, yMax, maxJets } = s.jet;
-  const { zCut, beta, R0 } = s.softDrop;
-  return JSON.stringify([algorithm, R, ptMin, yMax, maxJets, zCut, beta, R0, s.multiplicityKtCut, s.fullTree]);
+  const { zCut, beta, R0, mode } = s.softDrop;
+  const key = [algorithm, R, ptMin, yMax, maxJets, zCut, beta, R0, s.multiplicityKtCut, s.fullTree];
+  // Grooming is the default: keys of samples stored before the mode existed stay the same.
+  return JSON.stringify(mode === 'tagging' ? [...key, mode] : key);
 }

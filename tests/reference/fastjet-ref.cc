@@ -10,12 +10,14 @@
 // Cambridge/Aachen at R = JetDefinition::max_allowable_R (all constituents end in one jet) and declustered with
 // ClusterSequence::has_parents: j → a, b with pt_a ≥ pt_b (primary-emission plane, arXiv:1807.04758);
 // SoftDrop (arXiv:1402.2657) on the primary sequence: first splitting with z > zcut (Δ/R0)^β, groomed jet = that
-// node (m_g = m_{a+b}, z_g, R_g = Δ), null when none passes; multiplicity = primary splittings with kt > ktcut.
+// node (m_g = m_{a+b}, z_g, R_g = Δ); when none passes, grooming mode (default) keeps the last constituent of the
+// harder branch (m_g = its mass, z_g = R_g = 0) and tagging mode writes null; multiplicity = primary splittings
+// with kt > ktcut.
 //
 // Build: g++ -O2 -std=c++17 -o tests/reference/bin/fastjet-ref tests/reference/fastjet-ref.cc -lfastjettools -lfastjet
 // Usage: fastjet-ref [options] input.jsonl [--out output.jsonl]
 //   --R 0.4 --ptmin 20 --ymax 2.5 --njets N (default all) --algorithm antikt|kt|ca --all
-//   --zcut 0.1 --beta 0 --R0 (default R) --ktcut 1
+//   --zcut 0.1 --beta 0 --R0 (default R) --sdmode grooming|tagging --ktcut 1
 //   --debug: adds per jet "primaryFull"/"allFull" (all SPLIT_FIELDS of lib/physics/types.ts:
 //            lnInvDelta, lnKt, z, delta, kt, psi, m, kappa, generation), and after each record's jets one line
 //            {"rec":..,"rejected":{"pt":..,"y":..,"rank":..},"strategy":".."} (not part of the export format).
@@ -46,6 +48,7 @@ struct Options {
   std::string algorithm = "antikt";
   bool all = false;
   double zcut = 0.1, beta = 0, R0 = -1, ktcut = 1;
+  bool tagging = false;
   bool debug = false;
   std::string in, out;
 };
@@ -106,12 +109,14 @@ Split make_split(const PseudoJet &j, PseudoJet a, PseudoJet b, int gen, PseudoJe
   return s;
 }
 
-void primary_sequence(const ClusterSequence &cs, const PseudoJet &root, std::vector<Split> &out) {
+// Returns the single particle at the end of the harder branch.
+PseudoJet primary_sequence(const ClusterSequence &cs, const PseudoJet &root, std::vector<Split> &out) {
   PseudoJet j = root, p1, p2, a, b;
   while (cs.has_parents(j, p1, p2)) {
     out.push_back(make_split(j, p1, p2, 1, a, b));
     j = a;
   }
+  return j;
 }
 
 // Depth first, harder branch first; generation = 1 + softer branches followed from the root.
@@ -166,10 +171,15 @@ void write_splits(Out &o, const std::vector<Split> &v, const int *fields, int nf
 void write_jet(Context &c, const std::string &rec, int index, const PseudoJet &jet, size_t n, double weight,
                const ClusterSequence &ca, const PseudoJet &root) {
   std::vector<Split> prim, all;
-  primary_sequence(ca, root, prim);
+  const PseudoJet end = primary_sequence(ca, root, prim);
   if (c.o.all) full_tree(ca, root, 1, all);
   // SoftDrop on the primary sequence.
   double mg = NAN, zg = NAN, rg = NAN;
+  if (!c.o.tagging) {
+    mg = end.m();
+    zg = 0;
+    rg = 0;
+  }
   const double R0 = c.o.R0 > 0 ? c.o.R0 : c.o.R;
   for (const Split &s : prim) {
     if (s.f[2] > c.o.zcut * std::pow(s.f[3] / R0, c.o.beta)) {
@@ -331,6 +341,12 @@ int main(int argc, char **argv) {
     else if (a == "--beta") o.beta = num_arg(i, argc, argv);
     else if (a == "--R0") o.R0 = num_arg(i, argc, argv);
     else if (a == "--ktcut") o.ktcut = num_arg(i, argc, argv);
+    else if (a == "--sdmode") {
+      if (i + 1 >= argc) die("missing value after --sdmode");
+      const std::string mode = argv[++i];
+      if (mode != "grooming" && mode != "tagging") die("--sdmode must be grooming or tagging");
+      o.tagging = mode == "tagging";
+    }
     else if (a == "--debug") o.debug = true;
     else if (a == "--out") {
       if (i + 1 >= argc) die("missing value after --out");
@@ -412,6 +428,7 @@ int main(int argc, char **argv) {
     h.num(o.beta);
     h.raw(",\"R0\":");
     h.num(o.R0 > 0 ? o.R0 : o.R);
+    h.raw(o.tagging ? ",\"mode\":\"tagging\"" : ",\"mode\":\"grooming\"");
     h.raw("},\"multiplicityKtCut\":");
     h.num(o.ktcut);
     h.raw(",\"fullTree\":");

@@ -55,6 +55,7 @@ export interface RefOptions {
   zCut?: number;
   beta?: number;
   R0?: number;
+  sdMode?: 'grooming' | 'tagging';
   ktCut?: number;
 }
 
@@ -98,7 +99,7 @@ export function settingsFor(content: 'events' | 'jets', o: RefOptions = {}): Pro
   return {
     content,
     jet: { algorithm: o.algorithm ?? 'antikt', R, ptMin: o.ptMin ?? 20, yMax: o.yMax ?? 2.5, maxJets: o.maxJets ?? null },
-    softDrop: { zCut: o.zCut ?? 0.1, beta: o.beta ?? 0, R0: o.R0 ?? R },
+    softDrop: { zCut: o.zCut ?? 0.1, beta: o.beta ?? 0, R0: o.R0 ?? R, mode: o.sdMode ?? 'grooming' },
     multiplicityKtCut: o.ktCut ?? 1,
     fullTree: o.all ?? false,
   };
@@ -115,6 +116,7 @@ function argsFor(o: RefOptions): string[] {
   if (o.zCut !== undefined) a.push('--zcut', String(o.zCut));
   if (o.beta !== undefined) a.push('--beta', String(o.beta));
   if (o.R0 !== undefined) a.push('--R0', String(o.R0));
+  if (o.sdMode !== undefined) a.push('--sdmode', o.sdMode);
   if (o.ktCut !== undefined) a.push('--ktcut', String(o.ktCut));
   return a;
 }
