@@ -3,41 +3,18 @@
 import { useState } from 'react';
 import type { Entry } from '../api-types';
 import { Button } from '../button';
-import { ConfirmButton } from '../confirm-button';
 import { formatDateTime } from '../format';
 import { MarkdownView } from '../markdown-view';
-import { Notice } from '../notice';
-import { useAction } from '../use-action';
+import { EntryActionButtons, type EntryActions } from './entry-actions';
 import { NoteEditor, type NoteDraft } from './note-editor';
 
-export interface NoteActions {
+export interface NoteActions extends EntryActions {
   save: (draft: NoteDraft) => Promise<unknown>;
-  remove: () => Promise<unknown>;
-  /** Absent where the note cannot move that way (first or last). */
-  moveUp?: () => Promise<unknown>;
-  moveDown?: () => Promise<unknown>;
-}
-
-interface MoveButtonProps {
-  label: string;
-  glyph: string;
-  step?: () => Promise<unknown>;
-  busy: boolean;
-  onMove: (step: () => Promise<unknown>) => unknown;
-}
-
-function MoveButton({ label, glyph, step, busy, onMove }: MoveButtonProps) {
-  return (
-    <Button size="sm" variant="ghost" aria-label={label} title={label} disabled={!step || busy} onClick={() => step && onMove(step)}>
-      <span aria-hidden>{glyph}</span>
-    </Button>
-  );
 }
 
 /** One Note entry: its rendered Markdown, and for editors the controls to edit, move and delete it. */
 export function NoteCard({ entry, actions }: { entry: Entry; actions?: NoteActions }) {
   const [editing, setEditing] = useState(false);
-  const move = useAction((step: () => Promise<unknown>) => step());
 
   if (editing && actions) {
     return (
@@ -69,19 +46,11 @@ export function NoteCard({ entry, actions }: { entry: Entry; actions?: NoteActio
         <MarkdownView source={entry.body} />
       </div>
       {actions && (
-        <footer className="flex flex-wrap items-center justify-end gap-1.5 border-t border-ink/10 px-5 py-2">
+        <EntryActionButtons actions={actions} what="note">
           <Button size="sm" variant="ghost" onClick={() => setEditing(true)}>
             Edit
           </Button>
-          <MoveButton label="Move up" glyph="↑" step={actions.moveUp} busy={move.pending} onMove={move.run} />
-          <MoveButton label="Move down" glyph="↓" step={actions.moveDown} busy={move.pending} onMove={move.run} />
-          <ConfirmButton label="Delete" question="Delete this note?" confirmLabel="Delete note" onConfirm={actions.remove} />
-        </footer>
-      )}
-      {move.error && (
-        <Notice tone="error" className="mx-5 mb-3">
-          {move.error}
-        </Notice>
+        </EntryActionButtons>
       )}
     </article>
   );

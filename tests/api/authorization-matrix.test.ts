@@ -18,6 +18,8 @@ interface World {
   people: Record<'owner' | 'viewer' | 'commenter' | 'editor', Person>;
   /** A processed sample of the study, uploaded by `owner`. */
   sampleId: number;
+  /** Another processed sample of the study (for contrasts). */
+  secondSampleId: number;
 }
 
 interface Call {
@@ -334,6 +336,25 @@ const ROWS: Row[] = [
   },
   {
     method: 'GET',
+    route: '/api/samples/[sampleId]/map',
+    call: async (world) => ({ path: inSample(world, '/map') }),
+    expected: statuses(401, 404, 200, 200, 200, 200, 200),
+  },
+  {
+    // A sample of a study the caller cannot see answers 404, as one that does not exist.
+    method: 'GET',
+    route: '/api/contrasts',
+    call: async (world) => ({ path: `/api/contrasts?samples=${world.sampleId},${world.secondSampleId}` }),
+    expected: statuses(401, 404, 200, 200, 200, 200, 200),
+  },
+  {
+    method: 'GET',
+    route: '/api/projections',
+    call: async (world) => ({ path: `/api/projections?samples=${world.sampleId}` }),
+    expected: statuses(401, 404, 200, 200, 200, 200, 200),
+  },
+  {
+    method: 'GET',
     route: '/api/samples/[sampleId]/provenance',
     call: async (world) => ({ path: inSample(world, '/provenance') }),
     expected: statuses(401, 404, 200, 200, 200, 200, 200),
@@ -389,10 +410,12 @@ beforeAll(async () => {
     await addMember(people.owner.client, studyId, people[role].email, role);
   }
   const sample = await uploadDone(people.owner.client, { studyId, name: 'Matrix sample', file: jetsFileText(50, 1) });
+  const second = await uploadDone(people.owner.client, { studyId, name: 'Second matrix sample', file: jetsFileText(50, 2) });
   world = {
     server,
     studyId,
     sampleId: sample.id,
+    secondSampleId: second.id,
     people,
     clients: {
       anonymous: new Client(server.baseUrl),

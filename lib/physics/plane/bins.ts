@@ -33,9 +33,10 @@ export function axisBins(min: number, max: number, step: number, name = 'axis'):
   return { min, max, step, count };
 }
 
+/** Edges min + k · step, rounded to 12 significant digits so that 0.2-wide edges read 1, not 1.0000000000000002. */
 export function binEdges(bins: AxisBins): Float64Array {
   const edges = new Float64Array(bins.count + 1);
-  for (let k = 0; k <= bins.count; k++) edges[k] = bins.min + k * bins.step;
+  for (let k = 0; k <= bins.count; k++) edges[k] = Number((bins.min + k * bins.step).toPrecision(12));
   edges[bins.count] = bins.max;
   return edges;
 }
