@@ -82,8 +82,18 @@ export function BoxResult({ box, onBox, a, b, xLabel, yLabel }: BoxResultProps) 
           </p>
           {expectation !== null && (
             <p className="text-ink-soft">
-              Soft-collinear expectation: {partons[1] === 'gluon' ? 'C_A/C_F = 9/4' : 'C_F/C_A = 4/9'} = {formatValue(expectation)} (SU(3) colour factors C_A = 3, C_F = 4/3; leading-order emission density
-              2αₛCᵢ/π from the Altarelli–Parisi splitting functions, Nucl. Phys. B126 (1977) 298). C/A clustering lowers the declustered ratio where emissions are dense.
+              Soft-collinear expectation:{' '}
+              {partons[1] === 'gluon' ? (
+                <>
+                  C<sub>A</sub>/C<sub>F</sub> = 9/4
+                </>
+              ) : (
+                <>
+                  C<sub>F</sub>/C<sub>A</sub> = 4/9
+                </>
+              )}{' '}
+              = {formatValue(expectation)} (SU(3) colour factors C<sub>A</sub> = 3, C<sub>F</sub> = 4/3; leading-order emission density 2αₛCᵢ/π from the
+              Altarelli–Parisi splitting functions, Nucl. Phys. B126 (1977) 298). C/A clustering lowers the declustered ratio where emissions are dense.
             </p>
           )}
         </div>

@@ -64,6 +64,7 @@ export function ContrastView({ settings, onChange, compact = false }: ContrastVi
       })),
     };
   }, [data, settings.display.colour]);
+  const box = useMemo(() => settings.box, [JSON.stringify(settings.box)]); // eslint-disable-line react-hooks/exhaustive-deps
 
   const names = data?.inputs.map((input) => input.sample.name) ?? [];
   const title = names.length > 0 ? `${MODE_NAMES[settings.mode]}: ${names.slice(1).join(', ')} over ${names[0]}` : '';
@@ -114,7 +115,7 @@ export function ContrastView({ settings, onChange, compact = false }: ContrastVi
                   yLabel={drawn.yLabel}
                   valueName={data.mode === 'ratio' ? `${b.sample.label || 'B'}/${data.inputs[0].sample.label || 'A'}` : data.mode === 'pull' ? 'pull' : 'ρB − ρA'}
                   compact={compact}
-                  box={settings.box}
+                  box={box}
                   onBox={onChange && !compact ? (box) => change({ box }) : undefined}
                   title={`${b.sample.name} vs ${data.inputs[0].sample.name}`}
                   figureRef={keepFigure}

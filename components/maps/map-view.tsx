@@ -41,6 +41,8 @@ export function MapView({ settings, onChange, compact = false }: MapViewProps) {
   }, []);
   const { view, display } = settings;
   const serverFilterError = filterRefusal(error);
+  // The address is parsed again on every navigation: equal settings must not redraw the figure (and lose the hover).
+  const displayKey = JSON.stringify(display);
 
   const drawn = useMemo(() => {
     if (!data) return null;
@@ -55,7 +57,8 @@ export function MapView({ settings, onChange, compact = false }: MapViewProps) {
       yLabel: axisLabel(y),
       overlays: overlaysFor(data.view, display, data.sample.R, data.jets.medianPt, xRange, yRange),
     };
-  }, [data, display]);
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [data, displayKey]);
 
   const title = data ? `${data.sample.name}: ${TREE_LABELS[data.view.tree]}` : '';
   const change = (next: Partial<MapSettings>) => onChange?.({ ...settings, ...next });

@@ -4,7 +4,7 @@ import type { DisplaySettings } from '@/lib/maps/entry-settings';
 import type { PlaneView } from '@/lib/maps/view-settings';
 import type { PlaneAxes } from '@/lib/physics/plane/axes';
 import { type EdgeLine, edgeLines } from '@/lib/physics/plane/edges';
-import { expectationGrid } from '@/lib/physics/plane/expectation';
+import { expectationGrid, expectedDensity } from '@/lib/physics/plane/expectation';
 import type { FigureContours } from '../plane/plane-figure';
 import { formatValue } from '../plane/value-format';
 
@@ -35,14 +35,21 @@ export function overlaysFor(view: PlaneView, display: DisplaySettings, R: number
   if (overlays.expectation !== 'none') {
     const settings = { parton: overlays.parton, terms: overlays.expectation, pt, R };
     const values = expectationGrid(axes, xRange, yRange, GRID, GRID, settings);
-    const defined = Array.from(values).filter(Number.isFinite);
+    // Levels between the lowest and highest values where the expectation is given (not the frozen ones).
+    const defined: number[] = [];
+    for (let iy = 0; iy < GRID; iy++) {
+      for (let ix = 0; ix < GRID; ix++) {
+        const value = expectedDensity(axes, xRange[0] + ((ix + 0.5) * (xRange[1] - xRange[0])) / GRID, yRange[0] + ((iy + 0.5) * (yRange[1] - yRange[0])) / GRID, settings);
+        if (Number.isFinite(value)) defined.push(value);
+      }
+    }
     if (defined.length > 0) {
-      const low = Math.min(...defined);
-      const high = Math.max(...defined);
+      const low = defined.reduce((a, b) => Math.min(a, b));
+      const high = defined.reduce((a, b) => Math.max(a, b));
       const thresholds = Array.from({ length: LEVELS }, (_, k) => low + ((k + 0.5) * (high - low)) / LEVELS);
       contours = { values, nx: GRID, ny: GRID, x: xRange, y: yRange, thresholds, label: 'leading-order expectation' };
       caption.push(
-        `Contours: leading-order expectation for ${overlays.parton} jets (${overlays.expectation === 'softCollinear' ? 'soft-collinear, 2αₛCᵢ/π' : 'with hard-collinear splitting functions'}; one-loop αₛ, αₛ(M_Z) = 0.118; Altarelli–Parisi, Nucl. Phys. B126 (1977) 298) at ${thresholds.map((t) => formatValue(t)).join(', ')}, drawn where kₜ ≥ 1 GeV, Δ < R and z ≤ ½.`,
+        `Contours: leading-order expectation for ${overlays.parton} jets (${overlays.expectation === 'softCollinear' ? 'soft-collinear, 2αₛCᵢ/π' : 'with hard-collinear splitting functions'}; one-loop αₛ, αₛ(M_Z) = 0.118; Altarelli–Parisi, Nucl. Phys. B126 (1977) 298) at ${thresholds.map((t) => formatValue(t)).join(', ')}; given for kₜ ≥ 1 GeV, Δ < R and z ≤ ½ (αₛ frozen below 1 GeV and the value held beyond those edges, so the lines continue there).`,
       );
       if (view.tree !== 'primary') caption.push('The expectation is that of primary emissions; this view shows other splittings.');
       caption.push('C/A clustering takes soft emissions out of the primary sequence where emissions are dense, so declustered densities sit below this expectation at low kₜ.');

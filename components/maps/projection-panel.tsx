@@ -78,7 +78,7 @@ export function ProjectionPanel({ sampleIds, view, projection, overlays, onChang
           R: first.sample.R,
         });
         const line = Array.from(curve, (value, i) => ({ x1: data.edges[i], x2: data.edges[i + 1], value: Number.isFinite(value) ? value : null }));
-        marks.push(Plot.rectY(line.filter((d) => d.value !== null), { x1: 'x1', x2: 'x2', y: 'value', fill: 'none', stroke: '#0b5953', strokeDasharray: '5 3', ariaLabel: 'expectation' }));
+        marks.push(Plot.rectY(line.filter((d) => d.value !== null), { x1: 'x1', x2: 'x2', y: 'value', fill: 'none', stroke: '#0b5953', strokeDasharray: '5 3', ariaDescription: 'expectation' }));
       }
     }
     const main = Plot.plot({

@@ -142,8 +142,8 @@ export function PlaneFigure(props: PlaneFigureProps) {
     const domainY: [number, number] = [grid.yEdges[0], grid.yEdges[ny]];
     const bins = binsOf(grid);
     const marks: Plot.Markish[] = [
-      Plot.rect(bins.filter((bin) => bin.masked), { x1: (d: Bin) => d.x[0], x2: (d: Bin) => d.x[1], y1: (d: Bin) => d.y[0], y2: (d: Bin) => d.y[1], fill: '#e3e1da', inset: 0 }),
-      Plot.rect(bins.filter((bin) => drawable(bin, colour)), { x1: (d: Bin) => d.x[0], x2: (d: Bin) => d.x[1], y1: (d: Bin) => d.y[0], y2: (d: Bin) => d.y[1], fill: (d: Bin) => d.value, inset: 0 }),
+      Plot.rect(bins.filter((bin) => bin.masked), { x1: (d: Bin) => d.x[0], x2: (d: Bin) => d.x[1], y1: (d: Bin) => d.y[0], y2: (d: Bin) => d.y[1], fill: '#e3e1da', inset: 0, shapeRendering: 'crispEdges' }),
+      Plot.rect(bins.filter((bin) => drawable(bin, colour)), { x1: (d: Bin) => d.x[0], x2: (d: Bin) => d.x[1], y1: (d: Bin) => d.y[0], y2: (d: Bin) => d.y[1], fill: (d: Bin) => d.value, inset: 0, shapeRendering: 'crispEdges' }),
     ];
     if (contours) {
       marks.push(
@@ -158,16 +158,16 @@ export function PlaneFigure(props: PlaneFigureProps) {
           stroke: '#0b5953',
           strokeWidth: 1.2,
           fill: 'none',
-          ariaLabel: 'expectation contours',
+          ariaDescription: 'expectation contours',
         }),
       );
     }
     for (const line of lines) {
       if (line.points.length < 2) continue;
-      marks.push(Plot.line(line.points, { x: (p: [number, number]) => p[0], y: (p: [number, number]) => p[1], strokeWidth: 1.2, ...LINE_STYLES[line.kind], ariaLabel: line.kind }));
+      marks.push(Plot.line(line.points, { x: (p: [number, number]) => p[0], y: (p: [number, number]) => p[1], strokeWidth: 1.2, ...LINE_STYLES[line.kind], ariaDescription: line.kind }));
     }
     if (box) {
-      marks.push(Plot.rect([box], { x1: 'x1', x2: 'x2', y1: 'y1', y2: 'y2', fill: 'none', stroke: '#0f766e', strokeWidth: 2, ariaLabel: 'box' }));
+      marks.push(Plot.rect([box], { x1: 'x1', x2: 'x2', y1: 'y1', y2: 'y2', fill: 'none', stroke: '#0f766e', strokeWidth: 2, ariaDescription: 'box' }));
     }
     marks.push(
       Plot.frame({ strokeOpacity: 0.25 }),

@@ -5,7 +5,8 @@ export function formatValue(value: number | null | undefined, digits = 3): strin
   if (value === 0) return '0';
   const magnitude = Math.abs(value);
   if (magnitude >= 1e4 || magnitude < 1e-3) return value.toExponential(digits - 1);
-  return Number(value.toPrecision(digits)).toString();
+  // Significant digits are kept (2.00, not 2): they say how precisely the value is given.
+  return magnitude >= 10 ** digits ? Math.round(value).toString() : value.toPrecision(digits);
 }
 
 /** "1.23 ± 0.04". */

@@ -26,8 +26,9 @@ whether that is visible where quark-like and gluon-like jets differ most.
   },
   {
     title: 'What we expect before looking',
-    body: `At leading order and in the soft-collinear corner the density is flat per unit ln(1/Δ) and ln kt,
+    body: String.raw`At leading order and in the soft-collinear corner the density is flat per unit ln(1/Δ) and ln kt,
 proportional to the colour factor of the jet's initiator,
+
 $$\rho = \frac{2\,\alpha_s(k_t)\,C_i}{\pi}, \qquad C_F = \tfrac43 \text{ (quark)}, \quad C_A = 3 \text{ (gluon)}.$$
 
 So the gluon/quark ratio should approach **$C_A/C_F = 9/4$** there, and fall towards 1 at large $k_t$,
@@ -44,7 +45,7 @@ Question for the group: at which ln(1/Δ) does the current resolution start to w
  */
 export const DEMO_CLOSING_NOTE = {
   title: 'What the contrast shows, and what it does not',
-  body: `In the box of the contrast ($1.2 < \ln 1/\Delta < 3.2$, $0.4 < \ln k_t/\text{GeV} < 2$, where $z < 0.07$) the
+  body: String.raw`In the box of the contrast ($1.2 < \ln 1/\Delta < 3.2$, $0.4 < \ln k_t/\text{GeV} < 2$, where $z < 0.07$) the
 declustered densities sit **below** the leading-order expectation $2\alpha_s C_i/\pi$: the quark-like jets by about
 12 %, the gluon-like jets by about 22 %, so their ratio is about **2.0, not 9/4 = 2.25**.
 

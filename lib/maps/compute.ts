@@ -105,7 +105,10 @@ export function computeMap(sample: Sample, view: PlaneView): Promise<MapResult> 
     withFilterField(async () => {
       const bins = await sharedBins([sample], view);
       const { view: shown } = await planeOn(sample, view, bins);
-      const summary = await jetSummary(sampleColumns(sample), await viewJets(sample, view));
+      // The summary depends on the jets only, not on the plane or its bins.
+      const summary = await remembered(`summary:${sampleKey(sample)}:${JSON.stringify(view.selection)}`, async () =>
+        jetSummary(sampleColumns(sample), await viewJets(sample, view)),
+      );
       return { ...shown, view, bins, summary };
     }),
   );

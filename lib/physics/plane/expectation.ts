@@ -4,7 +4,7 @@
 // single emission off the jet's leading parton: Δ < R, z ≤ 1/2, and kt ≥ 1 GeV (below that the expectation stops,
 // running-coupling.ts); elsewhere NaN.
 import { hardCollinearDensity, type Parton, softCollinearDensity } from '../lo-density';
-import { isPerturbative } from '../running-coupling';
+import { isPerturbative, PERTURBATIVE_KT_MIN } from '../running-coupling';
 import { type AxisChoice, deltaAt, type HorizontalVariable, jacobianFromLnPlane, type PlaneAxes, type VerticalVariable, zAt } from './axes';
 import { binsInside } from './projection';
 
@@ -29,7 +29,23 @@ export function expectedDensity(axes: PlaneAxes, u: number, v: number, s: Expect
   return perLn * jacobianFromLnPlane(axes, delta, z, kt);
 }
 
-/** The expectation sampled on a regular grid of `nx` × `ny` cell centres over the given ranges (for contours). */
+/**
+ * The expectation as a continuous field for contour lines: α_s frozen below kt = 1 GeV (PHYSICS.md allows freezing
+ * or stopping there) and the density held at its value on the z = 1/2 and Δ = R edges beyond them, so that lines
+ * are not drawn along the edges of the region where it is given. The plane's Jacobian is that of the point itself.
+ */
+export function expectedField(axes: PlaneAxes, u: number, v: number, s: ExpectationSettings): number {
+  const delta = deltaAt(axes.x as AxisChoice<HorizontalVariable>, u, s.R);
+  const z = zAt(axes.y as AxisChoice<VerticalVariable>, v, delta, s.pt);
+  if (!(delta > 0 && z > 0) || !Number.isFinite(delta) || !Number.isFinite(z)) return Number.NaN;
+  const heldDelta = Math.min(delta, s.R);
+  const heldZ = Math.min(z, 0.5);
+  const kt = Math.max(PERTURBATIVE_KT_MIN, heldZ * s.pt * heldDelta);
+  const perLn = s.terms === 'softCollinear' ? softCollinearDensity(s.parton, kt) : hardCollinearDensity(s.parton, heldZ, kt);
+  return perLn * jacobianFromLnPlane(axes, delta, z, z * s.pt * delta);
+}
+
+/** The contour field of expectedField sampled on a regular grid of `nx` × `ny` cell centres over the given ranges. */
 export function expectationGrid(
   axes: PlaneAxes,
   x: [number, number],
@@ -41,7 +57,7 @@ export function expectationGrid(
   const values = new Float64Array(nx * ny);
   for (let iy = 0; iy < ny; iy++) {
     const v = y[0] + ((iy + 0.5) * (y[1] - y[0])) / ny;
-    for (let ix = 0; ix < nx; ix++) values[iy * nx + ix] = expectedDensity(axes, x[0] + ((ix + 0.5) * (x[1] - x[0])) / nx, v, s);
+    for (let ix = 0; ix < nx; ix++) values[iy * nx + ix] = expectedField(axes, x[0] + ((ix + 0.5) * (x[1] - x[0])) / nx, v, s);
   }
   return values;
 }
