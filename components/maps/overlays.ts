@@ -5,6 +5,7 @@ import type { PlaneView } from '@/lib/maps/view-settings';
 import type { PlaneAxes } from '@/lib/physics/plane/axes';
 import { type EdgeLine, edgeLines } from '@/lib/physics/plane/edges';
 import { expectationGrid, expectedDensity } from '@/lib/physics/plane/expectation';
+import { contourLines } from '../plane/contour-lines';
 import type { FigureContours } from '../plane/plane-figure';
 import { formatValue } from '../plane/value-format';
 
@@ -47,9 +48,10 @@ export function overlaysFor(view: PlaneView, display: DisplaySettings, R: number
       const low = defined.reduce((a, b) => Math.min(a, b));
       const high = defined.reduce((a, b) => Math.max(a, b));
       const thresholds = Array.from({ length: LEVELS }, (_, k) => low + ((k + 0.5) * (high - low)) / LEVELS);
-      contours = { values, nx: GRID, ny: GRID, x: xRange, y: yRange, thresholds, label: 'leading-order expectation' };
+      const given = (u: number, v: number) => Number.isFinite(expectedDensity(axes, u, v, settings));
+      contours = { lines: contourLines(values, GRID, GRID, xRange, yRange, thresholds, given), label: 'leading-order expectation' };
       caption.push(
-        `Contours: leading-order expectation for ${overlays.parton} jets (${overlays.expectation === 'softCollinear' ? 'soft-collinear, 2αₛCᵢ/π' : 'with hard-collinear splitting functions'}; one-loop αₛ, αₛ(M_Z) = 0.118; Altarelli–Parisi, Nucl. Phys. B126 (1977) 298) at ${thresholds.map((t) => formatValue(t)).join(', ')}; given for kₜ ≥ 1 GeV, Δ < R and z ≤ ½ (αₛ frozen below 1 GeV and the value held beyond those edges, so the lines continue there).`,
+        `Contours: leading-order expectation for ${overlays.parton} jets (${overlays.expectation === 'softCollinear' ? 'soft-collinear, 2αₛCᵢ/π' : 'with hard-collinear splitting functions'}; one-loop αₛ, αₛ(M_Z) = 0.118; Altarelli–Parisi, Nucl. Phys. B126 (1977) 298) at ${thresholds.map((t) => formatValue(t)).join(', ')}, drawn where it is given: kₜ ≥ 1 GeV, Δ < R, z ≤ ½.`,
       );
       if (view.tree !== 'primary') caption.push('The expectation is that of primary emissions; this view shows other splittings.');
       caption.push('C/A clustering takes soft emissions out of the primary sequence where emissions are dense, so declustered densities sit below this expectation at low kₜ.');

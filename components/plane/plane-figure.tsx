@@ -3,6 +3,7 @@
 import * as Plot from '@observablehq/plot';
 import { useEffect, useRef, useState } from 'react';
 import type { EdgeLine } from '@/lib/physics/plane/edges';
+import type { ContourLine } from './contour-lines';
 import { type ColourScale, plotColour } from './colour-scale';
 import { useBoxWidth } from './use-box-width';
 import { formatValue, formatWithError } from './value-format';
@@ -26,14 +27,9 @@ export interface FigureBox {
   y2: number;
 }
 
+/** Contour lines over the figure (contour-lines.ts), with a name for the figure's description. */
 export interface FigureContours {
-  /** Values at the centres of an nx × ny grid over x and y (NaN where not defined). */
-  values: Float64Array;
-  nx: number;
-  ny: number;
-  x: [number, number];
-  y: [number, number];
-  thresholds: number[];
+  lines: ContourLine[];
   label: string;
 }
 
@@ -146,21 +142,8 @@ export function PlaneFigure(props: PlaneFigureProps) {
       Plot.rect(bins.filter((bin) => drawable(bin, colour)), { x1: (d: Bin) => d.x[0], x2: (d: Bin) => d.x[1], y1: (d: Bin) => d.y[0], y2: (d: Bin) => d.y[1], fill: (d: Bin) => d.value, inset: 0, shapeRendering: 'crispEdges' }),
     ];
     if (contours) {
-      marks.push(
-        Plot.contour(contours.values, {
-          width: contours.nx,
-          height: contours.ny,
-          x1: contours.x[0],
-          x2: contours.x[1],
-          y1: contours.y[0],
-          y2: contours.y[1],
-          thresholds: contours.thresholds,
-          stroke: '#0b5953',
-          strokeWidth: 1.2,
-          fill: 'none',
-          ariaDescription: 'expectation contours',
-        }),
-      );
+      const points = contours.lines.flatMap((line) => line.points.map(([u, v]) => ({ u, v, id: line.id })));
+      marks.push(Plot.line(points, { x: 'u', y: 'v', z: 'id', stroke: '#0b5953', strokeWidth: 1.2, ariaDescription: 'expectation contours' }));
     }
     for (const line of lines) {
       if (line.points.length < 2) continue;

@@ -104,6 +104,7 @@ describe('maps and contrasts in a browser', () => {
     for (const kind of ['radius', 'zHalf', 'constantZ', 'ktOneGeV']) expect(await page.locator(`figure svg g[aria-description="${kind}"] path`).count()).toBeGreaterThan(0);
     // Pointing at the plot (again, should a late redraw have replaced it) shows the bin under the pointer.
     const hover = async () => {
+      await plotSvg(page).scrollIntoViewIfNeeded();
       const box = (await plotSvg(page).boundingBox())!;
       await page.mouse.move(box.x + box.width * 0.45, box.y + box.height * 0.5);
       await page.mouse.move(box.x + box.width * 0.46, box.y + box.height * 0.55);

@@ -30,9 +30,10 @@ export function expectedDensity(axes: PlaneAxes, u: number, v: number, s: Expect
 }
 
 /**
- * The expectation as a continuous field for contour lines: α_s frozen below kt = 1 GeV (PHYSICS.md allows freezing
- * or stopping there) and the density held at its value on the z = 1/2 and Δ = R edges beyond them, so that lines
- * are not drawn along the edges of the region where it is given. The plane's Jacobian is that of the point itself.
+ * The expectation as a continuous field for contour lines: α_s frozen below kt = 1 GeV and the density held at its
+ * value on the z = 1/2 and Δ = R edges beyond them, so that marching squares finds no false lines along those edges;
+ * the lines are then drawn only where the expectation is given (expectedDensity). The plane's Jacobian is that of
+ * the point itself.
  */
 export function expectedField(axes: PlaneAxes, u: number, v: number, s: ExpectationSettings): number {
   const delta = deltaAt(axes.x as AxisChoice<HorizontalVariable>, u, s.R);
