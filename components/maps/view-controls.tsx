@@ -5,7 +5,7 @@ import { axisLabel, TREE_LABELS } from '@/lib/maps/axis-labels';
 import type { DisplaySettings } from '@/lib/maps/entry-settings';
 import { compileFilter, FilterError } from '@/lib/maps/filter-expression';
 import { type PlaneView, planeViewSchema } from '@/lib/maps/view-settings';
-import { HORIZONTAL_VARIABLES, SCALABLE_VARIABLES, TREE_CHOICES, VERTICAL_VARIABLES } from '@/lib/physics/plane/axes';
+import { type AxisChoice, HORIZONTAL_VARIABLES, type PlaneVariable, SCALABLE_VARIABLES, TREE_CHOICES, VERTICAL_VARIABLES } from '@/lib/physics/plane/axes';
 import { Button } from '../button';
 import { inlineSelectClass } from '../fields';
 import { ChoiceButtons } from './choice-buttons';
@@ -55,6 +55,32 @@ function NumberInput({ label, value, onChange, placeholder }: { label: string; v
       <label htmlFor={id}>{label}</label>
       <input id={id} type="text" inputMode="decimal" value={value} placeholder={placeholder} onChange={(event) => onChange(event.target.value)} className={numberClass} />
     </span>
+  );
+}
+
+const NO_RANGE = { min: null, max: null, step: null };
+
+/** One coordinate of the plane: which variable, and for Δ, z and kt whether its bins are logarithmic. */
+function AxisSelect({ label, variables, axis, onChange }: { label: string; variables: readonly PlaneVariable[]; axis: AxisChoice; onChange: (axis: AxisChoice) => void }) {
+  return (
+    <>
+      <label className="flex items-center gap-2 text-ink-soft">
+        {label}
+        <select className={inlineSelectClass} value={axis.variable} onChange={(event) => onChange({ ...axis, variable: event.target.value as PlaneVariable })}>
+          {variables.map((variable) => (
+            <option key={variable} value={variable}>
+              {axisLabel({ variable, log: false })}
+            </option>
+          ))}
+        </select>
+      </label>
+      {SCALABLE_VARIABLES.includes(axis.variable) && (
+        <label className="flex items-center gap-1.5 text-ink-soft">
+          <input type="checkbox" checked={axis.log} onChange={(event) => onChange({ ...axis, log: event.target.checked })} />
+          log scale
+        </label>
+      )}
+    </>
   );
 }
 
@@ -121,62 +147,23 @@ export function ViewControls({ view, display, onView, onDisplay, serverFilterErr
             ))}
           </select>
         </label>
-        <label className="flex items-center gap-2 text-ink-soft">
-          Horizontal
-          <select
-            className={inlineSelectClass}
-            value={view.x.variable}
-            onChange={(event) => onView({ ...view, x: { ...view.x, variable: event.target.value as PlaneView['x']['variable'] }, bins: { ...view.bins, x: { min: null, max: null, step: null } } })}
-          >
-            {HORIZONTAL_VARIABLES.map((variable) => (
-              <option key={variable} value={variable}>
-                {axisLabel({ variable, log: false })}
-              </option>
-            ))}
-          </select>
-        </label>
-        {SCALABLE_VARIABLES.includes(view.x.variable) && (
-          <label className="flex items-center gap-1.5 text-ink-soft">
-            <input type="checkbox" checked={view.x.log} onChange={(event) => onView({ ...view, x: { ...view.x, log: event.target.checked }, bins: { ...view.bins, x: { min: null, max: null, step: null } } })} />
-            log scale
-          </label>
-        )}
-        <label className="flex items-center gap-2 text-ink-soft">
-          Vertical
-          <select
-            className={inlineSelectClass}
-            value={view.y.variable}
-            onChange={(event) => onView({ ...view, y: { ...view.y, variable: event.target.value as PlaneView['y']['variable'] }, bins: { ...view.bins, y: { min: null, max: null, step: null } } })}
-          >
-            {VERTICAL_VARIABLES.map((variable) => (
-              <option key={variable} value={variable}>
-                {axisLabel({ variable, log: false })}
-              </option>
-            ))}
-          </select>
-        </label>
-        {SCALABLE_VARIABLES.includes(view.y.variable) && (
-          <label className="flex items-center gap-1.5 text-ink-soft">
-            <input type="checkbox" checked={view.y.log} onChange={(event) => onView({ ...view, y: { ...view.y, log: event.target.checked }, bins: { ...view.bins, y: { min: null, max: null, step: null } } })} />
-            log scale
-          </label>
-        )}
+        <AxisSelect label="Horizontal" variables={HORIZONTAL_VARIABLES} axis={view.x} onChange={(x) => onView({ ...view, x: x as PlaneView['x'], bins: { ...view.bins, x: NO_RANGE } })} />
+        <AxisSelect label="Vertical" variables={VERTICAL_VARIABLES} axis={view.y} onChange={(y) => onView({ ...view, y: y as PlaneView['y'], bins: { ...view.bins, y: NO_RANGE } })} />
         <ChoiceButtons label="Colour scale" value={display.colour} options={[['linear', 'Linear colour'], ['log', 'Log colour']]} onChange={(colour) => onDisplay({ ...display, colour })} />
       </div>
 
       <form onSubmit={apply} aria-label="Ranges, bins and jets" className="space-y-2 rounded-md border border-ink/10 bg-paper px-3 py-2">
-        <div className="flex flex-wrap items-center gap-x-4 gap-y-2">
-          <span className="w-24 font-medium text-ink">Horizontal</span>
-          <NumberInput label="Horizontal min" value={draft.xMin} onChange={set('xMin')} placeholder="fitted" />
-          <NumberInput label="Horizontal max" value={draft.xMax} onChange={set('xMax')} placeholder="fitted" />
-          <NumberInput label="Horizontal bin size" value={draft.xStep} onChange={set('xStep')} placeholder="default" />
-        </div>
-        <div className="flex flex-wrap items-center gap-x-4 gap-y-2">
-          <span className="w-24 font-medium text-ink">Vertical</span>
-          <NumberInput label="Vertical min" value={draft.yMin} onChange={set('yMin')} placeholder="fitted" />
-          <NumberInput label="Vertical max" value={draft.yMax} onChange={set('yMax')} placeholder="fitted" />
-          <NumberInput label="Vertical bin size" value={draft.yStep} onChange={set('yStep')} placeholder="default" />
-        </div>
+        {(['Horizontal', 'Vertical'] as const).map((name) => {
+          const [min, max, step] = name === 'Horizontal' ? (['xMin', 'xMax', 'xStep'] as const) : (['yMin', 'yMax', 'yStep'] as const);
+          return (
+            <div key={name} className="flex flex-wrap items-center gap-x-4 gap-y-2">
+              <span className="w-24 font-medium text-ink">{name}</span>
+              <NumberInput label={`${name} min`} value={draft[min]} onChange={set(min)} placeholder="fitted" />
+              <NumberInput label={`${name} max`} value={draft[max]} onChange={set(max)} placeholder="fitted" />
+              <NumberInput label={`${name} bin size`} value={draft[step]} onChange={set(step)} placeholder="default" />
+            </div>
+          );
+        })}
         <div className="flex flex-wrap items-center gap-x-4 gap-y-2">
           <span className="w-24 font-medium text-ink">Jets</span>
           <NumberInput label="pₜ min (GeV)" value={draft.ptMin} onChange={set('ptMin')} />

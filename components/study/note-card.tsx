@@ -3,9 +3,8 @@
 import { useState } from 'react';
 import type { Entry } from '../api-types';
 import { Button } from '../button';
-import { formatDateTime } from '../format';
 import { MarkdownView } from '../markdown-view';
-import { EntryActionButtons, type EntryActions } from './entry-actions';
+import { EntryActionButtons, EntryHeader, type EntryActions } from './entry-card-parts';
 import { NoteEditor, type NoteDraft } from './note-editor';
 
 export interface NoteActions extends EntryActions {
@@ -32,16 +31,7 @@ export function NoteCard({ entry, actions }: { entry: Entry; actions?: NoteActio
 
   return (
     <article className="rounded-lg border border-ink/10 bg-paper-raised" aria-label={entry.title || 'Note'}>
-      <header className="flex flex-wrap items-center gap-x-3 gap-y-1 border-b border-ink/10 px-5 py-3">
-        <span className="rounded bg-accent-soft/70 px-1.5 py-0.5 text-[0.65rem] font-semibold uppercase tracking-wider text-accent-strong">
-          Note
-        </span>
-        {entry.title && <h2 className="min-w-0 flex-1 font-semibold tracking-tight break-words">{entry.title}</h2>}
-        <span className="w-full text-xs text-ink-faint sm:ml-auto sm:w-auto">
-          {formatDateTime(entry.updatedAt)}
-          {entry.updatedBy && ` · ${entry.updatedBy.name}`}
-        </span>
-      </header>
+      <EntryHeader entry={entry} kind="note" />
       <div className="px-5 py-4">
         <MarkdownView source={entry.body} />
       </div>

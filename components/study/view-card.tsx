@@ -4,13 +4,12 @@ import Link from 'next/link';
 import { contrastSettingsSchema, mapSettingsSchema } from '@/lib/maps/entry-settings';
 import type { Entry } from '../api-types';
 import { buttonClass } from '../button';
-import { formatDateTime } from '../format';
 import { ContrastView } from '../maps/contrast-view';
 import { MapView } from '../maps/map-view';
 import { entryPageUrl } from '../maps/view-urls';
 import { MarkdownView } from '../markdown-view';
 import { Notice } from '../notice';
-import { EntryActionButtons, type EntryActions } from './entry-actions';
+import { EntryActionButtons, EntryHeader, type EntryActions } from './entry-card-parts';
 
 const KIND_NAMES = { map: 'Map', contrast: 'Contrast' } as const;
 
@@ -21,14 +20,7 @@ export function ViewCard({ studyId, entry, actions }: { studyId: string; entry: 
   const label = entry.title || KIND_NAMES[kind];
   return (
     <article className="rounded-lg border border-ink/10 bg-paper-raised" aria-label={label}>
-      <header className="flex flex-wrap items-center gap-x-3 gap-y-1 border-b border-ink/10 px-5 py-3">
-        <span className="rounded bg-warn-soft px-1.5 py-0.5 text-[0.65rem] font-semibold uppercase tracking-wider text-warn">{KIND_NAMES[kind]}</span>
-        {entry.title && <h2 className="min-w-0 flex-1 font-semibold tracking-tight break-words">{entry.title}</h2>}
-        <span className="w-full text-xs text-ink-faint sm:ml-auto sm:w-auto">
-          {formatDateTime(entry.updatedAt)}
-          {entry.updatedBy && ` · ${entry.updatedBy.name}`}
-        </span>
-      </header>
+      <EntryHeader entry={entry} kind={kind} />
       <div className="space-y-3 px-5 py-4">
         {!parsed.success && <Notice tone="error">The saved settings of this entry cannot be read: {parsed.error.issues[0]?.message}</Notice>}
         {parsed.success && kind === 'map' && <MapView settings={mapSettingsSchema.parse(entry.settings)} compact />}

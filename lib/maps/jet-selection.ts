@@ -19,20 +19,39 @@ export interface SelectedJets {
 
 const inRange = (v: number, min: number | null, max: number | null) => (min === null || v >= min) && (max === null || v < max);
 
-/** Weighted median of the values where `keep` is 1. */
+/**
+ * Weighted median (by |w|) of the values where `keep` is 1, in linear time: a histogram of 4096 cells between the
+ * smallest and largest value finds the cell holding half the weight, and only that cell's values are sorted.
+ */
 export function weightedMedian(values: ArrayLike<number>, weights: ArrayLike<number>, keep: Uint8Array): number {
-  const rows: number[] = [];
-  for (let i = 0; i < keep.length; i++) if (keep[i]) rows.push(i);
-  if (rows.length === 0) return Number.NaN;
-  rows.sort((a, b) => values[a] - values[b]);
+  let min = Infinity;
+  let max = -Infinity;
   let total = 0;
-  for (const i of rows) total += Math.abs(weights[i]);
-  let running = 0;
-  for (const i of rows) {
+  for (let i = 0; i < keep.length; i++) {
+    if (!keep[i] || !Number.isFinite(values[i])) continue;
+    if (values[i] < min) min = values[i];
+    if (values[i] > max) max = values[i];
+    total += Math.abs(weights[i]);
+  }
+  if (!(min <= max)) return Number.NaN;
+  if (min === max || !(total > 0)) return min;
+  const cells = 4096;
+  const scale = cells / (max - min);
+  const cellOf = (v: number) => Math.min(cells - 1, Math.floor((v - min) * scale));
+  const sums = new Float64Array(cells);
+  for (let i = 0; i < keep.length; i++) if (keep[i] && Number.isFinite(values[i])) sums[cellOf(values[i])] += Math.abs(weights[i]);
+  let below = 0;
+  let cell = 0;
+  while (cell < cells - 1 && below + sums[cell] < total / 2) below += sums[cell++];
+  const inCell: number[] = [];
+  for (let i = 0; i < keep.length; i++) if (keep[i] && Number.isFinite(values[i]) && cellOf(values[i]) === cell) inCell.push(i);
+  inCell.sort((a, b) => values[a] - values[b]);
+  let running = below;
+  for (const i of inCell) {
     running += Math.abs(weights[i]);
     if (running >= total / 2) return values[i];
   }
-  return values[rows[rows.length - 1]];
+  return values[inCell[inCell.length - 1]];
 }
 
 /** Throws FilterError for a refused filter (before any column is read). */

@@ -1,8 +1,7 @@
 // What a map shows beside the plane about its selected jets: the mean primary multiplicity above the sample's kt
 // cut with its error, and the normalised distributions of m_g, z_g, R_g and the multiplicity (SoftDrop as the
-// sample was processed: grooming mode keeps every jet in them, PHYSICS.md). The distributions are a table transform
-// (bin, group, sum) and are done with arquero.
-import * as aq from 'arquero';
+// sample was processed: grooming mode keeps every jet in them, PHYSICS.md). Plain loops over the typed columns:
+// with a new filter on a million jets these run on every request (an arquero group-by took 75 ms a distribution).
 import type { SampleColumns } from './sample-columns';
 import type { SelectedJets } from './jet-selection';
 
@@ -49,21 +48,16 @@ function distribution(name: string, unit: string, values: ArrayLike<number>, wei
   const first = edges[0];
   const width = edges[1] - edges[0];
   const bins = edges.length - 1;
-  const table = aq.table({ value: Float64Array.from(rows, (i) => values[i]), weight: Float64Array.from(rows, (i) => weights[i]) });
-  const sums = table
-    .params({ first, width, last: bins - 1 })
-    .derive({ bin: (d: { value: number }, $: { first: number; width: number; last: number }) => aq.op.least($.last, aq.op.greatest(0, aq.op.floor((d.value - $.first) / $.width))) })
-    .groupby('bin')
-    .rollup({ w: (d: { weight: number }) => aq.op.sum(d.weight), w2: (d: { weight: number }) => aq.op.sum(d.weight * d.weight) })
-    .objects() as Array<{ bin: number; w: number; w2: number }>;
-  const density = new Array<number>(bins).fill(0);
-  const error = new Array<number>(bins).fill(0);
-  const norm = jets.weight;
-  for (const { bin, w, w2 } of sums) {
-    density[bin] = w / (norm * width);
-    error[bin] = Math.sqrt(w2) / (norm * width);
+  const w = new Float64Array(bins);
+  const w2 = new Float64Array(bins);
+  for (const i of rows) {
+    // values at the top edge (and any beyond it) go to the last bin, below the first to the first
+    const bin = Math.min(bins - 1, Math.max(0, Math.floor((values[i] - first) / width)));
+    w[bin] += weights[i];
+    w2[bin] += weights[i] * weights[i];
   }
-  return { name, unit, edges, density, error, missingWeight };
+  const norm = jets.weight * width;
+  return { name, unit, edges, density: Array.from(w, (v) => v / norm), error: Array.from(w2, (v) => Math.sqrt(v) / norm), missingWeight };
 }
 
 const uniform = (max: number) => Array.from({ length: BINS + 1 }, (_, k) => (k * max) / BINS);

@@ -5,8 +5,8 @@ import { ApiError } from '@/lib/api/errors';
 import { db } from '@/lib/db/connection';
 import { PlaneHistogram } from '@/lib/physics/density';
 import type { AxisChoice } from '@/lib/physics/plane/axes';
-import { type Extent, quantileExtent } from '@/lib/physics/plane/bins';
-import { type BinnedPlane, fillPlane, type PlaneBins } from '@/lib/physics/plane/binned-plane';
+import type { Extent } from '@/lib/physics/plane/bins';
+import { type BinnedPlane, fillPlane, type PlaneBins, planeExtents } from '@/lib/physics/plane/binned-plane';
 import { alignsWithFine, binnedFromFine, fineExtents } from '@/lib/physics/plane/from-fine';
 import type { Sample } from '@/models/sample';
 import { type SelectedJets, selectJets } from './jet-selection';
@@ -78,10 +78,7 @@ export async function viewExtents(sample: Sample, view: PlaneView): Promise<{ x:
   const fine = fineCoordinate(view);
   if (fine) return fineExtents(await fineHistogram(sample, fine));
   const jets = await viewJets(sample, view);
-  const { xs, ys, jetRow, member, jetWeight } = await membersAndCoordinates(sample, view);
-  const include = (i: number) => jets.selected[jetRow[i]] === 1 && (member === null || member[i] === 1);
-  const weight = (i: number) => jetWeight[jetRow[i]];
-  return { x: quantileExtent(xs, weight, include), y: quantileExtent(ys, weight, include) };
+  return planeExtents({ ...(await membersAndCoordinates(sample, view)), selected: jets.selected });
 }
 
 /** The view's splittings counted on these bins, and where they came from. */

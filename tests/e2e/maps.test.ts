@@ -63,6 +63,9 @@ describe('maps and contrasts in a browser', () => {
     const closing = page.getByRole('article', { name: 'What the contrast shows, and what it does not' });
     expect(await closing.textContent()).toContain('not 9/4 = 2.25');
     expect(await quarkMap.getByTestId('outside-note').textContent()).toMatch(/per jet outside the shown range/);
+    // the card's figure fills the card
+    const cardWidth = (await quarkMap.boundingBox())!.width;
+    await expect.poll(async () => (await quarkMap.locator('figure svg').last().boundingBox())!.width).toBeGreaterThan(0.8 * cardWidth);
     await screenshot(page, 'maps-study-1280', 1280);
   });
 

@@ -1,7 +1,7 @@
 // A sample's splittings counted on the bins of a plane, with everything that fell outside them counted too
 // (PHYSICS.md "nothing is dropped silently"), and the per-jet density with its variance:
 // ρ = Σw / (N_jet · area), Var ρ = Σw² / (N_jet² · area²), N_jet = Σ w_jet over the selected jets.
-import { ABOVE, type AxisBins, BELOW, binEdges, binOf } from './bins';
+import { ABOVE, type AxisBins, BELOW, binEdges, binOf, type Extent, extentOfHistogram, FIT_TAIL } from './bins';
 
 export interface PlaneBins {
   x: AxisBins;
@@ -116,6 +116,63 @@ export function fillPlane(bins: PlaneBins, source: PlaneSource): BinnedPlane {
   }
   plane.outsideCount = outsideCount;
   return plane;
+}
+
+const EXTENT_CELLS = 4096;
+
+/**
+ * Where the selected jets' member splittings are: the quantile extent of each coordinate (|w| weighted; finite
+ * values only), for fitted ranges. Two passes over the splittings, both coordinates at once: exact minimum and
+ * maximum, then a histogram of 4096 cells between them, cut at the `tail` quantiles (rounded outwards to cells).
+ */
+export function planeExtents(source: PlaneSource, tail = FIT_TAIL): { x: Extent | null; y: Extent | null } {
+  const { xs, ys, jetRow, member, jetWeight, selected } = source;
+  const n = xs.length;
+  let xMin = Infinity;
+  let xMax = -Infinity;
+  let yMin = Infinity;
+  let yMax = -Infinity;
+  for (let i = 0; i < n; i++) {
+    if (!selected[jetRow[i]] || (member !== null && !member[i])) continue;
+    const x = xs[i];
+    const y = ys[i];
+    if (x - x === 0) {
+      if (x < xMin) xMin = x;
+      if (x > xMax) xMax = x;
+    }
+    if (y - y === 0) {
+      if (y < yMin) yMin = y;
+      if (y > yMax) yMax = y;
+    }
+  }
+  const hx = new Float64Array(EXTENT_CELLS);
+  const hy = new Float64Array(EXTENT_CELLS);
+  const sx = xMax > xMin ? EXTENT_CELLS / (xMax - xMin) : 0;
+  const sy = yMax > yMin ? EXTENT_CELLS / (yMax - yMin) : 0;
+  let tx = 0;
+  let ty = 0;
+  for (let i = 0; i < n; i++) {
+    const j = jetRow[i];
+    if (!selected[j] || (member !== null && !member[i])) continue;
+    const w = Math.abs(jetWeight[j]);
+    const x = xs[i];
+    const y = ys[i];
+    // x − x is 0 exactly for finite x (NaN and ±∞ give NaN)
+    if (x - x === 0) {
+      hx[Math.min(EXTENT_CELLS - 1, Math.floor((x - xMin) * sx))] += w;
+      tx += w;
+    }
+    if (y - y === 0) {
+      hy[Math.min(EXTENT_CELLS - 1, Math.floor((y - yMin) * sy))] += w;
+      ty += w;
+    }
+  }
+  const extent = (h: Float64Array, lo: number, hi: number, total: number): Extent | null => {
+    if (!(lo <= hi)) return null;
+    if (lo === hi) return { lo, hi };
+    return extentOfHistogram(h, lo, hi, total, tail);
+  };
+  return { x: extent(hx, xMin, xMax, tx), y: extent(hy, yMin, yMax, ty) };
 }
 
 /** The per-jet density of a binned plane. */

@@ -87,40 +87,6 @@ export interface Extent {
 /** Share of splittings left outside a fitted range at each end (common practice for display ranges). */
 export const FIT_TAIL = 0.0005;
 
-/**
- * Quantile extent of finite values with weights (|w| is used, so that negative weights cannot fold the
- * cumulative sum back): exact min and max first, then a 4096-bin histogram between them for the quantiles,
- * rounded outwards to its bins. Null when there is no finite value.
- */
-export function quantileExtent(values: ArrayLike<number>, weights: (i: number) => number, include: (i: number) => boolean, tail = FIT_TAIL): Extent | null {
-  const n = values.length;
-  let min = Infinity;
-  let max = -Infinity;
-  for (let i = 0; i < n; i++) {
-    if (!include(i)) continue;
-    const v = values[i];
-    if (!Number.isFinite(v)) continue;
-    if (v < min) min = v;
-    if (v > max) max = v;
-  }
-  if (!(min <= max)) return null;
-  if (min === max) return { lo: min, hi: max };
-  const cells = 4096;
-  const histogram = new Float64Array(cells);
-  const scale = cells / (max - min);
-  let total = 0;
-  for (let i = 0; i < n; i++) {
-    if (!include(i)) continue;
-    const v = values[i];
-    if (!Number.isFinite(v)) continue;
-    const w = Math.abs(weights(i));
-    const c = Math.min(cells - 1, Math.floor((v - min) * scale));
-    histogram[c] += w;
-    total += w;
-  }
-  return extentOfHistogram(histogram, min, max, total, tail);
-}
-
 /** Quantile extent of a histogram of `cells` equal cells from min to max holding `total`. */
 export function extentOfHistogram(histogram: ArrayLike<number>, min: number, max: number, total: number, tail = FIT_TAIL): Extent | null {
   if (!(total > 0)) return null;

@@ -4,8 +4,8 @@
 import { describe, expect, it } from 'vitest';
 import { defaultGrid, PlaneHistogram } from '@/lib/physics/density';
 import { coordinate, type PlaneAxes } from '@/lib/physics/plane/axes';
-import { axisBins, fittedBins, quantileExtent } from '@/lib/physics/plane/bins';
-import { densityOf, fillPlane, outsideTotal, type PlaneSource } from '@/lib/physics/plane/binned-plane';
+import { axisBins, fittedBins } from '@/lib/physics/plane/bins';
+import { densityOf, fillPlane, outsideTotal, planeExtents, type PlaneSource } from '@/lib/physics/plane/binned-plane';
 import { boxRatio, chiSquare, contrastGrid } from '@/lib/physics/plane/compare';
 import { edgeLines } from '@/lib/physics/plane/edges';
 import { expectedDensity, expectedProjection } from '@/lib/physics/plane/expectation';
@@ -98,10 +98,25 @@ describe('bins and fitted ranges', () => {
     expect(fittedBins(Number.NaN, Number.NaN, 0.5)).toEqual({ min: 0, max: 0.5, step: 0.5, count: 1 });
   });
 
-  it('takes the quantile extent of finite values only', () => {
-    const values = [Number.NEGATIVE_INFINITY, 0, 1, 2, 3, Number.NaN, Infinity];
-    expect(quantileExtent(values, () => 1, () => true, 0)).toEqual({ lo: 0, hi: 3 });
-    expect(quantileExtent([Number.NaN], () => 1, () => true)).toBeNull();
+  it('takes the quantile extents of finite values of the selected jets’ member splittings only', () => {
+    const source: PlaneSource = {
+      xs: [Number.NEGATIVE_INFINITY, 0, 1, 2, 3, Number.NaN, Infinity, 50],
+      ys: [1, 1, 1, 1, 1, 1, 1, 1],
+      jetRow: [0, 0, 0, 0, 0, 0, 0, 1],
+      member: null,
+      jetWeight: [1, 1],
+      selected: new Uint8Array([1, 0]),
+    };
+    expect(planeExtents(source, 0)).toEqual({ x: { lo: 0, hi: 3 }, y: { lo: 1, hi: 1 } });
+    // 1000 values 0..999 of weight 1: a 0.5 % tail at each end leaves out the 5 outermost values on each side
+    // (the extent is rounded outwards to cells of 999/4096)
+    const many: PlaneSource = { xs: Array.from({ length: 1000 }, (_, i) => i), ys: new Array(1000).fill(0), jetRow: new Array(1000).fill(0), member: null, jetWeight: [1], selected: new Uint8Array([1]) };
+    const { x } = planeExtents(many, 0.005);
+    expect(x!.lo).toBeGreaterThan(4);
+    expect(x!.lo).toBeLessThanOrEqual(5);
+    expect(x!.hi).toBeGreaterThanOrEqual(994);
+    expect(x!.hi).toBeLessThan(995);
+    expect(planeExtents({ ...source, xs: new Array(8).fill(Number.NaN) }).x).toBeNull();
   });
 });
 

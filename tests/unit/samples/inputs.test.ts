@@ -10,10 +10,17 @@ describe('processing settings', () => {
   it('default to PHYSICS.md and common practice', () => {
     expect(defaultSettings()).toEqual({
       jet: { algorithm: 'antikt', R: 0.4, ptMin: 20, yMax: 2.5, maxJets: null },
-      softDrop: { zCut: 0.1, beta: 0, R0: 0.4 },
+      softDrop: { zCut: 0.1, beta: 0, R0: 0.4, mode: 'grooming' },
       multiplicityKtCut: 1,
       fullTree: false,
     });
+  });
+
+  it('take SoftDrop in tagging mode when asked, and name a wrong mode', () => {
+    expect(settingsInputSchema.parse({ softDrop: { mode: 'tagging' } }).softDrop.mode).toBe('tagging');
+    const wrong = settingsInputSchema.safeParse({ softDrop: { mode: 'pruning' } });
+    expect(wrong.success).toBe(false);
+    expect(wrong.error!.issues[0].message).toBe('softDrop.mode must be "grooming" or "tagging"');
   });
 
   it('complete a partial object, R0 following R unless given', () => {

@@ -1,6 +1,8 @@
 'use client';
 
+import type { Entry } from '../api-types';
 import { Button } from '../button';
+import { formatDateTime } from '../format';
 import { ConfirmButton } from '../confirm-button';
 import { Notice } from '../notice';
 import { useAction } from '../use-action';
@@ -37,5 +39,26 @@ export function EntryActionButtons({ actions, what, children }: { actions: Entry
         </Notice>
       )}
     </>
+  );
+}
+
+const BADGES = {
+  note: ['Note', 'bg-accent-soft/70 text-accent-strong'],
+  map: ['Map', 'bg-warn-soft text-warn'],
+  contrast: ['Contrast', 'bg-warn-soft text-warn'],
+} as const;
+
+/** The top line of an entry in the study's list: its kind, its title, and who changed it last and when. */
+export function EntryHeader({ entry, kind }: { entry: Entry; kind: keyof typeof BADGES }) {
+  const [name, look] = BADGES[kind];
+  return (
+    <header className="flex flex-wrap items-center gap-x-3 gap-y-1 border-b border-ink/10 px-5 py-3">
+      <span className={`rounded px-1.5 py-0.5 text-[0.65rem] font-semibold uppercase tracking-wider ${look}`}>{name}</span>
+      {entry.title && <h2 className="min-w-0 flex-1 font-semibold tracking-tight break-words">{entry.title}</h2>}
+      <span className="w-full text-xs text-ink-faint sm:ml-auto sm:w-auto">
+        {formatDateTime(entry.updatedAt)}
+        {entry.updatedBy && ` · ${entry.updatedBy.name}`}
+      </span>
+    </header>
   );
 }
