@@ -14,7 +14,7 @@ import path from 'node:path';
 import { parseArgs } from 'node:util';
 import { readSampleConfig } from '../lib/samples/config';
 import { signIn, startTestServer } from '../tests/support/server';
-import { curlUpload, peakKb, treeKb, waitForJobs } from './server-tools';
+import { cpuMs, curlUpload, peakKb, treeKb, waitForJobs } from './server-tools';
 
 const ROOT = path.resolve(__dirname, '..');
 const BIN = path.join(ROOT, 'node_modules/.bin/splitfield');
@@ -69,11 +69,6 @@ function runCli(file: string): { ms: number; cpuMs: number; jets: number } {
   return { ms, cpuMs: Number(/^cpu ([\d.]+)$/m.exec(run.stderr)?.[1]), jets };
 }
 
-/** CPU time of a process so far (all its threads), from /proc, in ms. */
-function cpuMs(pid: number): number {
-  const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
-  return ((Number(fields[11]) + Number(fields[12])) * 1000) / 100;
-}
 
 async function main(): Promise<void> {
   if (!existsSync(BIN)) throw new Error('node_modules/.bin/splitfield is missing: run npm install (it links the command)');

@@ -4,6 +4,12 @@ import { spawn } from 'node:child_process';
 import { readFileSync, readdirSync } from 'node:fs';
 import type { TestServer } from '../tests/support/server';
 
+/** CPU time of a process so far (all its threads), from /proc, in ms. */
+export function cpuMs(pid: number): number {
+  const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
+  return ((Number(fields[11]) + Number(fields[12])) * 1000) / 100;
+}
+
 /** Resident memory of a process and all its descendants, in kB, from /proc. */
 export function treeKb(pid: number): number {
   const children = new Map<number, number[]>();

@@ -66,7 +66,7 @@ function AxisSelect({ label, variables, axis, onChange }: { label: string; varia
     <>
       <label className="flex items-center gap-2 text-ink-soft">
         {label}
-        <select className={inlineSelectClass} value={axis.variable} onChange={(event) => onChange({ ...axis, variable: event.target.value as PlaneVariable })}>
+        <select aria-label={label} className={inlineSelectClass} value={axis.variable} onChange={(event) => onChange({ ...axis, variable: event.target.value as PlaneVariable })}>
           {variables.map((variable) => (
             <option key={variable} value={variable}>
               {axisLabel({ variable, log: false })}
@@ -139,7 +139,7 @@ export function ViewControls({ view, display, onView, onDisplay, serverFilterErr
       <div className="flex flex-wrap items-center gap-3">
         <label className="flex items-center gap-2 text-ink-soft">
           Splittings
-          <select className={inlineSelectClass} value={view.tree} onChange={(event) => onView({ ...view, tree: event.target.value as PlaneView['tree'] })}>
+          <select aria-label="Splittings" className={inlineSelectClass} value={view.tree} onChange={(event) => onView({ ...view, tree: event.target.value as PlaneView['tree'] })}>
             {TREE_CHOICES.map((tree) => (
               <option key={tree} value={tree}>
                 {TREE_LABELS[tree]}
