@@ -84,6 +84,9 @@ async function planeOn(sample: Sample, view: PlaneView, bins: PlaneBins) {
 
 /** Bins for several samples at once: the user's, or fitted to all of them together. */
 async function sharedBins(samples: Sample[], view: PlaneView): Promise<PlaneBins> {
+  const { x, y } = view.bins;
+  // Ranges given on both axes: nothing to fit, so no pass over the splittings to find where they are.
+  if (x.min !== null && x.max !== null && y.min !== null && y.max !== null) return resolveBins(view, { x: null, y: null });
   let extents = { x: null, y: null } as Awaited<ReturnType<typeof viewExtents>>;
   for (const sample of samples) {
     const e = await viewExtents(sample, view);
