@@ -16,7 +16,8 @@ import { sampleKey } from './sample-key';
 import { isDefaultSelection, type PlaneView } from './view-settings';
 
 const histograms = () => processWide('mapFineHistograms', () => new Lru<PlaneHistogram>(64 * 1024 * 1024, (h) => h.sumW.byteLength * 3));
-const selections = () => processWide('mapSelections', () => new Lru<SelectedJets>(256 * 1024 * 1024, (s) => s.selected.byteLength + 64));
+/** Selections by sample and selection: the promise is kept, so that a map's parts asking at once compute it once. */
+const selections = () => processWide('mapSelections', () => new Lru<Promise<SelectedJets>>(128));
 
 /** The cached fine histogram of a sample in a horizontal coordinate, decoded once per process. */
 export async function fineHistogram(sample: Sample, horizontal: 'lnInvDelta' | 'lnRoverDelta'): Promise<PlaneHistogram> {
@@ -51,13 +52,14 @@ export function requireTree(sample: Sample, view: PlaneView): void {
   }
 }
 
-/** The selected jets of a view (cached by sample and selection). */
-export async function viewJets(sample: Sample, view: PlaneView): Promise<SelectedJets> {
+/** The selected jets of a view (cached by sample and selection; a failed selection is not kept). */
+export function viewJets(sample: Sample, view: PlaneView): Promise<SelectedJets> {
   const key = `${sampleKey(sample)}:${JSON.stringify(view.selection)}`;
   const hit = selections().get(key);
   if (hit) return hit;
-  const jets = await selectJets(sampleColumns(sample), view.selection);
+  const jets = selectJets(sampleColumns(sample), view.selection);
   selections().set(key, jets);
+  jets.catch(() => selections().delete(key));
   return jets;
 }
 

@@ -98,12 +98,19 @@ export function fillPlane(bins: PlaneBins, source: PlaneSource): BinnedPlane {
     }
   }
   const n = xs.length;
+  const { min: xMin, step: xStep } = bins.x;
+  const { min: yMin, step: yStep, count: ny } = bins.y;
   for (let i = 0; i < n; i++) {
     const j = jetRow[i];
     if (!selected[j] || (member !== null && !member[i])) continue;
     const w = jetWeight[j];
-    const ix = binOf(bins.x, xs[i]);
-    const iy = ix >= 0 ? binOf(bins.y, ys[i]) : 0;
+    // The common case inline (NaN fails both comparisons); edges, infinities and the outside go through binOf.
+    let ix = Math.floor((xs[i] - xMin) / xStep);
+    let iy = Math.floor((ys[i] - yMin) / yStep);
+    if (!(ix >= 0 && ix < nx && iy >= 0 && iy < ny)) {
+      ix = binOf(bins.x, xs[i]);
+      iy = ix >= 0 ? binOf(bins.y, ys[i]) : 0;
+    }
     if (ix >= 0 && iy >= 0) {
       const at = iy * nx + ix;
       sumW[at] += w;
