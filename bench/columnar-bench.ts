@@ -4,7 +4,7 @@
 // ratios JSON Lines / columnar; goal (issue 12): the columnar path at least 3× faster end to end.
 //
 //   npm run bench:columnar [-- --kind jets|events] [-- --count N] [-- --n PARTICLES] [-- --repeat 3] [-- --no-server]
-import { spawn, spawnSync } from 'node:child_process';
+import { spawnSync } from 'node:child_process';
 import { mkdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
 import { loadavg } from 'node:os';
 import path from 'node:path';
@@ -13,6 +13,7 @@ import { Rng } from '../lib/physics/random';
 import { writeArrow, writeParquet, type ColumnarRecord } from '../tests/support/columnar-files';
 import { generateEvent, generateJet } from '../tests/support/test-events';
 import { signIn, startTestServer, type TestServer } from '../tests/support/server';
+import { cpuMs, curlUpload, waitForJobs } from './server-tools';
 
 const ROOT = path.resolve(__dirname, '..');
 const BIN = path.join(ROOT, 'node_modules/.bin/splitfield');
@@ -86,25 +87,11 @@ function runCli(file: string): { ms: number; cpuMs: number; jets: number; output
   return best;
 }
 
-function cpuMs(pid: number): number {
-  const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
-  return ((Number(fields[11]) + Number(fields[12])) * 1000) / 100;
-}
-
-async function upload(server: TestServer, token: string, file: string): Promise<number> {
-  const curl = spawn('curl', ['--silent', '--show-error', '--header', `Authorization: Bearer ${token}`, '--form', 'studyId=1', '--form', 'name=Columnar benchmark', '--form', 'force=1', '--form', `file=@${file}`, `${server.baseUrl}/api/samples/upload`]);
-  let body = '';
-  curl.stdout.on('data', (chunk) => (body += chunk));
-  await new Promise((resolve) => curl.on('close', resolve));
-  return JSON.parse(body).sample.id;
-}
-
-async function untilDone(server: TestServer, token: string, id: number): Promise<any> {
-  for (;;) {
-    const sample = (await (await fetch(`${server.baseUrl}/api/samples/${id}`, { headers: { authorization: `Bearer ${token}` } })).json()).sample;
-    if (!['queued', 'running'].includes(sample.state)) return sample;
-    await new Promise((resolve) => setTimeout(resolve, 50));
-  }
+/** Uploads a file with curl and waits until its sample ended. */
+async function uploadUntilEnded(server: TestServer, token: string, file: string): Promise<any> {
+  const { sample } = await curlUpload(server, token, file, { studyId: 1, name: 'Columnar benchmark', force: true });
+  const ended = await waitForJobs(server, token, (samples) => !['queued', 'running'].includes(samples.find((s) => s.id === sample.id).state));
+  return ended.find((s) => s.id === sample.id);
 }
 
 async function main(): Promise<void> {
@@ -128,11 +115,7 @@ async function main(): Promise<void> {
     try {
       const admin = await signIn(server.baseUrl, server.credentials.admin.email, server.credentials.admin.password);
       const token = (await admin.post('/api/tokens', { name: 'columnar benchmark' })).body.secret as string;
-      for (;;) {
-        const list = (await (await fetch(`${server.baseUrl}/api/samples`, { headers: { authorization: `Bearer ${token}` } })).json()).samples;
-        if (list.every((s: any) => !['queued', 'running'].includes(s.state))) break;
-        await new Promise((resolve) => setTimeout(resolve, 100));
-      }
+      await waitForJobs(server, token, (samples) => samples.every((s) => !['queued', 'running'].includes(s.state)));
       lines.push('  upload route (curl, one job thread), end to end until done:');
       const results: Record<string, { ms: number; cpuMs: number }> = {};
       for (const [name, file] of Object.entries(files)) {
@@ -140,7 +123,7 @@ async function main(): Promise<void> {
         for (let i = 0; i < repeat; i++) {
           const cpu0 = cpuMs(server.pid);
           const started = performance.now();
-          const sample = await untilDone(server, token, await upload(server, token, file));
+          const sample = await uploadUntilEnded(server, token, file);
           const ms = performance.now() - started;
           if (sample.state !== 'done') throw new Error(`${name}: the sample ended ${sample.state}: ${JSON.stringify(sample.error)}`);
           if (sample.counts.jets !== ref.jets) throw new Error(`${name}: ${sample.counts.jets} jets, the command line ${ref.jets}`);

@@ -7,13 +7,14 @@
 //   npm run bench:ingest [-- --events 2000] [-- --particles 300] [-- --threads N]
 //
 // Goals (issues 4 and 13): end to end within 1.15× the command line's time on the same threads; server memory < 600 MB.
-import { execFileSync, spawn, spawnSync } from 'node:child_process';
-import { existsSync, mkdirSync, readFileSync, readdirSync, statSync } from 'node:fs';
+import { execFileSync, spawnSync } from 'node:child_process';
+import { existsSync, mkdirSync, readFileSync, statSync } from 'node:fs';
 import { loadavg } from 'node:os';
 import path from 'node:path';
 import { parseArgs } from 'node:util';
 import { readSampleConfig } from '../lib/samples/config';
-import { signIn, startTestServer, type TestServer } from '../tests/support/server';
+import { signIn, startTestServer } from '../tests/support/server';
+import { cpuMs, curlUpload, peakKb, treeKb, waitForJobs } from './server-tools';
 
 const ROOT = path.resolve(__dirname, '..');
 const BIN = path.join(ROOT, 'node_modules/.bin/splitfield');
@@ -68,81 +69,6 @@ function runCli(file: string): { ms: number; cpuMs: number; jets: number } {
   return { ms, cpuMs: Number(/^cpu ([\d.]+)$/m.exec(run.stderr)?.[1]), jets };
 }
 
-/** CPU time of a process so far (all its threads), from /proc, in ms. */
-function cpuMs(pid: number): number {
-  const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
-  return ((Number(fields[11]) + Number(fields[12])) * 1000) / 100;
-}
-
-/** Resident memory of a process and all its descendants, in kB, from /proc. */
-function treeKb(pid: number): number {
-  const children = new Map<number, number[]>();
-  for (const name of readdirSync('/proc')) {
-    if (!/^\d+$/.test(name)) continue;
-    try {
-      const parent = Number(/^PPid:\s+(\d+)/m.exec(readFileSync(`/proc/${name}/status`, 'utf8'))?.[1]);
-      children.set(parent, [...(children.get(parent) ?? []), Number(name)]);
-    } catch {
-      // Gone meanwhile.
-    }
-  }
-  let total = 0;
-  for (const stack = [pid]; stack.length > 0; ) {
-    const current = stack.pop()!;
-    try {
-      total += Number(/^VmRSS:\s+(\d+)/m.exec(readFileSync(`/proc/${current}/status`, 'utf8'))?.[1] ?? 0);
-    } catch {
-      continue;
-    }
-    stack.push(...(children.get(current) ?? []));
-  }
-  return total;
-}
-
-function peakKb(pid: number): number {
-  return Number(/^VmHWM:\s+(\d+)/m.exec(readFileSync(`/proc/${pid}/status`, 'utf8'))?.[1] ?? 0);
-}
-
-async function waitForJobs(server: TestServer, token: string, until: (samples: any[]) => boolean): Promise<any[]> {
-  for (;;) {
-    const response = await fetch(`${server.baseUrl}/api/samples`, { headers: { authorization: `Bearer ${token}` } });
-    const { samples } = await response.json();
-    if (until(samples)) return samples;
-    await new Promise((resolve) => setTimeout(resolve, 100));
-  }
-}
-
-/**
- * Uploads as a script would, with curl (as in the README): Node's own fetch spends more CPU building the multipart
- * body than the server spends receiving it, and the two share the machine's cores.
- */
-async function curlUpload(server: TestServer, token: string, file: string): Promise<any> {
-  const curl = spawn('curl', [
-    '--silent',
-    '--show-error',
-    '--header',
-    `Authorization: Bearer ${token}`,
-    '--form',
-    'studyId=1',
-    '--form',
-    'name=Ingest benchmark',
-    '--form',
-    `file=@${file}`,
-    '--write-out',
-    '\\n%{http_code}',
-    `${server.baseUrl}/api/samples/upload`,
-  ]);
-  let output = '';
-  curl.stdout.on('data', (chunk) => (output += chunk));
-  curl.stderr.on('data', (chunk) => (output += chunk));
-  const code = await new Promise<number | null>((resolve, reject) => {
-    curl.on('error', (error) => reject(new Error(`cannot run curl (is it installed?): ${error.message}`)));
-    curl.on('close', resolve);
-  });
-  const [body, status] = [output.slice(0, output.lastIndexOf('\n')), output.slice(output.lastIndexOf('\n') + 1)];
-  if (code !== 0 || status !== '202') throw new Error(`the upload failed (curl ${code}, HTTP ${status}): ${body}`);
-  return JSON.parse(body);
-}
 
 async function main(): Promise<void> {
   if (!existsSync(BIN)) throw new Error('node_modules/.bin/splitfield is missing: run npm install (it links the command)');
@@ -168,7 +94,7 @@ async function main(): Promise<void> {
 
     const cpuBefore = cpuMs(server.pid);
     const started = performance.now();
-    const body = await curlUpload(server, token, file);
+    const body = await curlUpload(server, token, file, { studyId: 1, name: 'Ingest benchmark' });
     const uploadMs = performance.now() - started;
     const id = body.sample.id as number;
     const [sample] = await waitForJobs(server, token, (samples) => {

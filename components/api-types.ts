@@ -32,6 +32,8 @@ export interface Entry {
   position: number;
   title: string;
   body: string;
+  /** A Map's or Contrast's settings (lib/maps/entry-settings.ts); empty for a Note. */
+  settings: Record<string, unknown>;
   /** null once the author's account is gone. */
   createdBy: Author | null;
   updatedBy: Author | null;

@@ -1,5 +1,7 @@
 import Markdown, { type Components } from 'react-markdown';
+import rehypeKatex from 'rehype-katex';
 import remarkGfm from 'remark-gfm';
+import remarkMath from 'remark-math';
 
 // react-markdown builds React elements from the Markdown syntax tree and never injects HTML: raw HTML in the
 // source (a <script>, an onclick attribute) stays visible as plain text, and its default URL filter empties
@@ -25,11 +27,16 @@ const components: Components = {
     ),
 };
 
-/** A Note's Markdown (with tables, task lists and strikethrough), rendered safely. */
+// Maths: $…$ inline and $$…$$ displayed, typeset by KaTeX (its stylesheet and fonts are bundled by app/layout.tsx,
+// nothing is fetched). KaTeX runs with its defaults: no \href or \url links, no HTML extensions; a formula it
+// cannot read is shown in red as its source text instead of failing the note.
+const katexOptions = { throwOnError: false, strict: 'ignore' as const };
+
+/** A Note's Markdown (with tables, task lists, strikethrough and maths), rendered safely. */
 export function MarkdownView({ source }: { source: string }) {
   return (
     <div className="note-body">
-      <Markdown remarkPlugins={[remarkGfm]} components={components}>
+      <Markdown remarkPlugins={[remarkGfm, remarkMath]} rehypePlugins={[[rehypeKatex, katexOptions]]} components={components}>
         {source}
       </Markdown>
     </div>

@@ -7,6 +7,7 @@ import { ensureAuthSecret } from '../lib/auth/secret';
 import type { Environment, ServerConfig } from '../lib/config/environment';
 import { makeStoragePrivate } from '../lib/config/private-files';
 import { openDatabase } from '../lib/db/connection';
+import { demoSampleJets } from '../lib/demo/samples';
 import { seedOnce, type DemoAccount } from '../lib/demo/seed';
 import { migrateUp } from '../models/migrate';
 
@@ -27,7 +28,7 @@ export async function prepareStorage(
   const database = openDatabase(config.databasePath);
   try {
     const appliedMigrations = await migrateUp(database.sequelize);
-    const demoAccounts = await seedOnce(database, config.storageDir);
+    const demoAccounts = await seedOnce(database, config.storageDir, demoSampleJets(env));
     return { secret, appliedMigrations, demoAccounts };
   } finally {
     await database.sequelize.close();

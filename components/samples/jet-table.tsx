@@ -87,7 +87,7 @@ export function JetTable({ sampleId, collision = 'hadron', flavourTags = false }
     <SortHeader key={key} label={<Typeset text={heading} />} title={title} align={align} className="normal-case!" active={sort.key === key} order={sort.order} onSort={() => sortBy(key)} />
   );
   return (
-    <Panel title="Jets" aside={data && `${formatCount(data.total)} kept`} lead="Values in GeV where they have a unit. A dash: no splitting passed SoftDrop.">
+    <Panel title="Jets" aside={data && `${formatCount(data.total)} kept`} lead="Values in GeV where they have a unit. SoftDrop in grooming mode keeps a jet whose splittings all fail as its last constituent (z_g = R_g = 0); a dash: the jet failed SoftDrop in tagging mode.">
       {error && <Notice tone="error">{error.message}</Notice>}
       {!data && !error && <LoadingBlock label="Loading jets…" />}
       {data && (

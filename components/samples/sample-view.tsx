@@ -64,7 +64,7 @@ export function SampleView({ sampleId }: { sampleId: string }) {
         {sample.state === 'done' && (
           <>
             {sample.counts && <SampleCountsPanel counts={sample.counts} collision={sample.settings.collision} exclusive={sample.settings.jet.exclusive} />}
-            <PlanePanel sampleId={sample.id} collision={sample.settings.collision} />
+            <PlanePanel sampleId={sample.id} />
             <JetTable sampleId={sample.id} collision={sample.settings.collision} flavourTags={sample.settings.flavourTags} />
             <div className="grid items-start gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
               <ProvenancePanel provenance={sample.provenance} />

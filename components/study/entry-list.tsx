@@ -5,8 +5,10 @@ import { sendJson } from '@/lib/api/client';
 import type { Entry } from '../api-types';
 import { Button } from '../button';
 import { EmptyState } from '../empty-state';
+import { NewViewForm } from './new-view-form';
 import { NoteCard, type NoteActions } from './note-card';
 import { NoteEditor } from './note-editor';
+import { ViewCard } from './view-card';
 
 interface EntryListProps {
   studyId: string;
@@ -16,9 +18,11 @@ interface EntryListProps {
   onChanged: () => Promise<unknown>;
 }
 
-/** The study's entries in order; editors can add, edit, move and delete Notes. */
+type Adding = 'note' | 'map' | 'contrast' | null;
+
+/** The study's entries in order (Notes, Maps, Contrasts); editors can add, move and delete them, and edit Notes. */
 export function EntryList({ studyId, entries, canEdit, onChanged }: EntryListProps) {
-  const [adding, setAdding] = useState(false);
+  const [adding, setAdding] = useState<Adding>(null);
   const ordered = [...entries].sort((a, b) => a.position - b.position);
   const entryUrl = (entry: Entry) => `/api/studies/${studyId}/entries/${entry.id}`;
 
@@ -41,25 +45,32 @@ export function EntryList({ studyId, entries, canEdit, onChanged }: EntryListPro
   async function addNote(draft: { title: string; body: string }) {
     await sendJson('POST', `/api/studies/${studyId}/entries`, { kind: 'note', ...draft });
     await onChanged();
-    setAdding(false);
+    setAdding(null);
   }
 
-  const composer = adding ? (
-    <NoteEditor submitLabel="Add note" onSave={addNote} onCancel={() => setAdding(false)} />
-  ) : (
-    canEdit && (
-      <Button variant="primary" onClick={() => setAdding(true)}>
-        Add note
-      </Button>
-    )
-  );
+  const composer =
+    adding === 'note' ? (
+      <NoteEditor submitLabel="Add note" onSave={addNote} onCancel={() => setAdding(null)} />
+    ) : adding ? (
+      <NewViewForm studyId={studyId} kind={adding} onCancel={() => setAdding(null)} />
+    ) : (
+      canEdit && (
+        <div className="flex flex-wrap gap-2">
+          <Button variant="primary" onClick={() => setAdding('note')}>
+            Add note
+          </Button>
+          <Button onClick={() => setAdding('map')}>Add map</Button>
+          <Button onClick={() => setAdding('contrast')}>Add contrast</Button>
+        </div>
+      )
+    );
 
   if (ordered.length === 0) {
     return adding ? (
       composer
     ) : (
       <EmptyState title="No entries yet" action={composer}>
-        {canEdit ? 'Start with a Note: what this study sets out to check, and how.' : 'Nothing has been written here yet.'}
+        {canEdit ? 'Start with a Note (what this study sets out to check, and how), a Map of a sample, or a Contrast of two.' : 'Nothing has been written here yet.'}
       </EmptyState>
     );
   }
@@ -69,7 +80,11 @@ export function EntryList({ studyId, entries, canEdit, onChanged }: EntryListPro
       <ol className="space-y-4" aria-label="Entries">
         {ordered.map((entry, index) => (
           <li key={entry.id}>
-            <NoteCard entry={entry} actions={canEdit ? actionsFor(entry, index) : undefined} />
+            {entry.kind === 'map' || entry.kind === 'contrast' ? (
+              <ViewCard studyId={studyId} entry={entry} actions={canEdit ? actionsFor(entry, index) : undefined} />
+            ) : (
+              <NoteCard entry={entry} actions={canEdit ? actionsFor(entry, index) : undefined} />
+            )}
           </li>
         ))}
       </ol>

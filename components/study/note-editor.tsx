@@ -58,7 +58,7 @@ export function NoteEditor({ initial = { title: '', body: '' }, submitLabel, onS
             placeholder={'## Observations\nWrite in Markdown: headings, lists, links, tables, `code`.'}
           />
         )}
-        <p className="text-xs text-ink-soft">Markdown. HTML tags are shown as text, never run.</p>
+        <p className="text-xs text-ink-soft">Markdown, with maths between $…$ (inline) or $$…$$ (displayed). HTML tags are shown as text, never run.</p>
       </div>
       <SubmitOrCancel label={submitLabel} onCancel={onCancel} />
     </ActionForm>

@@ -1,11 +1,12 @@
 import { randomBytes } from 'node:crypto';
 import { writeFileSync } from 'node:fs';
 import path from 'node:path';
-import { seedDemoSamples } from '@/lib/demo/samples';
+import { DEMO_SAMPLE_JETS, seedDemoSamples } from '@/lib/demo/samples';
 import type { SiteRole, StudyRole } from '@/models/vocabulary';
 import { hashPassword } from '../auth/password';
 import type { Database } from '../db/connection';
-import { DEMO_NOTES, DEMO_STUDY } from './study-text';
+import { demoViewEntries } from './study-views';
+import { DEMO_CLOSING_NOTE, DEMO_NOTES, DEMO_STUDY } from './study-text';
 
 export interface DemoAccount {
   name: string;
@@ -42,7 +43,7 @@ export function demoCredentialsText(accounts: DemoAccount[]): string {
  * nothing. Returns the accounts, or null when the database already had users, so it runs once however often the
  * server starts.
  */
-export async function seedOnce(database: Database, storageDir: string): Promise<DemoAccount[] | null> {
+export async function seedOnce(database: Database, storageDir: string, demoJets = DEMO_SAMPLE_JETS): Promise<DemoAccount[] | null> {
   const { models, write } = database;
   return write(async (transaction) => {
     if ((await models.User.count({ transaction })) > 0) return null;
@@ -56,14 +57,17 @@ export async function seedOnce(database: Database, storageDir: string): Promise<
       users.push(user);
     }
     const author = users[accounts.findIndex((account) => account.studyRole === 'owner')];
-    for (const [position, note] of DEMO_NOTES.entries()) {
-      await models.Entry.create(
-        { studyId: study.id, kind: 'note', position, ...note, createdById: author.id, updatedById: author.id },
-        { transaction },
-      );
+    const demoSamples = { storageDir, studyId: study.id, uploaderId: author.id, jets: demoJets };
+    const { ids, removeFiles: removeSampleFiles } = await seedDemoSamples(models, transaction, demoSamples);
+    // Notes first, then a Map of each sample and their Contrast, then what the contrast shows.
+    const entries = [
+      ...DEMO_NOTES.map((note) => ({ kind: 'note' as const, ...note, settings: {} })),
+      ...demoViewEntries(ids),
+      { kind: 'note' as const, ...DEMO_CLOSING_NOTE, settings: {} },
+    ];
+    for (const [position, entry] of entries.entries()) {
+      await models.Entry.create({ studyId: study.id, position, ...entry, createdById: author.id, updatedById: author.id }, { transaction });
     }
-    const demoSamples = { storageDir, studyId: study.id, uploaderId: author.id };
-    const removeSampleFiles = await seedDemoSamples(models, transaction, demoSamples);
     // Written before the commit: if it fails, the transaction rolls back and the next start tries again.
     try {
       writeFileSync(path.join(storageDir, DEMO_CREDENTIALS_FILE), demoCredentialsText(accounts), { mode: 0o600 });

@@ -39,6 +39,8 @@ Flavour:
                              hadrons, or the records' "tagParticles"/"tagPid") (default off)
 Observables:
   --zcut 0.1  --beta 0  --R0 R   SoftDrop parameters (R0 defaults to R)
+  --sdmode grooming          SoftDrop mode: grooming (a jet no splitting passes keeps its last constituent,
+                             z_g = R_g = 0) or tagging (such a jet fails: m_g, z_g, R_g are null)
   --ktcut 1                  kt cut (GeV) of the primary emission multiplicity
   --all                      also write every splitting of the C/A tree ("all")
 Running:
@@ -72,7 +74,7 @@ export interface CliConfig {
 }
 
 const VALUE_OPTIONS = new Set([
-  '--R', '--ptmin', '--ymax', '--njets', '--algorithm', '--zcut', '--beta', '--R0', '--ktcut', '--threads', '--out', '-o',
+  '--R', '--ptmin', '--ymax', '--njets', '--algorithm', '--zcut', '--beta', '--R0', '--sdmode', '--ktcut', '--threads', '--out', '-o',
   '--exclusive-n', '--dcut', '--ycut', '--collision', '--ee-algorithm', '--ee-p', '--emin', '--constituent-ptmin',
   '--constituent-ymax', '--constituent-etamax', '--pid-include', '--pid-exclude',
 ]);
@@ -107,6 +109,7 @@ export function parseCli(argv: string[]): CliConfig | 'help' | 'version' {
         zcut: { type: 'string' },
         beta: { type: 'string' },
         R0: { type: 'string' },
+        sdmode: { type: 'string' },
         ktcut: { type: 'string' },
         all: { type: 'boolean' },
         'exclusive-n': { type: 'string' },
@@ -152,6 +155,8 @@ export function parseCli(argv: string[]): CliConfig | 'help' | 'version' {
   const zCut = numberOption('zcut', v.zcut, 0.1, (x) => x >= 0 && x < 1, 'a number in [0, 1)');
   const beta = numberOption('beta', v.beta, 0, () => true, 'a number');
   const R0 = numberOption('R0', v.R0, R, (x) => x > 0, 'a number > 0');
+  const sdMode = v.sdmode ?? 'grooming';
+  if (sdMode !== 'grooming' && sdMode !== 'tagging') throw new UsageError(`--sdmode ${sdMode}: must be grooming or tagging`);
   const ktCut = numberOption('ktcut', v.ktcut, 1, (x) => x >= 0, 'a number >= 0 (GeV)');
   const threads = numberOption('threads', v.threads, defaultThreads(), (x) => Number.isInteger(x) && x >= 1 && x <= 256, 'an integer >= 1');
   const exclusiveGiven = [v['exclusive-n'], v.dcut, v.ycut].filter((x) => x !== undefined).length;
@@ -167,7 +172,7 @@ export function parseCli(argv: string[]): CliConfig | 'help' | 'version' {
         : v.ycut !== undefined ? { ycut: numberOption('ycut', v.ycut, 0, (x) => x > 0, 'a number > 0') }
         : null,
     },
-    softDrop: { zCut, beta, R0 },
+    softDrop: { zCut, beta, R0, mode: sdMode },
     multiplicityKtCut: ktCut,
     fullTree: !!v.all,
     collision: v.collision ?? 'hadron',

@@ -62,7 +62,7 @@ export function exportHeader(
     cuts: ee ? { eMin: s.ee!.eMin, maxJets: s.jet.maxJets } : { ptMin: s.jet.ptMin, yMax: s.jet.yMax, maxJets: s.jet.maxJets },
     reclustering: ee ? 'ee-cambridge' : 'ca',
     ...extras,
-    softDrop: { zCut: s.softDrop.zCut, beta: s.softDrop.beta, R0: s.softDrop.R0 },
+    softDrop: { zCut: s.softDrop.zCut, beta: s.softDrop.beta, R0: s.softDrop.R0, mode: s.softDrop.mode ?? 'grooming' },
     multiplicityKtCut: s.multiplicityKtCut,
     fullTree: s.fullTree,
     splittings: includeAll ? ['primary', 'all'] : ['primary'],

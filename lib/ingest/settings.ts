@@ -38,6 +38,7 @@ const softDropSchema = z.strictObject({
   beta: finite('softDrop.beta').default(0),
   /** Missing: the jet radius R. */
   R0: finite('softDrop.R0').refine((v) => v > 0, 'softDrop.R0 must be > 0').optional(),
+  mode: z.enum(['grooming', 'tagging'], { error: 'softDrop.mode must be "grooming" or "tagging"' }).default('grooming'),
 });
 
 const eeSchema = z.strictObject({
@@ -99,7 +100,12 @@ export const settingsInputSchema = z
   .transform(
     (input): CompleteSampleSettings => ({
       jet: input.jet,
-      softDrop: { zCut: input.softDrop.zCut, beta: input.softDrop.beta, R0: input.softDrop.R0 ?? input.jet.R },
+      softDrop: {
+        zCut: input.softDrop.zCut,
+        beta: input.softDrop.beta,
+        R0: input.softDrop.R0 ?? input.jet.R,
+        mode: input.softDrop.mode,
+      },
       multiplicityKtCut: input.multiplicityKtCut,
       fullTree: input.fullTree,
       collision: input.collision,
@@ -124,6 +130,7 @@ export function completeSettings(s: SampleSettings): CompleteSampleSettings {
     ...d,
     ...s,
     jet: { ...s.jet, exclusive: s.jet.exclusive ?? null },
+    softDrop: { ...s.softDrop, mode: s.softDrop.mode ?? d.softDrop.mode },
     ee: s.ee ?? d.ee,
     particles: s.particles ?? d.particles,
     collision: s.collision ?? d.collision,
@@ -137,8 +144,10 @@ export function completeSettings(s: SampleSettings): CompleteSampleSettings {
  */
 export function settingsKey(s: SampleSettings): string {
   const { algorithm, R, ptMin, yMax, maxJets } = s.jet;
-  const { zCut, beta, R0 } = s.softDrop;
+  const { zCut, beta, R0, mode } = s.softDrop;
   const base: unknown[] = [algorithm, R, ptMin, yMax, maxJets, zCut, beta, R0, s.multiplicityKtCut, s.fullTree];
+  // Grooming is the default SoftDrop mode: keys of samples stored before the mode existed stay the same.
+  if (mode === 'tagging') base.push(mode);
   const c = completeSettings(s);
   const ee = c.collision === 'ee';
   const p = c.particles;

@@ -77,12 +77,24 @@ export function putSplitting(ws: ClusterWorkspace, k: number, delta: number, kt:
 /** Writes one splitting of node k and returns its harder branch (writeSplitting; e+e-: ee-decluster.ts). */
 export type SplittingWriter = (ws: ClusterWorkspace, k: number, generation: number, out: Float64Array, at: number) => number;
 
+/** Where the primary sequence ended: the single particle at the end of the harder branch (−1 for no jet). */
+export interface PrimaryEnd {
+  node: number;
+}
+
 /**
  * Primary sequence: from the root, undo the last clustering and follow the harder branch until it is a single
  * particle. Writes the splittings (generation 1) from out[at] on; out needs (n−1)·SPLIT_STRIDE doubles at most.
- * Returns the number of splittings.
+ * Returns the number of splittings; `end`, when given, receives the node of that last particle.
  */
-export function declusterPrimary(ws: ClusterWorkspace, root: number, out: Float64Array, at = 0, write: SplittingWriter = writeSplitting): number {
+export function declusterPrimary(
+  ws: ClusterWorkspace,
+  root: number,
+  out: Float64Array,
+  at = 0,
+  write: SplittingWriter = writeSplitting,
+  end?: PrimaryEnd,
+): number {
   let c = 0;
   let k = root;
   const p1 = ws.parent1;
@@ -90,6 +102,7 @@ export function declusterPrimary(ws: ClusterWorkspace, root: number, out: Float6
     k = write(ws, k, 1, out, at + c * SPLIT_STRIDE);
     c++;
   }
+  if (end) end.node = k;
   return c;
 }
 

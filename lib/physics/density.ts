@@ -24,11 +24,13 @@ export interface PlaneGrid {
 }
 
 /**
- * Default fine axes, 0.05 wide bins. Horizontal [-1, 8]: Δ up to e ≈ 2.7, so the widest splittings of jets up to
- * R = 1.0 (pairwise distances up to 2R) stay on the grid, down to Δ ≈ 3e-4. Vertical [-5, 7]: kt from 7 MeV to 1.1 TeV.
+ * Default fine axes, 0.05 wide bins, wide enough to hold every splitting a real sample makes, so that maps of any
+ * range can be rebinned from them. Horizontal [-3, 16]: Δ from e³ ≈ 20 (more than the ΔR of any two particles within
+ * |y| < 9) down to 1e-7. Vertical [-20, 10]: kt from 2 keV to
+ * 22 TeV. What falls outside still (Δ = 0 among it) is counted in outsideWeight and shown as such.
  */
-export const DEFAULT_X_AXIS: FineAxis = { min: -1, max: 8, bins: 180 };
-export const DEFAULT_Y_AXIS: FineAxis = { min: -5, max: 7, bins: 240 };
+export const DEFAULT_X_AXIS: FineAxis = { min: -3, max: 16, bins: 380 };
+export const DEFAULT_Y_AXIS: FineAxis = { min: -20, max: 10, bins: 600 };
 
 /** The default fine grid for a horizontal coordinate (R is required for ln(R/Δ)). */
 export function defaultGrid(horizontal: HorizontalCoordinate = 'lnInvDelta', R: number | null = null): PlaneGrid {
@@ -166,6 +168,9 @@ export class PlaneHistogram {
   readonly sumW: Float64Array;
   /** Σw² per fine bin. */
   readonly sumW2: Float64Array;
+  /** Unweighted number of emissions per fine bin; null for a histogram read from the first binary version with
+   * weights other than 1 (that version did not store it). */
+  count: Float64Array | null;
   /** Number of jets filled (unweighted). */
   jetCount = 0;
   /** N_jet = Σ w_jet. */
@@ -174,6 +179,8 @@ export class PlaneHistogram {
   jetWeight2 = 0;
   /** Σw of emissions that fell outside the fine grid. */
   outsideWeight = 0;
+  /** Unweighted number of emissions outside the fine grid (NaN when not known, see count). */
+  outsideCount = 0;
   /** Added to ln(1/Δ) to get the horizontal coordinate: ln R for ln(R/Δ), else 0. */
   private readonly xShift: number;
 
@@ -183,6 +190,7 @@ export class PlaneHistogram {
     const n = grid.x.bins * grid.y.bins;
     this.sumW = new Float64Array(n);
     this.sumW2 = new Float64Array(n);
+    this.count = new Float64Array(n);
   }
 
   /** Counts one selected jet in the normalisation, whatever its emissions. */
@@ -200,11 +208,13 @@ export class PlaneHistogram {
     const iy = fineIndex(this.grid.y, lnKt);
     if (ix < 0 || iy < 0) {
       this.outsideWeight += weight;
+      this.outsideCount += 1;
       return;
     }
     const at = iy * this.grid.x.bins + ix;
     this.sumW[at] += weight;
     this.sumW2[at] += weight * weight;
+    if (this.count) this.count[at] += 1;
   }
 
   /** Fills one jet: its weight into N_jet and each splitting (SPLIT_STRIDE doubles, e.g. JetResult.primary). */
@@ -226,10 +236,16 @@ export class PlaneHistogram {
       sum.sumW[i] = this.sumW[i] + other.sumW[i];
       sum.sumW2[i] = this.sumW2[i] + other.sumW2[i];
     }
+    if (this.count && other.count) {
+      for (let i = 0; i < sum.count!.length; i++) sum.count![i] = this.count[i] + other.count[i];
+    } else {
+      sum.count = null;
+    }
     sum.jetCount = this.jetCount + other.jetCount;
     sum.jetWeight = this.jetWeight + other.jetWeight;
     sum.jetWeight2 = this.jetWeight2 + other.jetWeight2;
     sum.outsideWeight = this.outsideWeight + other.outsideWeight;
+    sum.outsideCount = this.outsideCount + other.outsideCount;
     return sum;
   }
 
@@ -311,21 +327,24 @@ export class PlaneHistogram {
   }
 }
 
-// Binary form, version 1, little-endian:
+// Binary form, version 2, little-endian:
 // "SFPH" | u32 version | u8 horizontal (0 ln(1/Δ), 1 ln(R/Δ)) | u8 storage (0 dense, 1 sparse) | f64 R (NaN if none)
-// | x: f64 min, f64 max, u32 bins | y: same | f64 jetCount, jetWeight, jetWeight2, outsideWeight | u32 stored bins
-// | dense: f64 sumW[n], f64 sumW2[n] | sparse: u32 index[k] (increasing), f64 sumW[k], f64 sumW2[k]
+// | x: f64 min, f64 max, u32 bins | y: same | f64 jetCount, jetWeight, jetWeight2, outsideWeight, outsideCount
+// | u32 stored bins | dense: f64 sumW[n], f64 sumW2[n], f64 count[n]
+// | sparse: u32 index[k] (increasing), f64 sumW[k], f64 sumW2[k], f64 count[k].
+// Version 1 (still read) had neither outsideCount nor count.
 const MAGIC = 'SFPH';
-const FORMAT_VERSION = 1;
-const HEADER_BYTES = 4 + 4 + 1 + 1 + 8 + 2 * (8 + 8 + 4) + 4 * 8 + 4;
+const FORMAT_VERSION = 2;
+const HEADER_BYTES_V1 = 4 + 4 + 1 + 1 + 8 + 2 * (8 + 8 + 4) + 4 * 8 + 4;
+const HEADER_BYTES = HEADER_BYTES_V1 + 8;
 
 function encodePlaneHistogram(h: PlaneHistogram): Uint8Array {
   const n = h.sumW.length;
   const filled: number[] = [];
   for (let i = 0; i < n; i++) if (h.sumW[i] !== 0 || h.sumW2[i] !== 0) filled.push(i);
-  const sparse = filled.length * 20 < n * 16;
+  const sparse = filled.length * 28 < n * 24;
   const stored = sparse ? filled.length : n;
-  const bytes = new Uint8Array(HEADER_BYTES + stored * (sparse ? 20 : 16));
+  const bytes = new Uint8Array(HEADER_BYTES + stored * (sparse ? 28 : 24));
   const view = new DataView(bytes.buffer);
   let at = 0;
   const u8 = (v: number) => view.setUint8(at++, v);
@@ -345,15 +364,14 @@ function encodePlaneHistogram(h: PlaneHistogram): Uint8Array {
   f64(h.jetWeight);
   f64(h.jetWeight2);
   f64(h.outsideWeight);
+  f64(h.count ? h.outsideCount : Number.NaN);
   u32(stored);
-  if (sparse) {
-    for (const i of filled) u32(i);
-    for (const i of filled) f64(h.sumW[i]);
-    for (const i of filled) f64(h.sumW2[i]);
-  } else {
-    for (let i = 0; i < n; i++) f64(h.sumW[i]);
-    for (let i = 0; i < n; i++) f64(h.sumW2[i]);
-  }
+  const count = h.count ?? new Float64Array(n).fill(Number.NaN);
+  const indices = sparse ? filled : Array.from({ length: n }, (_, i) => i);
+  if (sparse) for (const i of indices) u32(i);
+  for (const i of indices) f64(h.sumW[i]);
+  for (const i of indices) f64(h.sumW2[i]);
+  for (const i of indices) f64(count[i]);
   return bytes;
 }
 
@@ -361,7 +379,7 @@ function decodePlaneHistogram(bytes: Uint8Array): PlaneHistogram {
   const fail = (why: string): never => {
     throw new RangeError(`plane histogram bytes: ${why}`);
   };
-  if (bytes.length < HEADER_BYTES) fail(`too short (${bytes.length} bytes, header needs ${HEADER_BYTES})`);
+  if (bytes.length < HEADER_BYTES_V1) fail(`too short (${bytes.length} bytes, header needs ${HEADER_BYTES_V1})`);
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   let at = 0;
   const u8 = () => view.getUint8(at++);
@@ -370,7 +388,9 @@ function decodePlaneHistogram(bytes: Uint8Array): PlaneHistogram {
   const magic = String.fromCharCode(u8(), u8(), u8(), u8());
   if (magic !== MAGIC) fail(`not a plane histogram (magic "${magic}")`);
   const version = u32();
-  if (version !== FORMAT_VERSION) fail(`unsupported version ${version} (this code reads ${FORMAT_VERSION})`);
+  if (version !== 1 && version !== FORMAT_VERSION) fail(`unsupported version ${version} (this code reads 1 and ${FORMAT_VERSION})`);
+  const headerBytes = version === 1 ? HEADER_BYTES_V1 : HEADER_BYTES;
+  if (bytes.length < headerBytes) fail(`too short (${bytes.length} bytes, header needs ${headerBytes})`);
   const horizontalCode = u8();
   if (horizontalCode > 1) fail(`unknown horizontal coordinate code ${horizontalCode}`);
   const storage = u8();
@@ -389,12 +409,14 @@ function decodePlaneHistogram(bytes: Uint8Array): PlaneHistogram {
   h.jetWeight = f64();
   h.jetWeight2 = f64();
   h.outsideWeight = f64();
+  h.outsideCount = version === 1 ? Number.NaN : f64();
   if (![h.jetCount, h.jetWeight, h.jetWeight2, h.outsideWeight].every(Number.isFinite)) fail('non-finite totals');
   const stored = u32();
   const n = h.sumW.length;
   const sparse = storage === 1;
   if (!sparse && stored !== n) fail(`dense storage of ${stored} bins for a grid of ${n}`);
-  const expected = HEADER_BYTES + stored * (sparse ? 20 : 16);
+  const perBin = (version === 1 ? 16 : 24) + (sparse ? 4 : 0);
+  const expected = headerBytes + stored * perBin;
   if (bytes.length !== expected) fail(`length ${bytes.length} does not match the ${expected} its header announces`);
   const indices = new Uint32Array(stored);
   for (let k = 0; k < stored; k++) {
@@ -403,5 +425,14 @@ function decodePlaneHistogram(bytes: Uint8Array): PlaneHistogram {
   }
   for (const i of indices) h.sumW[i] = f64();
   for (const i of indices) h.sumW2[i] = f64();
+  if (version === 1) {
+    // Without stored counts, they are known only when every weight is 1 (then count = Σw, exactly).
+    const unitWeights = h.jetWeight === h.jetCount && h.jetWeight2 === h.jetCount;
+    h.count = unitWeights ? Float64Array.from(h.sumW) : null;
+    h.outsideCount = unitWeights ? h.outsideWeight : Number.NaN;
+  } else {
+    for (const i of indices) h.count![i] = f64();
+    if (Number.isNaN(h.outsideCount)) h.count = null;
+  }
   return h;
 }

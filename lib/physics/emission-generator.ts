@@ -122,11 +122,15 @@ export interface JetAxis {
   phi: number;
 }
 
+/** An emission as the generator drew it (before any recoil): opening angle, softer fraction, kt = z pt Δ (GeV). */
+export type EmissionListener = (delta: number, z: number, kt: number) => void;
+
 /**
  * One jet's particles (px, py, pz, E), leading parton first, then the emissions in order, then background. The
- * leading parton starts along `axis`, or along a direction drawn uniformly in |y| ≤ yMax and φ.
+ * leading parton starts along `axis`, or along a direction drawn uniformly in |y| ≤ yMax and φ. `onEmission` hears
+ * every accepted emission as drawn (closure tests compare those with the leading-order density).
  */
-export function generateEmissionJet(rng: Rng, settings: EmissionSettings, axis?: JetAxis): Float64Array {
+export function generateEmissionJet(rng: Rng, settings: EmissionSettings, axis?: JetAxis, onEmission?: EmissionListener): Float64Array {
   const s = checkedSettings(settings);
   const y0 = axis ? axis.y : rng.uniform(-s.yMax, s.yMax);
   const phi0 = axis ? axis.phi : rng.uniform(0, TWO_PI);
@@ -153,7 +157,10 @@ export function generateEmissionJet(rng: Rng, settings: EmissionSettings, axis?:
     const weight = s.hardCollinear ? splittingWeight(s.parton, z) : 2 * colourFactor(s.parton);
     const acceptance = (alphaS(kt) * weight) / (alphaS(s.ktCut) * bound);
     if (acceptance > 1) throw new Error(`emission generator: overestimate too small at z = ${z} (ratio ${acceptance})`);
-    if (rng.next() < acceptance) emit(leader, z, delta, rng.uniform(-Math.PI, Math.PI), emissions);
+    if (rng.next() < acceptance) {
+      onEmission?.(delta, z, kt);
+      emit(leader, z, delta, rng.uniform(-Math.PI, Math.PI), emissions);
+    }
   }
 
   const particles: number[] = [];

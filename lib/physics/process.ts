@@ -6,7 +6,7 @@
 
 import { ClusterWorkspace, algorithmExponent, cluster, loadConstituents, loadParticles } from './clustering';
 import { clusterExclusive } from './clustering/exclusive';
-import { declusterAll, declusterPrimary, reclusterCA, writeSplitting, type SplittingWriter } from './decluster';
+import { declusterAll, declusterPrimary, reclusterCA, writeSplitting, type PrimaryEnd, type SplittingWriter } from './decluster';
 import { hasRealConstituent, jetFlavour, type GhostTags } from './flavour';
 import { primaryMultiplicity, softDrop } from './observables';
 import type { JetResult, ProcessSettings, RecordResult } from './types';
@@ -18,6 +18,7 @@ let splitBuf = new Float64Array(256 * SPLIT_STRIDE);
 let stack = new Int32Array(512);
 let candNode = new Int32Array(64);
 let candKt2 = new Float64Array(64);
+const primaryEnd: PrimaryEnd = { node: -1 };
 
 function ensureScratch(n: number): void {
   if (splitBuf.length < n * SPLIT_STRIDE) splitBuf = new Float64Array(Math.max(n, 2 * (splitBuf.length / SPLIT_STRIDE)) * SPLIT_STRIDE);
@@ -33,7 +34,7 @@ export function jetFromTree(
   tree: ClusterWorkspace = recl, write: SplittingWriter = writeSplitting,
 ): JetResult {
   ensureScratch(nConst);
-  const np = declusterPrimary(tree, root, splitBuf, 0, write);
+  const np = declusterPrimary(tree, root, splitBuf, 0, write, primaryEnd);
   const primary = splitBuf.slice(0, np * SPLIT_STRIDE);
   let all: Float64Array | null = null;
   if (s.fullTree) {
@@ -44,7 +45,7 @@ export function jetFromTree(
     pt, y, phi, m, n: nConst,
     primary,
     all,
-    softDrop: softDrop(primary, np, s.softDrop),
+    softDrop: softDrop(primary, np, s.softDrop, signedMass(tree, primaryEnd.node)),
     multiplicity: primaryMultiplicity(primary, np, s.multiplicityKtCut),
   };
 }

@@ -69,12 +69,19 @@ export interface RemovedParticles {
 
 export const REMOVED_RULES = ['neutrino', 'pidExcluded', 'pidNotIncluded', 'neutral', 'pt', 'rapidity'] as const;
 
-/** SoftDrop grooming parameters (arXiv:1402.2657). */
+/**
+ * SoftDrop parameters (arXiv:1402.2657). `mode` (PHYSICS.md "Derived jet observables"): 'grooming' (the default
+ * when absent) keeps a jet whose splittings all fail as its last harder constituent (z_g = R_g = 0); 'tagging'
+ * marks such a jet as failing (m_g, z_g, R_g NaN).
+ */
 export interface SoftDropSettings {
   zCut: number;
   beta: number;
   R0: number;
+  mode?: SoftDropMode;
 }
+
+export type SoftDropMode = 'grooming' | 'tagging';
 
 export interface ProcessSettings {
   /** 'events': find jets in each record; 'jets': each record is already one jet's constituents. */
@@ -122,11 +129,11 @@ export const S_KAPPA = 7;
 export const S_GENERATION = 8;
 
 export interface SoftDropResult {
-  /** Groomed jet mass; NaN when no splitting passes. */
+  /** Groomed jet mass; when no splitting passes: the last constituent's mass (grooming), NaN (tagging). */
   mg: number;
-  /** z of the stopping splitting; NaN when none passes. */
+  /** z of the stopping splitting; when none passes: 0 (grooming), NaN (tagging). */
   zg: number;
-  /** Δ of the stopping splitting; NaN when none passes. */
+  /** Δ of the stopping splitting; when none passes: 0 (grooming), NaN (tagging). */
   Rg: number;
 }
 

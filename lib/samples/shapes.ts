@@ -67,7 +67,8 @@ export interface JetRowView {
   phi: number;
   m: number;
   n: number;
-  /** SoftDrop groomed mass, z_g and R_g: null when no splitting passed. */
+  /** SoftDrop groomed mass, z_g and R_g: null when the jet failed SoftDrop in tagging mode (or, for samples processed
+   * before grooming mode, when no splitting passed). */
   mg: number | null;
   zg: number | null;
   Rg: number | null;

@@ -20,6 +20,8 @@ interface World {
   sampleId: number;
   /** E-mail and password of every signed-in actor, for a second session of the same person. */
   accounts: Record<Exclude<Actor, 'anonymous'>, { email: string; password: string }>;
+  /** Another processed sample of the study (for contrasts). */
+  secondSampleId: number;
 }
 
 interface Call {
@@ -345,6 +347,25 @@ const ROWS: Row[] = [
   },
   {
     method: 'GET',
+    route: '/api/samples/[sampleId]/map',
+    call: async (world) => ({ path: inSample(world, '/map') }),
+    expected: statuses(401, 404, 200, 200, 200, 200, 200),
+  },
+  {
+    // A sample of a study the caller cannot see answers 404, as one that does not exist.
+    method: 'GET',
+    route: '/api/contrasts',
+    call: async (world) => ({ path: `/api/contrasts?samples=${world.sampleId},${world.secondSampleId}` }),
+    expected: statuses(401, 404, 200, 200, 200, 200, 200),
+  },
+  {
+    method: 'GET',
+    route: '/api/projections',
+    call: async (world) => ({ path: `/api/projections?samples=${world.sampleId}` }),
+    expected: statuses(401, 404, 200, 200, 200, 200, 200),
+  },
+  {
+    method: 'GET',
     route: '/api/samples/[sampleId]/provenance',
     call: async (world) => ({ path: inSample(world, '/provenance') }),
     expected: statuses(401, 404, 200, 200, 200, 200, 200),
@@ -415,10 +436,12 @@ beforeAll(async () => {
     await addMember(people.owner.client, studyId, people[role].email, role);
   }
   const sample = await uploadDone(people.owner.client, { studyId, name: 'Matrix sample', file: jetsFileText(50, 1) });
+  const second = await uploadDone(people.owner.client, { studyId, name: 'Second matrix sample', file: jetsFileText(50, 2) });
   world = {
     server,
     studyId,
     sampleId: sample.id,
+    secondSampleId: second.id,
     people,
     accounts: {
       nonMember: outsider,

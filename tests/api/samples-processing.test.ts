@@ -70,7 +70,8 @@ function expectedPlane(jets: any[], horizontal: HorizontalCoordinate, R: number)
     jet.primary.forEach((row: number[], k: number) => primary.set(row, k * SPLIT_STRIDE));
     histogram.fillJet(primary, jet.weight);
   }
-  return histogram.rebin({ min: -1, max: 8, merge: 4 }, { min: -5, max: 7, merge: 4 });
+  const { x, y } = histogram.grid;
+  return histogram.rebin({ min: x.min, max: x.max, merge: 4 }, { min: y.min, max: y.max, merge: 4 });
 }
 
 function expectClose(actual: number[], expected: Float64Array) {

@@ -64,7 +64,7 @@ describe('an accepted upload', () => {
     expect(done.state).toBe('done');
     expect(done.settings).toEqual({
       jet: { algorithm: 'antikt', R: 0.4, ptMin: 20, yMax: 2.5, maxJets: null, exclusive: null },
-      softDrop: { zCut: 0.1, beta: 0, R0: 0.4 },
+      softDrop: { zCut: 0.1, beta: 0, R0: 0.4, mode: 'grooming' },
       multiplicityKtCut: 1,
       fullTree: false,
       collision: 'hadron',
@@ -87,7 +87,7 @@ describe('an accepted upload', () => {
     expect(detail.tags).toEqual(['wide', 'R08']);
     expect(detail.settings).toEqual({
       jet: { algorithm: 'antikt', R: 0.8, ptMin: 20, yMax: 2.5, maxJets: 1, exclusive: null },
-      softDrop: { zCut: 0.1, beta: 0, R0: 0.8 },
+      softDrop: { zCut: 0.1, beta: 0, R0: 0.8, mode: 'grooming' },
       multiplicityKtCut: 1,
       fullTree: true,
       collision: 'hadron',

@@ -16,8 +16,8 @@ import { cspViolations, openBrowser, screenshot, signInThroughPage, type Browser
 const JETS = 60;
 const SPEC = demoSampleSpec('gluon');
 const STUDY_TITLE = 'Gluon jets, granularity check';
-/** The density image that Plot's raster mark draws inside the figure's plot (the legend has an image of its own). */
-const RASTER = 'figure svg g[aria-label="raster"] image';
+/** The bins Plot's rect marks draw inside the figure's plot (the first rect mark holds masked bins, none on a map). */
+const BINS = 'figure svg g[aria-label="rect"] rect';
 
 let server: TestServer;
 let folder: string;
@@ -138,25 +138,26 @@ describe('samples in a browser', () => {
     expect(await provenance.getByRole('link', { name: 'Download provenance (JSON)' }).getAttribute('href')).toMatch(/\/provenance$/);
   });
 
-  it('draws the primary plane and switches its coordinate and bins', async () => {
+  it('draws the primary plane as a Map view and switches its coordinate and bins', async () => {
     const { page } = browser;
     const plane = panel(page, 'Primary plane');
-    const raster = plane.locator(RASTER);
-    await raster.waitFor();
-    expect(await raster.getAttribute('href')).toMatch(/^data:image\/png/);
-    expect(await plane.locator('figure').textContent()).toContain('emissions per jet per unit area');
+    const bins = plane.locator(BINS);
+    await bins.first().waitFor();
+    expect(await plane.locator('figure').textContent()).toContain('splittings per jet per unit ln(1/Δ) per unit ln(kₜ/GeV)');
     const axisText = () => plane.locator('figure svg').last().textContent();
     expect(await axisText()).toContain('ln(1/Δ)');
-    expect(await axisText()).toContain('ln(kₜ / GeV)');
+    expect(await axisText()).toContain('ln(kₜ/GeV)');
+    expect(await plane.getByTestId('outside-note').textContent()).toMatch(/per jet outside the shown range/);
 
-    await plane.getByRole('button', { name: 'ln(R/Δ)' }).click();
+    await plane.getByLabel('Horizontal', { exact: true }).selectOption('lnRoverDelta');
     await expect.poll(axisText).toContain('ln(R/Δ)');
-    // Coarser bins redraw the image.
-    const fineImage = await raster.getAttribute('href');
-    await plane.getByLabel('Bin size').selectOption('0.5');
-    await expect.poll(() => raster.getAttribute('href')).not.toBe(fineImage);
-    await plane.getByRole('button', { name: 'ln(1/Δ)' }).click();
-    await plane.getByLabel('Bin size').selectOption('0.25');
+    // Coarser bins: fewer rectangles.
+    const fine = await bins.count();
+    await plane.getByLabel('Horizontal bin size').fill('0.5');
+    await plane.getByLabel('Vertical bin size').fill('0.5');
+    await plane.getByRole('button', { name: 'Apply' }).click();
+    await expect.poll(() => bins.count()).toBeLessThan(fine);
+    await plane.getByLabel('Horizontal', { exact: true }).selectOption('lnInvDelta');
     await expect.poll(axisText).toContain('ln(1/Δ)');
   });
 
@@ -301,7 +302,7 @@ describe('samples in a browser', () => {
       await signInThroughPage(page, server.baseUrl, viewer.email, viewer.password);
       await page.goto(`${server.baseUrl}${samplePath}`);
       await waitForState(page, 'done');
-      await panel(page, 'Primary plane').locator(RASTER).waitFor();
+      await panel(page, 'Primary plane').locator(BINS).first().waitFor();
       expect(await page.getByRole('button', { name: 'Delete sample' }).count()).toBe(0);
 
       await page.goto(`${server.baseUrl}/studies/${studyId}`);

@@ -6,7 +6,9 @@
 // A splitting j -> a, b (pt_a >= pt_b) is 9 doubles in the order of lib/physics/types.ts SPLIT_FIELDS:
 // ln(1/Δ), ln(kt), z, Δ, kt, ψ, m, κ, generation (primary-emission plane, arXiv:1807.04758).
 // SoftDrop (arXiv:1402.2657) on the primary sequence: the first splitting with z > zcut (Δ/R0)^β gives
-// m_g = m_{a+b}, z_g and R_g = Δ (NaN when none passes); multiplicity = primary splittings with kt > ktcut.
+// m_g = m_{a+b}, z_g and R_g = Δ; when none passes, grooming mode (the default, PHYSICS.md) keeps the single
+// particle at the end of the harder branch (m_g its mass, z_g = R_g = 0) and tagging mode fails the jet (NaN);
+// multiplicity = primary splittings with kt > ktcut.
 
 #pragma once
 
@@ -93,13 +95,15 @@ inline Split split_of(bool ee, const PseudoJet &j, const PseudoJet &p1, const Ps
   return ee ? make_split_ee(j, p1, p2, gen, a, b) : make_split(j, p1, p2, gen, a, b);
 }
 
-// Primary sequence: undo the last clustering, follow the harder branch (`ee`: e+e- splittings).
-inline void primary_sequence(const ClusterSequence &cs, const PseudoJet &root, std::vector<Split> &out, bool ee = false) {
+// Primary sequence: undo the last clustering, follow the harder branch (`ee`: e+e- splittings). Returns the
+// single particle at the end of the harder branch.
+inline PseudoJet primary_sequence(const ClusterSequence &cs, const PseudoJet &root, std::vector<Split> &out, bool ee = false) {
   PseudoJet j = root, p1, p2, a, b;
   while (cs.has_parents(j, p1, p2)) {
     out.push_back(split_of(ee, j, p1, p2, 1, a, b));
     j = a;
   }
+  return j;
 }
 
 // Depth first, harder branch first; generation = 1 + softer branches followed from the root.
@@ -116,21 +120,6 @@ struct Observables {
   long mult = 0;
 };
 
-inline Observables observables(const std::vector<Split> &prim, double zcut, double beta, double R0, double ktcut) {
-  Observables o;
-  for (const Split &s : prim) {
-    if (s.f[2] > zcut * std::pow(s.f[3] / R0, beta)) {
-      o.mg = s.f[6];
-      o.zg = s.f[2];
-      o.rg = s.f[3];
-      break;
-    }
-  }
-  for (const Split &s : prim)
-    if (s.f[4] > ktcut) o.mult++;
-  return o;
-}
-
 // The options both programs take: jet definition, cuts, observables, --all, input and --out.
 struct CommonOptions {
   double R = 0.4, ptmin = 20, ymax = 2.5;
@@ -138,8 +127,31 @@ struct CommonOptions {
   std::string algorithm = "antikt";
   bool all = false;
   double zcut = 0.1, beta = 0, R0 = -1, ktcut = 1;
+  bool tagging = false;  // SoftDrop mode (--sdmode grooming|tagging)
   std::string in, out;
 };
+
+// SoftDrop and the primary multiplicity of a jet's primary sequence; `end` is where the sequence ended.
+inline Observables observables(const std::vector<Split> &prim, const PseudoJet &end, const CommonOptions &opts) {
+  Observables o;
+  if (!opts.tagging) {
+    o.mg = end.m();
+    o.zg = 0;
+    o.rg = 0;
+  }
+  const double R0 = opts.R0 > 0 ? opts.R0 : opts.R;
+  for (const Split &s : prim) {
+    if (s.f[2] > opts.zcut * std::pow(s.f[3] / R0, opts.beta)) {
+      o.mg = s.f[6];
+      o.zg = s.f[2];
+      o.rg = s.f[3];
+      break;
+    }
+  }
+  for (const Split &s : prim)
+    if (s.f[4] > opts.ktcut) o.mult++;
+  return o;
+}
 
 inline double number_arg(int &i, int argc, char **argv) {
   if (i + 1 >= argc) throw std::runtime_error(std::string("missing value after ") + argv[i]);
@@ -165,6 +177,12 @@ inline bool common_option(CommonOptions &o, int &i, int argc, char **argv) {
   else if (a == "--beta") o.beta = number_arg(i, argc, argv);
   else if (a == "--R0") o.R0 = number_arg(i, argc, argv);
   else if (a == "--ktcut") o.ktcut = number_arg(i, argc, argv);
+  else if (a == "--sdmode") {
+    if (i + 1 >= argc) throw std::runtime_error("missing value after --sdmode");
+    const std::string mode = argv[++i];
+    if (mode != "grooming" && mode != "tagging") throw std::runtime_error("--sdmode must be grooming or tagging");
+    o.tagging = mode == "tagging";
+  }
   else if (a.empty() || a[0] != '-' || a == "-") o.in = a;
   else return false;
   return true;
@@ -235,6 +253,7 @@ void write_export_header(Out &h, const CommonOptions &o, const std::string &cont
   h.num(o.beta);
   h.raw(",\"R0\":");
   h.num(o.R0 > 0 ? o.R0 : o.R);
+  h.raw(o.tagging ? ",\"mode\":\"tagging\"" : ",\"mode\":\"grooming\"");
   h.raw("},\"multiplicityKtCut\":");
   h.num(o.ktcut);
   h.raw(",\"fullTree\":");

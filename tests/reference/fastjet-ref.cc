@@ -12,12 +12,14 @@
 // Cambridge/Aachen at R = JetDefinition::max_allowable_R (all constituents end in one jet) and declustered with
 // ClusterSequence::has_parents: j → a, b with pt_a ≥ pt_b (primary-emission plane, arXiv:1807.04758);
 // SoftDrop (arXiv:1402.2657) on the primary sequence: first splitting with z > zcut (Δ/R0)^β, groomed jet = that
-// node (m_g = m_{a+b}, z_g, R_g = Δ), null when none passes; multiplicity = primary splittings with kt > ktcut.
+// node (m_g = m_{a+b}, z_g, R_g = Δ); when none passes, grooming mode (default) keeps the last constituent of the
+// harder branch (m_g = its mass, z_g = R_g = 0) and tagging mode writes null; multiplicity = primary splittings
+// with kt > ktcut.
 //
 // Build: g++ -O2 -std=c++17 -o tests/reference/bin/fastjet-ref tests/reference/fastjet-ref.cc -lfastjettools -lfastjetplugins -lfastjet
 // Usage: fastjet-ref [options] input.jsonl [--out output.jsonl]
 //   --R 0.4 --ptmin 20 --ymax 2.5 --njets N (default all) --algorithm antikt|kt|ca --all
-//   --zcut 0.1 --beta 0 --R0 (default R) --ktcut 1
+//   --zcut 0.1 --beta 0 --R0 (default R) --sdmode grooming|tagging --ktcut 1
 //   Exclusive jets (kt or ca): --exclusive-n N | --dcut D  (ClusterSequence::exclusive_jets_up_to / exclusive_jets)
 //   Constituent selection (before jet finding; rules in the order of lib/physics/constituent-selection.ts, the
 //   removed particles counted by the first rule failed): --drop-neutrinos --pid-exclude a,b --pid-include a,b
@@ -128,10 +130,9 @@ void write_splits(Out &o, const std::vector<Split> &v, const int *fields, int nf
 void write_jet(Context &c, const std::string &rec, int index, const PseudoJet &jet, size_t n, double weight,
                const ClusterSequence &ca, const PseudoJet &root) {
   std::vector<Split> prim, all;
-  splitfield_ref::primary_sequence(ca, root, prim, c.o.ee);
+  const PseudoJet end = splitfield_ref::primary_sequence(ca, root, prim, c.o.ee);
   if (c.o.all) splitfield_ref::full_tree(ca, root, 1, all, c.o.ee);
-  const splitfield_ref::Observables obs =
-      splitfield_ref::observables(prim, c.o.zcut, c.o.beta, c.o.R0 > 0 ? c.o.R0 : c.o.R, c.o.ktcut);
+  const splitfield_ref::Observables obs = splitfield_ref::observables(prim, end, c.o);
   const double mg = obs.mg, zg = obs.zg, rg = obs.rg;
   const long mult = obs.mult;
 

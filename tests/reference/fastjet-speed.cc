@@ -311,9 +311,9 @@ void decluster(Context &c, const PseudoJet &jet, size_t n, const ClusterSequence
   j.n = n;
   j.prim.clear();
   j.all.clear();
-  splitfield_ref::primary_sequence(ca, root, j.prim);
+  const PseudoJet end = splitfield_ref::primary_sequence(ca, root, j.prim);
   if (c.o.all) splitfield_ref::full_tree(ca, root, 1, j.all);
-  j.obs = splitfield_ref::observables(j.prim, c.o.zcut, c.o.beta, c.o.R0 > 0 ? c.o.R0 : c.o.R, c.o.ktcut);
+  j.obs = splitfield_ref::observables(j.prim, end, c.o);
   c.jets++;
   c.splittings += j.prim.size() + j.all.size();
 }

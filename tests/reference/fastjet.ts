@@ -77,6 +77,7 @@ export interface RefOptions {
   zCut?: number;
   beta?: number;
   R0?: number;
+  sdMode?: 'grooming' | 'tagging';
   ktCut?: number;
   exclusive?: ExclusiveJets;
   /** e+e- jet finding (collision 'ee'). */
@@ -128,7 +129,7 @@ export function settingsFor(content: 'events' | 'jets', o: RefOptions = {}): Pro
   const s: ProcessSettings = {
     content,
     jet: { algorithm: o.algorithm ?? 'antikt', R, ptMin: o.ptMin ?? 20, yMax: o.yMax ?? 2.5, maxJets: o.maxJets ?? null },
-    softDrop: { zCut: o.zCut ?? 0.1, beta: o.beta ?? 0, R0: o.R0 ?? R },
+    softDrop: { zCut: o.zCut ?? 0.1, beta: o.beta ?? 0, R0: o.R0 ?? R, mode: o.sdMode ?? 'grooming' },
     multiplicityKtCut: o.ktCut ?? 1,
     fullTree: o.all ?? false,
     collision: o.ee ? 'ee' : 'hadron',
@@ -150,6 +151,7 @@ function argsFor(o: RefOptions): string[] {
   if (o.zCut !== undefined) a.push('--zcut', String(o.zCut));
   if (o.beta !== undefined) a.push('--beta', String(o.beta));
   if (o.R0 !== undefined) a.push('--R0', String(o.R0));
+  if (o.sdMode !== undefined) a.push('--sdmode', o.sdMode);
   if (o.ktCut !== undefined) a.push('--ktcut', String(o.ktCut));
   const ex = o.exclusive;
   if (ex && 'n' in ex) a.push('--exclusive-n', String(ex.n));

@@ -8,7 +8,7 @@ import { MarkdownView } from '@/components/markdown-view';
 import { ProcessingPanel } from '@/components/samples/processing-panel';
 import { ProgressBar } from '@/components/samples/progress-bar';
 import { Typeset } from '@/components/typeset';
-import { VERTICAL_LABEL } from '@/components/plane/plane-view-settings';
+import { axisAscii, axisLabel } from '@/lib/maps/axis-labels';
 import type { SampleDetail } from '@/lib/samples/shapes';
 
 const html = (element: Parameters<typeof renderToStaticMarkup>[0]) => renderToStaticMarkup(element);
@@ -22,8 +22,17 @@ describe('typeset labels', () => {
     expect(html(createElement(Typeset, { text: 'anti-kt, R = 0.4' }))).toBe('anti-kt, R = 0.4');
   });
 
-  it('labels the plane’s vertical axis with a real subscript', () => {
-    expect(VERTICAL_LABEL).toBe('ln(kₜ / GeV)');
+  it('labels the plane’s axes with real subscripts and Greek letters, and names e+e− variables (θ, kₜ = E sin θ)', () => {
+    const lnKt = { variable: 'lnKt', log: false } as const;
+    const lnInvDelta = { variable: 'lnInvDelta', log: false } as const;
+    expect(axisLabel(lnKt)).toBe('ln(kₜ/GeV)');
+    expect(axisLabel(lnInvDelta)).toBe('ln(1/Δ)');
+    expect(axisLabel(lnInvDelta, 'ee')).toBe('ln(1/θ)');
+    expect(axisLabel(lnKt, 'ee')).toBe('ln(kₜ/GeV), kₜ = E sin θ');
+    expect(axisLabel({ variable: 'delta', log: true }, 'ee')).toBe('ln θ');
+    // Files and the API keep ASCII.
+    expect(axisAscii(lnInvDelta, 'ee')).toBe('ln(1/theta)');
+    expect(axisAscii(lnKt)).toBe('ln(kt/GeV)');
   });
 });
 

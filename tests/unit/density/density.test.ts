@@ -180,15 +180,43 @@ describe('merging and serialisation', () => {
   it('round-trips a sparse histogram through bytes and base64', () => {
     const h = handFilled();
     const bytes = h.toBytes();
-    // header 94 bytes (4 magic + 4 version + 2 codes + 8 R + 2 · 20 axes + 4 · 8 totals + 4 count)
-    // + 3 filled bins · (4 index + 8 + 8) = 60 → 154, smaller than dense 94 + 12 · 16 = 286
-    expect(bytes.length).toBe(154);
+    // version 2: header 102 bytes (4 magic + 4 version + 2 codes + 8 R + 2 · 20 axes + 5 · 8 totals + 4 count)
+    // + 3 filled bins · (4 index + 8 Σw + 8 Σw² + 8 count) = 84 → 186, smaller than dense 102 + 12 · 24 = 390
+    expect(bytes.length).toBe(186);
     for (const copy of [PlaneHistogram.fromBytes(bytes), PlaneHistogram.fromBase64(h.toBase64())]) {
       expect(copy.grid).toEqual(SMALL);
       expect(Array.from(copy.sumW)).toEqual(Array.from(h.sumW));
       expect(Array.from(copy.sumW2)).toEqual(Array.from(h.sumW2));
-      expect([copy.jetCount, copy.jetWeight, copy.jetWeight2, copy.outsideWeight]).toEqual([3, 4, 6, 1]);
+      expect(Array.from(copy.count!)).toEqual(Array.from(h.count!));
+      expect([copy.jetCount, copy.jetWeight, copy.jetWeight2, copy.outsideWeight, copy.outsideCount]).toEqual([3, 4, 6, 1, 1]);
     }
+  });
+
+  it('reads version 1 bytes (without raw counts): counts are Σw when every weight is 1, unknown otherwise', () => {
+    // A version-1 histogram written by hand: dense, 1 × 1 grid, one jet of weight 1 with 3 emissions in the bin.
+    const v1 = (jetWeight: number, jetWeight2: number) => {
+      const bytes = new Uint8Array(94 + 16);
+      const view = new DataView(bytes.buffer);
+      bytes.set([0x53, 0x46, 0x50, 0x48]); // "SFPH"
+      view.setUint32(4, 1, true);
+      view.setFloat64(10, Number.NaN, true);
+      [0, 1].forEach((axis) => {
+        view.setFloat64(18 + 20 * axis, 0, true);
+        view.setFloat64(26 + 20 * axis, 1, true);
+        view.setUint32(34 + 20 * axis, 1, true);
+      });
+      [1, jetWeight, jetWeight2, 0].forEach((v, k) => view.setFloat64(58 + 8 * k, v, true));
+      view.setUint32(90, 1, true);
+      view.setFloat64(94, 3 * jetWeight, true);
+      view.setFloat64(102, 3 * jetWeight2, true);
+      return bytes;
+    };
+    const unit = PlaneHistogram.fromBytes(v1(1, 1));
+    expect(Array.from(unit.count!)).toEqual([3]);
+    expect(unit.outsideCount).toBe(0);
+    const weighted = PlaneHistogram.fromBytes(v1(2, 4));
+    expect(weighted.count).toBeNull();
+    expect(Number.isNaN(weighted.outsideCount)).toBe(true);
   });
 
   it('stores a well-filled histogram densely, keeping ln(R/Δ) and R', () => {
@@ -199,7 +227,7 @@ describe('merging and serialisation', () => {
     h.fillJet(splittings(points), 0.5);
     expect(Array.from(h.sumW)).toEqual(new Array(12).fill(0.5));
     const bytes = h.toBytes();
-    expect(bytes.length).toBe(94 + 12 * 16); // 12 filled bins: sparse would need 240 > 192 bytes
+    expect(bytes.length).toBe(102 + 12 * 24); // 12 filled bins: sparse would need 12 · 28 = 336 > 288 bytes
     const copy = PlaneHistogram.fromBytes(bytes);
     expect(copy.grid).toEqual(grid);
     expect(Array.from(copy.sumW2)).toEqual(new Array(12).fill(0.25));
@@ -208,7 +236,7 @@ describe('merging and serialisation', () => {
   it('refuses damaged bytes', () => {
     const bytes = handFilled().toBytes();
     expect(() => PlaneHistogram.fromBytes(bytes.subarray(0, 50))).toThrow(/too short/);
-    expect(() => PlaneHistogram.fromBytes(bytes.subarray(0, 150))).toThrow(/length 150 does not match the 154/);
+    expect(() => PlaneHistogram.fromBytes(bytes.subarray(0, 150))).toThrow(/length 150 does not match the 186/);
     const wrongMagic = bytes.slice();
     wrongMagic[0] = 0x58;
     expect(() => PlaneHistogram.fromBytes(wrongMagic)).toThrow(/not a plane histogram/);
@@ -216,7 +244,7 @@ describe('merging and serialisation', () => {
     wrongVersion[4] = 7;
     expect(() => PlaneHistogram.fromBytes(wrongVersion)).toThrow(/unsupported version 7/);
     const badIndex = bytes.slice();
-    new DataView(badIndex.buffer).setUint32(94, 99, true);
+    new DataView(badIndex.buffer).setUint32(102, 99, true);
     expect(() => PlaneHistogram.fromBytes(badIndex)).toThrow(/bin index 99 out of order or range/);
     expect(() => PlaneHistogram.fromBase64('not base64 ***')).toThrow(/not valid base64/);
   });

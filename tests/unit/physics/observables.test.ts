@@ -1,6 +1,8 @@
 // SoftDrop and the primary emission multiplicity, worked on paper.
 // SoftDrop: "Soft Drop", JHEP 05 (2014) 146, arXiv:1402.2657 — walk the primary sequence, stop at the first
 // splitting with z > z_cut (Δ/R0)^β; the groomed jet is the node where it stops (m_g = m_{a+b}, z_g, R_g = Δ).
+// When nothing passes, the paper's two modes (PHYSICS.md): grooming keeps the last constituent of the harder
+// branch (its mass, z_g = R_g = 0), tagging fails the jet.
 // The splittings come from the primary-emission-plane declustering, arXiv:1807.04758.
 
 import { describe, expect, it } from 'vitest';
@@ -26,14 +28,14 @@ const M_H = 4.997916927067833;
 
 describe('SoftDrop on a known primary sequence', () => {
   it('β = 0, z_cut = 0.1 keeps everything: the root passes (0.1668 > 0.1), m_g is the jet mass', () => {
-    const sd = softDrop(primary, n, { zCut: 0.1, beta: 0, R0: 0.4 });
+    const sd = softDrop(primary, n, { zCut: 0.1, beta: 0, R0: 0.4 }, 0);
     expect(sd.mg).toBeCloseTo(M_JET, 10);
     expect(sd.zg).toBeCloseTo(0.1668126216296975, 12);
     expect(sd.Rg).toBeCloseTo(0.5, 12);
   });
 
   it('β = 0, z_cut = 0.2 drops the soft branch S (0.1668 < 0.2) and stops at H1|H2 (0.5 > 0.2)', () => {
-    const sd = softDrop(primary, n, { zCut: 0.2, beta: 0, R0: 0.4 });
+    const sd = softDrop(primary, n, { zCut: 0.2, beta: 0, R0: 0.4 }, 0);
     expect(sd.mg).toBeCloseTo(M_H, 11);
     expect(sd.zg).toBeCloseTo(0.5, 13);
     expect(sd.Rg).toBeCloseTo(0.1, 13);
@@ -42,31 +44,39 @@ describe('SoftDrop on a known primary sequence', () => {
   it('β = 1, z_cut = 0.15, R0 = 0.4: the angle raises the root threshold to 0.15·(0.5/0.4) = 0.1875 > 0.1668', () => {
     // Same z_cut with β = 0 would keep the root (0.1668 > 0.15); with β = 1 the root fails and H1|H2
     // (threshold 0.15·0.1/0.4 = 0.0375 < 0.5) stops the grooming.
-    expect(softDrop(primary, n, { zCut: 0.15, beta: 0, R0: 0.4 }).Rg).toBeCloseTo(0.5, 12);
-    const sd = softDrop(primary, n, { zCut: 0.15, beta: 1, R0: 0.4 });
+    expect(softDrop(primary, n, { zCut: 0.15, beta: 0, R0: 0.4 }, 0).Rg).toBeCloseTo(0.5, 12);
+    const sd = softDrop(primary, n, { zCut: 0.15, beta: 1, R0: 0.4 }, 0);
     expect(sd.mg).toBeCloseTo(M_H, 11);
     expect(sd.Rg).toBeCloseTo(0.1, 13);
   });
 
   it('β = 2, z_cut = 0.12, R0 = 1: the root threshold falls to 0.12·0.25 = 0.03, so the root passes', () => {
-    const sd = softDrop(primary, n, { zCut: 0.12, beta: 2, R0: 1 });
+    const sd = softDrop(primary, n, { zCut: 0.12, beta: 2, R0: 1 }, 0);
     expect(sd.mg).toBeCloseTo(M_JET, 10);
   });
 
-  it('nothing passes: NaN (z_cut = 0.6 > every z; also z = z_cut exactly fails, the condition is strict)', () => {
+  it('nothing passes, tagging mode: the jet fails, NaN (z_cut = 0.6 > every z; z = z_cut exactly fails too)', () => {
     // z = pt_b/(pt_a + pt_b) ≤ 1/2 exactly in floating point when pt_b ≤ pt_a, and H1|H2 has z = 1/2.
     expect(primary[SPLIT_STRIDE + 2]).toBeLessThanOrEqual(0.5);
     for (const zCut of [0.6, 0.5]) {
-      const sd = softDrop(primary, n, { zCut, beta: 0, R0: 0.4 });
+      const sd = softDrop(primary, n, { zCut, beta: 0, R0: 0.4, mode: 'tagging' }, 0);
       expect(Number.isNaN(sd.mg)).toBe(true);
       expect(Number.isNaN(sd.zg)).toBe(true);
       expect(Number.isNaN(sd.Rg)).toBe(true);
     }
   });
 
-  it('a single particle has no splitting: NaN', () => {
-    const sd = softDrop(new Float64Array(0), 0, { zCut: 0.1, beta: 0, R0: 0.4 });
-    expect(Number.isNaN(sd.mg)).toBe(true);
+  it('nothing passes, grooming mode (the default): the last constituent stays, m_g = its mass, z_g = R_g = 0', () => {
+    for (const mode of [undefined, 'grooming'] as const) {
+      const sd = softDrop(primary, n, { zCut: 0.6, beta: 0, R0: 0.4, mode }, 0.13957);
+      expect(sd).toEqual({ mg: 0.13957, zg: 0, Rg: 0 });
+    }
+  });
+
+  it('a single particle has no splitting: it is its own groomed jet (grooming), or fails (tagging)', () => {
+    expect(softDrop(new Float64Array(0), 0, { zCut: 0.1, beta: 0, R0: 0.4 }, 0)).toEqual({ mg: 0, zg: 0, Rg: 0 });
+    const tagged = softDrop(new Float64Array(0), 0, { zCut: 0.1, beta: 0, R0: 0.4, mode: 'tagging' }, 0);
+    expect(Number.isNaN(tagged.mg)).toBe(true);
   });
 });
 

@@ -84,12 +84,16 @@ describe("content 'jets'", () => {
     expect(processParticles(particles([[100, 2.5, 1], [50, 2.6, 1]]), s).rejected).toEqual({ pt: 0, y: 1, rank: 0 });
   });
 
-  it('a one-particle jet: no splittings, SoftDrop undefined (NaN), multiplicity 0, massive particle keeps its mass', () => {
+  it('a one-particle jet: no splittings, SoftDrop keeps the particle (grooming), multiplicity 0, massive particle keeps its mass', () => {
     const r = processParticles(particles([[40, 0.2, 3, 1.5]]), s);
     const j = r.jets[0];
     expect(j.primary.length).toBe(0);
     expect(j.all!.length).toBe(0);
-    expect(Number.isNaN(j.softDrop.mg)).toBe(true);
+    // PHYSICS.md, grooming mode: the groomed jet is the single constituent left, m_g its mass, z_g = R_g = 0
+    expect(j.softDrop.mg).toBeCloseTo(1.5, 9);
+    expect([j.softDrop.zg, j.softDrop.Rg]).toEqual([0, 0]);
+    const tagged = processParticles(particles([[40, 0.2, 3, 1.5]]), { ...s, softDrop: { ...s.softDrop, mode: 'tagging' } }).jets[0];
+    expect(Number.isNaN(tagged.softDrop.mg)).toBe(true);
     expect(j.multiplicity).toBe(0);
     expect(j.m).toBeCloseTo(1.5, 9);
   });

@@ -10,7 +10,7 @@ describe('processing settings', () => {
   it('default to PHYSICS.md and common practice', () => {
     expect(defaultSettings()).toEqual({
       jet: { algorithm: 'antikt', R: 0.4, ptMin: 20, yMax: 2.5, maxJets: null, exclusive: null },
-      softDrop: { zCut: 0.1, beta: 0, R0: 0.4 },
+      softDrop: { zCut: 0.1, beta: 0, R0: 0.4, mode: 'grooming' },
       multiplicityKtCut: 1,
       fullTree: false,
       collision: 'hadron',
@@ -20,13 +20,25 @@ describe('processing settings', () => {
     });
   });
 
-  it('keep the key of samples made before the jet-definition settings existed', () => {
+  it('keep the key of samples made before the jet-definition settings and the SoftDrop mode existed', () => {
     const old = { jet: { algorithm: 'antikt' as const, R: 0.4, ptMin: 20, yMax: 2.5, maxJets: null }, softDrop: { zCut: 0.1, beta: 0, R0: 0.4 }, multiplicityKtCut: 1, fullTree: false };
     expect(settingsKey(old)).toBe('["antikt",0.4,20,2.5,null,0.1,0,0.4,1,false]');
     expect(settingsKey(defaultSettings())).toBe(settingsKey(old));
-    for (const change of [{ collision: 'ee', jet: { exclusive: { n: 2 } } }, { particles: { chargedOnly: true } }, { flavourTags: true }, { jet: { algorithm: 'kt', exclusive: { n: 2 } } }]) {
-      expect(settingsKey(settingsInputSchema.parse(change))).not.toBe(settingsKey(old));
-    }
+    const changes = [
+      { collision: 'ee', jet: { exclusive: { n: 2 } } },
+      { particles: { chargedOnly: true } },
+      { flavourTags: true },
+      { jet: { algorithm: 'kt', exclusive: { n: 2 } } },
+      { softDrop: { mode: 'tagging' } },
+    ];
+    for (const change of changes) expect(settingsKey(settingsInputSchema.parse(change))).not.toBe(settingsKey(old));
+  });
+
+  it('take SoftDrop in tagging mode when asked, and name a wrong mode', () => {
+    expect(settingsInputSchema.parse({ softDrop: { mode: 'tagging' } }).softDrop.mode).toBe('tagging');
+    const wrong = settingsInputSchema.safeParse({ softDrop: { mode: 'pruning' } });
+    expect(wrong.success).toBe(false);
+    expect(wrong.error!.issues[0].message).toBe('softDrop.mode must be "grooming" or "tagging"');
   });
 
   it('complete a partial object, R0 following R unless given', () => {

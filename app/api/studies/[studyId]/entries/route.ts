@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { json, signedInRoute } from '@/lib/api/route-handlers';
-import { entryTitleSchema, idParam, noteBodySchema } from '@/lib/api/schemas';
+import { idParam } from '@/lib/api/schemas';
+import { newEntrySchema, requireEntrySamples } from '@/lib/studies/entry-input';
 import { entryWithAuthors, studyEntries, touchStudy } from '@/lib/studies/queries';
 import { BODY_LIMITS } from '@/lib/api/body-limits';
 import { readJsonBody } from '@/lib/api/validation';
@@ -11,13 +12,6 @@ export const dynamic = 'force-dynamic';
 export const runtime = 'nodejs';
 
 const params = z.object({ studyId: idParam });
-
-// Only notes for now: maps, contrasts and separations need processed samples, which come later.
-const newEntrySchema = z.strictObject({
-  kind: z.literal('note', { error: 'kind must be "note"; other kinds cannot be created yet' }),
-  title: entryTitleSchema.optional(),
-  body: noteBodySchema,
-});
 
 export const GET = signedInRoute({ params }, async ({ params, user }) => {
   const { study } = await studyAccess(user, params.studyId, 'viewer');
@@ -30,6 +24,7 @@ export const POST = signedInRoute({ params }, async ({ request, params, user }) 
   const input = await readJsonBody(request, newEntrySchema, BODY_LIMITS.note);
   const { models, write } = db();
   const entry = await write(async (transaction) => {
+    if (input.kind !== 'note') await requireEntrySamples(study.id, input.kind, input.settings, transaction);
     const position = await models.Entry.count({ where: { studyId: study.id }, transaction });
     const created = await models.Entry.create(
       { ...input, studyId: study.id, position, createdById: user.id, updatedById: user.id },

@@ -7,6 +7,7 @@ import { atLeastOneField, entryTitleSchema, idParam, noteBodySchema } from '@/li
 import { entryOrder, entryWithAuthors, renumberEntries, touchStudy } from '@/lib/studies/queries';
 import { BODY_LIMITS } from '@/lib/api/body-limits';
 import { readJsonBody } from '@/lib/api/validation';
+import { checkedSettings, requireEntrySamples } from '@/lib/studies/entry-input';
 import { studyAccess } from '@/lib/auth/study-access';
 import { db } from '@/lib/db/connection';
 
@@ -23,6 +24,8 @@ const entryChangeSchema = atLeastOneField({
     .int('Position must be a whole number')
     .min(0, 'Position counts from 0')
     .optional(),
+  /** A Map's or Contrast's settings, checked against the entry's kind. */
+  settings: z.unknown().optional(),
 });
 
 async function studyEntry(studyId: number, entryId: number, transaction: Transaction) {
@@ -33,10 +36,12 @@ async function studyEntry(studyId: number, entryId: number, transaction: Transac
 
 export const PATCH = signedInRoute({ params }, async ({ request, params, user }) => {
   const { study } = await studyAccess(user, params.studyId, 'editor');
-  const { position, ...content } = await readJsonBody(request, entryChangeSchema, BODY_LIMITS.note);
+  const { position, settings, ...content } = await readJsonBody(request, entryChangeSchema, BODY_LIMITS.note);
   const updated = await db().write(async (transaction) => {
     const entry = await studyEntry(study.id, params.entryId, transaction);
-    await entry.update({ ...content, updatedById: user.id }, { transaction });
+    const checked = settings === undefined ? undefined : checkedSettings(entry.kind, settings);
+    if (checked) await requireEntrySamples(study.id, entry.kind, checked, transaction);
+    await entry.update({ ...content, ...(checked ? { settings: checked } : {}), updatedById: user.id }, { transaction });
     if (position !== undefined) {
       const order = moveInOrder(await entryOrder(study.id, transaction), entry.id, position);
       await renumberEntries(study.id, order, transaction);
