@@ -86,6 +86,7 @@ export function ContrastView({ settings, onChange, compact = false }: ContrastVi
             onDisplay={(display) => change({ display })}
             serverFilterError={serverFilterError}
             withOverlays={false}
+            collision={data?.inputs[0]?.sample.collision}
           />
           <div className="flex flex-wrap items-center gap-3 text-sm">
             <ChoiceButtons label="Comparison" value={settings.mode} options={[['ratio', 'Ratio'], ['difference', 'Difference'], ['pull', 'Pull']]} onChange={(mode) => change({ mode })} />

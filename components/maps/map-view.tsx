@@ -71,7 +71,14 @@ export function MapView({ settings, onChange, compact = false }: MapViewProps) {
   return (
     <div className="space-y-3">
       {!compact && onChange && (
-        <ViewControls view={view} display={display} onView={(next) => change({ view: next })} onDisplay={(next) => change({ display: next })} serverFilterError={serverFilterError} />
+        <ViewControls
+          view={view}
+          display={display}
+          onView={(next) => change({ view: next })}
+          onDisplay={(next) => change({ display: next })}
+          serverFilterError={serverFilterError}
+          collision={data?.sample.collision}
+        />
       )}
       {error && !serverFilterError && <Notice tone="error">{error.message}</Notice>}
       {!data && !error && <LoadingBlock label="Drawing the map…" />}

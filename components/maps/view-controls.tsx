@@ -1,7 +1,7 @@
 'use client';
 
 import { type FormEvent, useEffect, useId, useState } from 'react';
-import { axisLabel, TREE_LABELS } from '@/lib/maps/axis-labels';
+import { axisLabel, TREE_LABELS, type Collision } from '@/lib/maps/axis-labels';
 import type { DisplaySettings } from '@/lib/maps/entry-settings';
 import { compileFilter, FilterError } from '@/lib/maps/filter-expression';
 import { type PlaneView, planeViewSchema } from '@/lib/maps/view-settings';
@@ -61,7 +61,19 @@ function NumberInput({ label, value, onChange, placeholder }: { label: string; v
 const NO_RANGE = { min: null, max: null, step: null };
 
 /** One coordinate of the plane: which variable, and for Δ, z and kt whether its bins are logarithmic. */
-function AxisSelect({ label, variables, axis, onChange }: { label: string; variables: readonly PlaneVariable[]; axis: AxisChoice; onChange: (axis: AxisChoice) => void }) {
+function AxisSelect({
+  label,
+  variables,
+  axis,
+  collision,
+  onChange,
+}: {
+  label: string;
+  variables: readonly PlaneVariable[];
+  axis: AxisChoice;
+  collision: Collision;
+  onChange: (axis: AxisChoice) => void;
+}) {
   return (
     <>
       <label className="flex items-center gap-2 text-ink-soft">
@@ -69,7 +81,7 @@ function AxisSelect({ label, variables, axis, onChange }: { label: string; varia
         <select aria-label={label} className={inlineSelectClass} value={axis.variable} onChange={(event) => onChange({ ...axis, variable: event.target.value as PlaneVariable })}>
           {variables.map((variable) => (
             <option key={variable} value={variable}>
-              {axisLabel({ variable, log: false })}
+              {axisLabel({ variable, log: false }, collision)}
             </option>
           ))}
         </select>
@@ -91,12 +103,14 @@ interface ViewControlsProps {
   onDisplay: (display: DisplaySettings) => void;
   /** A refusal of the filter from the server, shown at the filter field. */
   serverFilterError?: string | null;
+  /** The samples' collision type: e+e− planes name θ and kₜ = E sin θ. */
+  collision?: Collision;
   /** Overlays and the expectation are for maps of densities; contrasts leave them out. */
   withOverlays?: boolean;
 }
 
 /** The settings of a plane view: splittings, coordinates, ranges and bins, jet selection, colour and overlays. */
-export function ViewControls({ view, display, onView, onDisplay, serverFilterError, withOverlays = true }: ViewControlsProps) {
+export function ViewControls({ view, display, onView, onDisplay, serverFilterError, withOverlays = true, collision = 'hadron' }: ViewControlsProps) {
   const [draft, setDraft] = useState<Draft>(() => draftOf(view));
   const [problem, setProblem] = useState<string | null>(null);
   const [filterProblem, setFilterProblem] = useState<string | null>(null);
@@ -147,8 +161,8 @@ export function ViewControls({ view, display, onView, onDisplay, serverFilterErr
             ))}
           </select>
         </label>
-        <AxisSelect label="Horizontal" variables={HORIZONTAL_VARIABLES} axis={view.x} onChange={(x) => onView({ ...view, x: x as PlaneView['x'], bins: { ...view.bins, x: NO_RANGE } })} />
-        <AxisSelect label="Vertical" variables={VERTICAL_VARIABLES} axis={view.y} onChange={(y) => onView({ ...view, y: y as PlaneView['y'], bins: { ...view.bins, y: NO_RANGE } })} />
+        <AxisSelect label="Horizontal" variables={HORIZONTAL_VARIABLES} axis={view.x} collision={collision} onChange={(x) => onView({ ...view, x: x as PlaneView['x'], bins: { ...view.bins, x: NO_RANGE } })} />
+        <AxisSelect label="Vertical" variables={VERTICAL_VARIABLES} axis={view.y} collision={collision} onChange={(y) => onView({ ...view, y: y as PlaneView['y'], bins: { ...view.bins, y: NO_RANGE } })} />
         <ChoiceButtons label="Colour scale" value={display.colour} options={[['linear', 'Linear colour'], ['log', 'Log colour']]} onChange={(colour) => onDisplay({ ...display, colour })} />
       </div>
 

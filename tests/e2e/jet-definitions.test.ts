@@ -93,7 +93,7 @@ describe('jet definitions in a browser', () => {
     await expect.poll(() => jets.locator('tbody tr').first().textContent()).toMatch(/b$/);
 
     const plane = panel(page, 'Primary plane');
-    await plane.getByRole('button', { name: 'ln(1/θ)' }).waitFor();
+    await expect.poll(() => plane.getByLabel('Horizontal').locator('option').allTextContents()).toContain('ln(1/θ)');
     await plane.locator('figure svg').first().waitFor();
     expect(await plane.locator('figure').first().textContent()).toContain('kₜ = E sin θ');
 
