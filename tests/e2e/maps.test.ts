@@ -3,6 +3,7 @@
 // own address, its binning and ranges changed, log colour, the expectation overlay, a hover value, a refused filter,
 // SVG and CSV downloads; the Contrast with its box beside 9/4 and a projection. Screenshots go to tests/artifacts/.
 import { readFileSync } from 'node:fs';
+import { demoSampleSpec } from '@/lib/demo/scenario';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { type Client, signIn, startTestServer, type TestServer } from '../support/server';
@@ -155,7 +156,9 @@ describe('maps and contrasts in a browser', () => {
     expect(await page.getByTestId('chi2').first().textContent()).toMatch(/χ²\/ndf = [\d.e+]+\/\d+ = [\d.]+ over the bins/);
     const result = page.getByTestId('box-result');
     await result.waitFor();
-    expect(await result.textContent()).toMatch(/gluon-like jets \/ Tallis upgrade B: quark-like jets = 2\.\d+ ± 0\.0\d/);
+    const escaped = (text: string) => text.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
+    const [gluon, quark] = [demoSampleSpec('gluon').name, demoSampleSpec('quark').name].map(escaped);
+    expect(await result.textContent()).toMatch(new RegExp(`${gluon} / ${quark} = 2\\.\\d+ ± 0\\.0\\d`));
     expect(await result.textContent()).toContain('CA/CF = 9/4 = 2.25');
     expect(await result.textContent()).toContain('Nucl. Phys. B126 (1977) 298');
     const projection = page.getByRole('region', { name: 'Projection' });
