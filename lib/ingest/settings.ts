@@ -139,25 +139,28 @@ export function completeSettings(s: SampleSettings): CompleteSampleSettings {
 }
 
 /**
- * The settings as text with a fixed key order: equal settings give equal keys. The jet-definition settings are
- * appended only when one differs from its default, so samples made before they existed keep their keys.
+ * The generation of the engine's stored results: raised whenever the same file and settings would be stored
+ * differently, so that a sample made by an older engine is never offered as a duplicate of a new upload.
+ * 1: the first engine; 2: SoftDrop in grooming mode by default, and the fine grid widened to ln kt from −20.
+ */
+export const RESULTS_GENERATION = 2;
+
+/**
+ * The key of a sample's stored results: the generation of the engine and every setting, in a fixed order, so
+ * that equal keys mean equal results for the same file.
  */
 export function settingsKey(s: SampleSettings): string {
-  const { algorithm, R, ptMin, yMax, maxJets } = s.jet;
-  const { zCut, beta, R0, mode } = s.softDrop;
-  const base: unknown[] = [algorithm, R, ptMin, yMax, maxJets, zCut, beta, R0, s.multiplicityKtCut, s.fullTree];
-  // Grooming is the default SoftDrop mode: keys of samples stored before the mode existed stay the same.
-  if (mode === 'tagging') base.push(mode);
   const c = completeSettings(s);
-  const ee = c.collision === 'ee';
-  const p = c.particles;
-  const extra = [
+  const { jet, softDrop, ee, particles: p } = c;
+  return JSON.stringify([
+    RESULTS_GENERATION,
+    [jet.algorithm, jet.R, jet.ptMin, jet.yMax, jet.maxJets, jet.exclusive],
+    [softDrop.zCut, softDrop.beta, softDrop.R0, softDrop.mode],
+    c.multiplicityKtCut,
+    c.fullTree,
     c.collision,
-    c.jet.exclusive,
-    ee ? [c.ee.algorithm, c.ee.p, c.ee.eMin] : null,
+    c.collision === 'ee' ? [ee.algorithm, ee.p, ee.eMin] : null,
     selectsAll(p) ? null : [p.dropNeutrinos, p.pidExclude, p.pidInclude, p.chargedOnly, p.ptMin, p.rapidityMax, p.rapidityKind],
     c.flavourTags,
-  ];
-  const isDefault = !ee && c.jet.exclusive === null && extra[3] === null && !c.flavourTags;
-  return JSON.stringify(isDefault ? base : [...base, extra]);
+  ]);
 }

@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { progressView } from '@/lib/jobs/progress';
 import { readSampleConfig } from '@/lib/samples/config';
 import { fileNameProblem } from '@/lib/samples/file-name';
-import { defaultSettings, settingsInputSchema, settingsKey } from '@/lib/ingest/settings';
+import { defaultSettings, RESULTS_GENERATION, settingsInputSchema, settingsKey } from '@/lib/ingest/settings';
 import { uploadFieldsSchema } from '@/lib/samples/upload-fields';
 
 describe('processing settings', () => {
@@ -20,10 +20,13 @@ describe('processing settings', () => {
     });
   });
 
-  it('keep the key of samples made before the jet-definition settings and the SoftDrop mode existed', () => {
+  it('key stored results by every setting and the engine generation, so an older engine\'s samples never match', () => {
+    // A sample stored by the first engine (SoftDrop tagging-like nulls, the narrower fine grid) had this key.
+    expect(settingsKey(defaultSettings())).not.toBe('["antikt",0.4,20,2.5,null,0.1,0,0.4,1,false]');
+    expect(JSON.parse(settingsKey(defaultSettings()))[0]).toBe(RESULTS_GENERATION);
+    // Settings stored before a setting existed read as its default and give the default's key.
     const old = { jet: { algorithm: 'antikt' as const, R: 0.4, ptMin: 20, yMax: 2.5, maxJets: null }, softDrop: { zCut: 0.1, beta: 0, R0: 0.4 }, multiplicityKtCut: 1, fullTree: false };
-    expect(settingsKey(old)).toBe('["antikt",0.4,20,2.5,null,0.1,0,0.4,1,false]');
-    expect(settingsKey(defaultSettings())).toBe(settingsKey(old));
+    expect(settingsKey(old)).toBe(settingsKey(defaultSettings()));
     const changes = [
       { collision: 'ee', jet: { exclusive: { n: 2 } } },
       { particles: { chargedOnly: true } },
@@ -31,7 +34,8 @@ describe('processing settings', () => {
       { jet: { algorithm: 'kt', exclusive: { n: 2 } } },
       { softDrop: { mode: 'tagging' } },
     ];
-    for (const change of changes) expect(settingsKey(settingsInputSchema.parse(change))).not.toBe(settingsKey(old));
+    const keys = changes.map((change) => settingsKey(settingsInputSchema.parse(change)));
+    expect(new Set([...keys, settingsKey(old)]).size).toBe(changes.length + 1);
   });
 
   it('take SoftDrop in tagging mode when asked, and name a wrong mode', () => {
