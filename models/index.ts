@@ -2,6 +2,7 @@ import type { Sequelize } from 'sequelize';
 import { defineApiToken } from './api-token';
 import { defineEntry } from './entry';
 import { defineMembership } from './membership';
+import { defineNotification } from './notification';
 import { defineSample } from './sample';
 import { defineSamplePlane } from './sample-plane';
 import { defineSignInSession } from './sign-in-session';
@@ -23,6 +24,7 @@ export function defineModels(sequelize: Sequelize) {
   const SamplePlane = defineSamplePlane(sequelize);
   const ApiToken = defineApiToken(sequelize);
   const SignInSession = defineSignInSession(sequelize);
+  const Notification = defineNotification(sequelize);
 
   Study.hasMany(Membership, { foreignKey: 'studyId', as: 'memberships' });
   Membership.belongsTo(Study, { foreignKey: 'studyId', as: 'study' });
@@ -37,8 +39,10 @@ export function defineModels(sequelize: Sequelize) {
   Sample.belongsTo(User, { foreignKey: 'uploadedById', as: 'uploadedBy' });
   Sample.hasMany(SamplePlane, { foreignKey: 'sampleId', as: 'planes' });
   ApiToken.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+  Notification.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+  Notification.belongsTo(User, { foreignKey: 'actorId', as: 'actor' });
 
-  return { User, SiteSetting, Study, Membership, Entry, Sample, SamplePlane, ApiToken, SignInSession };
+  return { User, SiteSetting, Study, Membership, Entry, Sample, SamplePlane, ApiToken, SignInSession, Notification };
 }
 
 export type Models = ReturnType<typeof defineModels>;

@@ -31,3 +31,11 @@ export const SAMPLE_DESCRIPTION_MAX = 5000;
 export const SAMPLE_TAG_MAX = 40;
 export const SAMPLE_TAGS_MAX = 20;
 export const API_TOKEN_NAME_MAX = 100;
+
+/**
+ * What a notification is about. Each becomes a mail (or a digest line) for a person who has that kind turned on:
+ * someone mentioned them, someone replied in a thread they take part in, a sample they uploaded finished or failed.
+ */
+export const NOTIFICATION_KINDS = ['mention', 'reply', 'sample-finished', 'sample-failed'] as const;
+export type NotificationKind = (typeof NOTIFICATION_KINDS)[number];
+export const NOTIFICATION_SUMMARY_MAX = 500;

@@ -2,7 +2,8 @@ import { foundation } from './0001-foundation';
 import { samples } from './0002-samples';
 import { processingTime } from './0003-processing-time';
 import { hardening } from './0004-hardening';
+import { notifications } from './0005-notifications';
 import type { SchemaMigration } from './types';
 
 /** Every schema step in the order it runs. Listed here rather than found on disk so that any loader can run them. */
-export const schemaMigrations: readonly SchemaMigration[] = [foundation, samples, processingTime, hardening];
+export const schemaMigrations: readonly SchemaMigration[] = [foundation, samples, processingTime, hardening, notifications];
