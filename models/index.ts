@@ -2,7 +2,11 @@ import type { Sequelize } from 'sequelize';
 import { defineApiToken } from './api-token';
 import { defineEntry } from './entry';
 import { defineMembership } from './membership';
+import { defineInvitation } from './invitation';
 import { defineNotification } from './notification';
+import { defineOutgoingMail } from './outgoing-mail';
+import { definePasswordReset } from './password-reset';
+import { defineReceivedMail } from './received-mail';
 import { defineSample } from './sample';
 import { defineSamplePlane } from './sample-plane';
 import { defineSignInSession } from './sign-in-session';
@@ -25,6 +29,10 @@ export function defineModels(sequelize: Sequelize) {
   const ApiToken = defineApiToken(sequelize);
   const SignInSession = defineSignInSession(sequelize);
   const Notification = defineNotification(sequelize);
+  const OutgoingMail = defineOutgoingMail(sequelize);
+  const ReceivedMail = defineReceivedMail(sequelize);
+  const Invitation = defineInvitation(sequelize);
+  const PasswordReset = definePasswordReset(sequelize);
 
   Study.hasMany(Membership, { foreignKey: 'studyId', as: 'memberships' });
   Membership.belongsTo(Study, { foreignKey: 'studyId', as: 'study' });
@@ -41,8 +49,12 @@ export function defineModels(sequelize: Sequelize) {
   ApiToken.belongsTo(User, { foreignKey: 'userId', as: 'user' });
   Notification.belongsTo(User, { foreignKey: 'userId', as: 'user' });
   Notification.belongsTo(User, { foreignKey: 'actorId', as: 'actor' });
+  Notification.belongsTo(Study, { foreignKey: 'studyId', as: 'study' });
+  Invitation.belongsTo(Study, { foreignKey: 'studyId', as: 'study' });
+  Invitation.belongsTo(User, { foreignKey: 'invitedById', as: 'invitedBy' });
+  Study.hasMany(Invitation, { foreignKey: 'studyId', as: 'invitations' });
 
-  return { User, SiteSetting, Study, Membership, Entry, Sample, SamplePlane, ApiToken, SignInSession, Notification };
+  return { User, SiteSetting, Study, Membership, Entry, Sample, SamplePlane, ApiToken, SignInSession, Notification, OutgoingMail, ReceivedMail, Invitation, PasswordReset };
 }
 
 export type Models = ReturnType<typeof defineModels>;

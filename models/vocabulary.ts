@@ -39,3 +39,18 @@ export const API_TOKEN_NAME_MAX = 100;
 export const NOTIFICATION_KINDS = ['mention', 'reply', 'sample-finished', 'sample-failed'] as const;
 export type NotificationKind = (typeof NOTIFICATION_KINDS)[number];
 export const NOTIFICATION_SUMMARY_MAX = 500;
+
+/** Why a mail was sent: an invitation, a password reset, one notification, or a day's notifications together. */
+export const MAIL_PURPOSES = ['invitation', 'password-reset', 'notification', 'digest'] as const;
+export type MailPurpose = (typeof MAIL_PURPOSES)[number];
+/** An outgoing mail waits (queued, also between retries), was handed to the mail server (sent), or gave up (failed). */
+export const OUTGOING_MAIL_STATES = ['queued', 'sent', 'failed'] as const;
+export type OutgoingMailState = (typeof OUTGOING_MAIL_STATES)[number];
+
+/** What each notification kind's mails are about, in the words of the profile page and of the mails. */
+export const NOTIFICATION_KIND_LABELS: Record<NotificationKind, string> = {
+  mention: 'someone mentions you',
+  reply: 'a reply in a thread you take part in',
+  'sample-finished': 'a sample you uploaded finished processing',
+  'sample-failed': 'a sample you uploaded failed',
+};

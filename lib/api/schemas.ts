@@ -81,3 +81,9 @@ export const entryTitleSchema = plainName(
 export const noteBodySchema = z
   .string({ error: 'Body is required and must be text (Markdown)' })
   .max(NOTE_BODY_MAX, `Body must be at most ${NOTE_BODY_MAX} characters`);
+
+/** The token of a link sent by mail (lib/auth/signed-links.ts); its signature is checked where it is used. */
+export const signedTokenSchema = z
+  .string({ error: 'Token is required' })
+  .min(1, 'Token must not be empty')
+  .max(100, 'Token must be at most 100 characters');

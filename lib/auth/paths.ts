@@ -4,7 +4,8 @@ export const SIGN_IN_PATH = '/sign-in';
 /** The request header in which proxy.ts tells the signed-in pages' layout the requested path. */
 export const PATHNAME_HEADER = 'x-splitfield-pathname';
 
-const PUBLIC_PAGES = [SIGN_IN_PATH, '/sign-up'];
+// Invitation and password reset links are opened by people who may have no session (or no account yet).
+const PUBLIC_PAGES = [SIGN_IN_PATH, '/sign-up', '/invite', '/forgot-password', '/reset-password'];
 
 export function isPublicPage(pathname: string): boolean {
   return PUBLIC_PAGES.some((page) => pathname === page || pathname.startsWith(`${page}/`));

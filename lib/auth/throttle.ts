@@ -1,12 +1,13 @@
 // Throttling of guessable or costly requests, in memory (one server per storage folder): failed sign-ins per
-// account and per client address, sign-ups per address, wrong current passwords, unknown API tokens, new tokens.
+// account and per client address, sign-ups per address, wrong current passwords, unknown API tokens, new tokens,
+// password reset requests (per address and per account) and invitations per user.
 // A request over a limit gets 429 with the seconds until it may be tried again (Retry-After).
 import { RateLimiterMemory, RateLimiterRes } from 'rate-limiter-flexible';
 import { ApiError } from '../api/errors';
 import { retryAfterText } from './retry-after';
 import { readThrottleConfig, type ThrottleConfig } from './throttle-config';
 
-export type ThrottleKind = 'accountFailure' | 'addressFailure' | 'signup' | 'newToken';
+export type ThrottleKind = 'accountFailure' | 'addressFailure' | 'signup' | 'newToken' | 'resetAddress' | 'resetAccount' | 'invitation';
 
 interface Throttles {
   config: ThrottleConfig;
@@ -30,6 +31,9 @@ function throttles(): Throttles {
         addressFailure: limiter(config.addressFailures, 'address'),
         signup: limiter(config.signupsPerAddress, 'signup'),
         newToken: limiter(config.tokensPerUser, 'token'),
+        resetAddress: limiter(config.resetsPerAddress, 'reset-address'),
+        resetAccount: limiter(config.resetsPerAccount, 'reset-account'),
+        invitation: limiter(config.invitationsPerUser, 'invitation'),
       },
     };
   }

@@ -8,6 +8,7 @@ import type { Sample } from '@/models/sample';
 import { nextFairJob, type OwnerState } from './fair-order';
 import { sampleError } from './failure';
 import type { FinishedPlane } from './messages';
+import { notifySampleOutcome } from './sample-notifications';
 
 /** A job cut short by a server stop this many times is not tried again. */
 export const MAX_ATTEMPTS = 2;
@@ -103,6 +104,7 @@ export async function recordDone(
       })),
       { transaction },
     );
+    await notifySampleOutcome(sampleId, 'finished', transaction);
     return true;
   });
 }
@@ -116,13 +118,14 @@ export async function recordEnded(
   processingMs: number | null = null,
 ) {
   const { models, write } = db();
-  const [updated] = await write((transaction) =>
-    models.Sample.update(
+  return write(async (transaction) => {
+    const [updated] = await models.Sample.update(
       { state, error, finishedAt: new Date(), processingMs, softwareVersion: SOFTWARE_VERSION, uploadFile: null },
       { where: { id: sampleId, state: { [Op.in]: ['queued', 'running'] } }, transaction },
-    ),
-  );
-  return updated > 0;
+    );
+    if (updated > 0 && state === 'failed') await notifySampleOutcome(sampleId, 'failed', transaction);
+    return updated > 0;
+  });
 }
 
 export interface UnfinishedAtStart {
@@ -154,6 +157,7 @@ export async function requeueInterrupted(uploadExists: (fileName: string) => boo
           { state: 'failed', error, finishedAt: new Date(), uploadFile: null },
           { transaction },
         );
+        await notifySampleOutcome(sample.id, 'failed', transaction);
         result.abandoned.push(sample.id);
         continue;
       }
