@@ -63,3 +63,13 @@ export interface AdminUser {
   disabled: boolean;
   createdAt: string;
 }
+
+export interface PendingInvitation {
+  id: number;
+  email: string;
+  role: StudyRole;
+  invitedBy: Author | null;
+  createdAt: string;
+  expiresAt: string;
+  expired: boolean;
+}

@@ -1,4 +1,5 @@
 import type { Metadata } from 'next';
+import Link from 'next/link';
 import { AuthCard } from '@/components/auth-card';
 import { SignInForm } from '@/components/auth/sign-in-form';
 
@@ -13,6 +14,11 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
       other={{ question: 'New here?', href: '/sign-up', label: 'Create an account' }}
     >
       <SignInForm callbackUrl={typeof callbackUrl === 'string' ? callbackUrl : undefined} />
+      <p className="mt-4 text-sm">
+        <Link href="/forgot-password" className="text-accent-strong hover:underline">
+          Forgot your password?
+        </Link>
+      </p>
     </AuthCard>
   );
 }

@@ -1,0 +1,68 @@
+'use client';
+
+import useSWR from 'swr';
+import { sendJson, type ApiError } from '@/lib/api/client';
+import { ActionForm, field, SubmitButton } from '../action-form';
+import type { PendingInvitation } from '../api-types';
+import { ConfirmButton } from '../confirm-button';
+import { SelectField, TextField } from '../fields';
+import { formatDate } from '../format';
+import { Notice } from '../notice';
+import { RoleBadge } from '../role-badge';
+import { RoleOptions } from './role-options';
+
+/** Owners invite by e-mail (a mail with a link; the person may have no account yet) and revoke what is pending. */
+export function Invitations({ studyId }: { studyId: string }) {
+  const url = `/api/studies/${studyId}/invitations`;
+  const { data, error, mutate } = useSWR<{ invitations: PendingInvitation[] }, ApiError>(url);
+
+  async function invite(form: FormData) {
+    await sendJson('POST', url, { email: field(form, 'email'), role: field(form, 'role') });
+    await mutate();
+  }
+
+  return (
+    <div className="space-y-3">
+      <h3 className="text-sm font-semibold">Invite by e-mail</h3>
+      <ActionForm onSubmit={invite} resetOnSuccess successMessage="Invitation mailed." aria-label="Invite by e-mail" className="space-y-3">
+        <TextField label="Email" name="email" type="email" required placeholder="colleague@example.org" hint="They get a link that works once, for 7 days; no account is needed yet." />
+        <SelectField label="Role" name="role" defaultValue="viewer">
+          <RoleOptions />
+        </SelectField>
+        <SubmitButton size="sm" pendingLabel="Inviting…">
+          Send invitation
+        </SubmitButton>
+      </ActionForm>
+      {error && <Notice tone="error">{error.message}</Notice>}
+      {data && data.invitations.length > 0 && (
+        <ul aria-label="Pending invitations" className="divide-y divide-ink/10 border-t border-ink/10">
+          {data.invitations.map((invitation) => (
+            <li key={invitation.id} className="flex items-start justify-between gap-2 py-2 text-sm">
+              <div className="min-w-0">
+                <p className="truncate font-medium" title={invitation.email}>
+                  {invitation.email}
+                </p>
+                <p className="text-xs text-ink-soft">
+                  {invitation.expired ? 'Expired' : `Pending until ${formatDate(invitation.expiresAt)}`}
+                  {invitation.invitedBy && ` · invited by ${invitation.invitedBy.name}`}
+                </p>
+              </div>
+              <div className="flex shrink-0 items-center gap-2">
+                <RoleBadge role={invitation.role} />
+                <ConfirmButton
+                  label="Revoke"
+                  question={`Revoke the invitation of ${invitation.email}?`}
+                  confirmLabel="Revoke"
+                  onConfirm={async () => {
+                    await sendJson('DELETE', `${url}/${invitation.id}`);
+                    await mutate();
+                  }}
+                />
+              </div>
+            </li>
+          ))}
+        </ul>
+      )}
+    </div>
+  );
+}
