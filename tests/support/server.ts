@@ -40,7 +40,7 @@ export interface TestServerOptions {
   demoJets?: number;
 }
 
-function freePort(): Promise<number> {
+export function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {
     const probe = createServer();
     probe.once('error', reject);
