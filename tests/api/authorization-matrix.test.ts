@@ -4,6 +4,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Client, signIn, type TestServer } from '../support/server';
 import { addMember, newAccount, newNote, newPerson, newStudy, serverWithAdmin, type Person } from './fixtures';
+import { linkToken, waitForMail } from './mail-fixtures';
 import { apiRouteMethods } from './route-inventory';
 import { jetsFileText, upload, uploadDone, uploadForm } from './sample-fixtures';
 
@@ -102,6 +103,20 @@ async function tokenNames(client: Client): Promise<string[]> {
 async function entryBodies(world: World): Promise<string[]> {
   const list = await world.people.owner.client.get(`/api/studies/${world.studyId}/entries`);
   return list.body.entries.map((entry: { body: string }) => entry.body);
+}
+
+async function invitedEmails(world: World): Promise<string[]> {
+  const list = await world.people.owner.client.get(inStudy(world, '/invitations'));
+  return list.body.invitations.map((invitation: { email: string }) => invitation.email);
+}
+
+/** The link token of a new invitation of `email` into a fresh study of a fresh person, read from the Outbox. */
+async function invitationTokenFor(world: World, email: string): Promise<string> {
+  const inviter = await newPerson(world.server, 'inviter');
+  const study = await newStudy(inviter.client, 'Invitation study');
+  const made = await inviter.client.post(`/api/studies/${study}/invitations`, { email, role: 'viewer' });
+  expect(made.status, made.text).toBe(201);
+  return linkToken(await waitForMail(admin(world), email, /invites you/), '/invite');
 }
 
 //                                                    anon nonMem viewer comm  editor owner admin
@@ -410,6 +425,103 @@ const ROWS: Row[] = [
     call: async (world) => ({ path: inSample(world, '/attach'), body: { studyId: await freshStudy(world) } }),
     expected: statuses(401, 404, 403, 403, 201, 201, 201),
   },
+  {
+    method: 'GET',
+    route: '/api/studies/[studyId]/invitations',
+    call: async (world) => ({ path: inStudy(world, '/invitations') }),
+    expected: statuses(401, 404, 403, 403, 403, 200, 200),
+  },
+  {
+    method: 'POST',
+    route: '/api/studies/[studyId]/invitations',
+    call: async (world, actor) => {
+      const email = `invited-by-${actor}@matrix.test`.toLowerCase();
+      return {
+        path: inStudy(world, '/invitations'),
+        body: { email, role: 'viewer' },
+        unchanged: async () => expect(await invitedEmails(world)).not.toContain(email),
+      };
+    },
+    expected: statuses(401, 404, 403, 403, 403, 201, 201),
+  },
+  {
+    method: 'DELETE',
+    route: '/api/studies/[studyId]/invitations/[invitationId]',
+    call: async (world, actor) => {
+      const email = `kept-unless-${actor}-revokes@matrix.test`.toLowerCase();
+      const made = await world.people.owner.client.post(inStudy(world, '/invitations'), { email, role: 'viewer' });
+      expect(made.status, made.text).toBe(201);
+      return {
+        path: inStudy(world, `/invitations/${made.body.invitation.id}`),
+        unchanged: async () => expect(await invitedEmails(world)).toContain(email),
+      };
+    },
+    expected: statuses(401, 404, 403, 403, 403, 204, 204),
+  },
+  {
+    // Each signed-in actor accepts an invitation to their own address (anyone else is refused, see invitations.test.ts).
+    method: 'POST',
+    route: '/api/invitations/accept',
+    call: async (world, actor) => {
+      const email = actor === 'anonymous' ? 'nobody-accepts@matrix.test' : world.accounts[actor].email;
+      return { path: '/api/invitations/accept', body: { token: await invitationTokenFor(world, email) } };
+    },
+    expected: statuses(401, 200, 200, 200, 200, 200, 200),
+  },
+  {
+    // The invitation is the permission: whoever holds the link may create the invited account.
+    method: 'POST',
+    route: '/api/invitations/signup',
+    call: async (world, actor) => ({
+      path: '/api/invitations/signup',
+      body: { token: await invitationTokenFor(world, `joiner-${actor}@matrix.test`), name: `Joiner ${actor}`, password: 'long-enough' },
+    }),
+    expected: statuses(201, 201, 201, 201, 201, 201, 201),
+  },
+  {
+    method: 'POST',
+    route: '/api/password-reset',
+    call: async (_world, actor) => ({ path: '/api/password-reset', body: { email: `reset-by-${actor}@matrix.test` } }),
+    expected: statuses(202, 202, 202, 202, 202, 202, 202),
+  },
+  {
+    method: 'POST',
+    route: '/api/password-reset/complete',
+    call: async (world, actor) => {
+      const account = await newAccount(world.server, `reset-${actor}`);
+      await new Client(world.server.baseUrl).post('/api/password-reset', { email: account.email });
+      const mail = await waitForMail(admin(world), account.email, /Reset your Splitfield password/);
+      return { path: '/api/password-reset/complete', body: { token: linkToken(mail, '/reset-password'), password: 'a-new-password' } };
+    },
+    expected: statuses(200, 200, 200, 200, 200, 200, 200),
+  },
+  {
+    method: 'GET',
+    route: '/api/me/mail',
+    call: async () => ({ path: '/api/me/mail' }),
+    expected: statuses(401, 200, 200, 200, 200, 200, 200),
+  },
+  {
+    method: 'PATCH',
+    route: '/api/me/mail',
+    call: async () => ({ path: '/api/me/mail', body: { kinds: { reply: false } } }),
+    expected: statuses(401, 200, 200, 200, 200, 200, 200),
+  },
+  {
+    method: 'GET',
+    route: '/api/admin/mail',
+    call: async () => ({ path: '/api/admin/mail' }),
+    expected: statuses(401, 403, 403, 403, 403, 403, 200),
+  },
+  {
+    method: 'GET',
+    route: '/api/admin/mail/[mailId]',
+    call: async (world) => {
+      const mail = await waitForMail(admin(world), 'invited-by-owner@matrix.test', /invites you/);
+      return { path: `/api/admin/mail/${mail.id}` };
+    },
+    expected: statuses(401, 403, 403, 403, 403, 403, 200),
+  },
   // Last: it ends every session of each actor's person, so no row may come after it.
   {
     method: 'DELETE',
@@ -423,7 +535,7 @@ let world: World;
 
 beforeAll(async () => {
   // The owner queues many samples here: the per-person queue limit is not what this table is about.
-  const { server, admin: adminClient } = await serverWithAdmin({ env: { SPLITFIELD_MAX_JOBS_PER_USER: '1000' } });
+  const { server, admin: adminClient } = await serverWithAdmin({ env: { SPLITFIELD_MAX_JOBS_PER_USER: '1000', SPLITFIELD_RESETS_PER_ADDRESS: '1000' } });
   const people = {
     owner: await newPerson(server, 'owner'),
     viewer: await newPerson(server, 'viewer'),

@@ -45,7 +45,8 @@ export async function outbox(admin: Client): Promise<{ mailer: any; queue: Queue
 /** The messages the local mail server received for `to` so far, newest first, in full. */
 export async function mailsTo(admin: Client, to: string): Promise<ReceivedMail[]> {
   const { received } = await outbox(admin);
-  const mine = received.filter((mail) => mail.to.includes(to));
+  // Addresses are stored lower-cased.
+  const mine = received.filter((mail) => mail.to.includes(to.toLowerCase()));
   return Promise.all(mine.map(async (mail) => (await admin.get(`/api/admin/mail/${mail.id}`)).body.mail as ReceivedMail));
 }
 

@@ -10,7 +10,7 @@ beforeAll(async () => {
 afterAll(() => server?.stop());
 
 describe('page access', () => {
-  it.each(['/', '/studies', '/studies/1', '/admin/users', '/profile'])(
+  it.each(['/', '/studies', '/studies/1', '/admin/users', '/admin/mail', '/admin/mail/1', '/profile'])(
     'sends a visitor without a session from %s to the sign-in page, remembering where they were',
     async (pathname) => {
       const response = await new Client(server.baseUrl).get(`${pathname}?tab=notes`);
@@ -21,7 +21,7 @@ describe('page access', () => {
     },
   );
 
-  it.each(['/sign-in', '/sign-up'])('serves %s without a session', async (pathname) => {
+  it.each(['/sign-in', '/sign-up', '/forgot-password', '/invite/not-a-link', '/reset-password/not-a-link'])('serves %s without a session', async (pathname) => {
     const response = await new Client(server.baseUrl).get(pathname);
     expect(response.status).toBe(200);
     expect(response.headers.get('content-type')).toContain('text/html');

@@ -2,11 +2,11 @@ import { describe, expect, it } from 'vitest';
 import { isPublicPage, signInRedirect } from '@/lib/auth/paths';
 
 describe('public pages', () => {
-  it.each(['/sign-in', '/sign-up', '/sign-in/', '/sign-up/confirm'])('%s needs no session', (pathname) => {
+  it.each(['/sign-in', '/sign-up', '/sign-in/', '/sign-up/confirm', '/invite/abc.def', '/forgot-password', '/reset-password/abc.def'])('%s needs no session', (pathname) => {
     expect(isPublicPage(pathname)).toBe(true);
   });
 
-  it.each(['/', '/studies', '/sign-inside', '/admin/sign-in', '/sign-upper'])('%s needs a session', (pathname) => {
+  it.each(['/', '/studies', '/sign-inside', '/admin/sign-in', '/sign-upper', '/invites', '/admin/mail'])('%s needs a session', (pathname) => {
     expect(isPublicPage(pathname)).toBe(false);
   });
 });
