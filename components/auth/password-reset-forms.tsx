@@ -45,7 +45,7 @@ export function NewPasswordForm({ token }: { token: string }) {
     );
   }
   return (
-    <ActionForm onSubmit={submit} aria-label="New password">
+    <ActionForm onSubmit={submit} aria-label="Choose a new password">
       <TextField label="New password" name="password" type="password" autoComplete="new-password" minLength={PASSWORD_MIN} required autoFocus hint={`At least ${PASSWORD_MIN} characters.`} />
       <TextField label="New password again" name="confirmPassword" type="password" autoComplete="new-password" required />
       <SubmitButton pendingLabel="Saving…">Set new password</SubmitButton>
