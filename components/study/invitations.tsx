@@ -35,10 +35,11 @@ export function Invitations({ studyId }: { studyId: string }) {
       </ActionForm>
       {error && <Notice tone="error">{error.message}</Notice>}
       {data && data.invitations.length > 0 && (
-        <ul aria-label="Pending invitations" className="divide-y divide-ink/10 border-t border-ink/10">
-          {data.invitations.map((invitation) => (
-            <li key={invitation.id} className="flex items-start justify-between gap-2 py-2 text-sm">
-              <div className="min-w-0">
+        <>
+          <h4 className="pt-1 text-xs font-medium uppercase tracking-wider text-ink-faint">Pending invitations</h4>
+          <ul aria-label="Pending invitations" className="divide-y divide-ink/10 border-t border-ink/10">
+            {data.invitations.map((invitation) => (
+              <li key={invitation.id} className="space-y-1.5 py-2.5 text-sm">
                 <p className="truncate font-medium" title={invitation.email}>
                   {invitation.email}
                 </p>
@@ -46,22 +47,22 @@ export function Invitations({ studyId }: { studyId: string }) {
                   {invitation.expired ? 'Expired' : `Pending until ${formatDate(invitation.expiresAt)}`}
                   {invitation.invitedBy && ` · invited by ${invitation.invitedBy.name}`}
                 </p>
-              </div>
-              <div className="flex shrink-0 items-center gap-2">
-                <RoleBadge role={invitation.role} />
-                <ConfirmButton
-                  label="Revoke"
-                  question={`Revoke the invitation of ${invitation.email}?`}
-                  confirmLabel="Revoke"
-                  onConfirm={async () => {
-                    await sendJson('DELETE', `${url}/${invitation.id}`);
-                    await mutate();
-                  }}
-                />
-              </div>
-            </li>
-          ))}
-        </ul>
+                <div className="flex flex-wrap items-center gap-2">
+                  <RoleBadge role={invitation.role} />
+                  <ConfirmButton
+                    label="Revoke"
+                    question={`Revoke the invitation of ${invitation.email}?`}
+                    confirmLabel="Revoke"
+                    onConfirm={async () => {
+                      await sendJson('DELETE', `${url}/${invitation.id}`);
+                      await mutate();
+                    }}
+                  />
+                </div>
+              </li>
+            ))}
+          </ul>
+        </>
       )}
     </div>
   );
