@@ -18,10 +18,17 @@ const checkbox = 'mt-0.5 h-4 w-4 accent-accent';
 /** Which notifications come by mail, and whether one at a time or as one digest a day. Saved on each change. */
 export function MailChoicesPanel() {
   const { data, error, mutate } = useSWR<{ choices: MailChoices }, ApiError>('/api/me/mail');
-  const save = useAction(async (change: Partial<{ kinds: Partial<MailChoices['kinds']>; digest: boolean }>) => {
-    await mutate(await sendJson<{ choices: MailChoices }>('PATCH', '/api/me/mail', change), { revalidate: false });
-  });
   const choices = data?.choices;
+  // Shown at once (a checkbox follows the click), put back if the server refuses.
+  const save = useAction(async (change: { kinds?: Partial<MailChoices['kinds']>; digest?: boolean }) => {
+    if (!choices) return;
+    const expected = { kinds: { ...choices.kinds, ...change.kinds }, digest: change.digest ?? choices.digest };
+    await mutate(() => sendJson<{ choices: MailChoices }>('PATCH', '/api/me/mail', change), {
+      optimisticData: { choices: expected },
+      rollbackOnError: true,
+      revalidate: false,
+    });
+  });
   return (
     <section id="mail" className="mt-6 max-w-3xl scroll-mt-6">
       <Panel title="Mail" lead="Invitations and password resets always come; choose the rest.">
@@ -29,7 +36,7 @@ export function MailChoicesPanel() {
         {!choices && !error && <LoadingBlock />}
         {choices && (
           <div className="space-y-4">
-            <fieldset className="space-y-2" disabled={save.pending}>
+            <fieldset className="space-y-2">
               <legend className="mb-1 text-sm font-medium">Mail me when…</legend>
               {NOTIFICATION_KINDS.map((kind) => (
                 <label key={kind} className="flex items-start gap-2 text-sm">
@@ -43,7 +50,7 @@ export function MailChoicesPanel() {
                 </label>
               ))}
             </fieldset>
-            <fieldset className="space-y-2 border-t border-ink/10 pt-3" disabled={save.pending}>
+            <fieldset className="space-y-2 border-t border-ink/10 pt-3">
               <legend className="sr-only">How often</legend>
               <label className="flex items-start gap-2 text-sm">
                 <input type="radio" name="digest" className={checkbox} checked={!choices.digest} onChange={() => save.run({ digest: false })} />

@@ -139,6 +139,24 @@ describe('mail in the browser', () => {
     expect(page.url()).toBe(`${server.baseUrl}/studies`);
   });
 
+  it('each person chooses on the profile which notifications come by mail, and how often', async () => {
+    const { page } = reader;
+    await page.goto(`${server.baseUrl}/profile#mail`);
+    const panel = page.getByRole('region', { name: 'Mail' });
+    const replies = panel.getByLabel('a reply in a thread you take part in');
+    await replies.waitFor();
+    expect(await replies.isChecked()).toBe(true);
+    await replies.uncheck();
+    await panel.getByLabel('One digest a day with everything since the last one').check();
+    await expect.poll(() => panel.getByLabel('One digest a day with everything since the last one').isChecked()).toBe(true);
+    await page.reload();
+    await panel.getByLabel('a reply in a thread you take part in').waitFor();
+    expect(await panel.getByLabel('a reply in a thread you take part in').isChecked()).toBe(false);
+    expect(await panel.getByLabel('someone mentions you').isChecked()).toBe(true);
+    expect(await panel.getByLabel('One digest a day with everything since the last one').isChecked()).toBe(true);
+    await screenshot(page, 'mail-profile-choices', 1280);
+  });
+
   it('met no Content-Security-Policy violation', () => {
     expect(cspViolations).toEqual([]);
   });
