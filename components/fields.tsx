@@ -1,3 +1,4 @@
+import { PASSWORD_MIN } from '@/models/vocabulary';
 import { useId, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes, type TextareaHTMLAttributes } from 'react';
 
 const controlLook =
@@ -63,4 +64,20 @@ export function TextArea({ label, hint, error, ...area }: LabelProps & TextareaH
 
 export function SelectField({ label, hint, error, ...select }: LabelProps & SelectHTMLAttributes<HTMLSelectElement>) {
   return <Labelled label={label} hint={hint} error={error} control={(props) => <select {...props} {...select} />} />;
+}
+
+/** A password being chosen (sign-up, invitation, reset, profile): the browser may suggest one; the minimum is named. */
+export function NewPasswordField({ label = 'Password', name = 'password', autoFocus }: { label?: string; name?: string; autoFocus?: boolean }) {
+  return (
+    <TextField
+      label={label}
+      name={name}
+      type="password"
+      autoComplete="new-password"
+      minLength={PASSWORD_MIN}
+      required
+      autoFocus={autoFocus}
+      hint={`At least ${PASSWORD_MIN} characters.`}
+    />
+  );
 }

@@ -54,3 +54,6 @@ export const NOTIFICATION_KIND_LABELS: Record<NotificationKind, string> = {
   'sample-finished': 'a sample you uploaded finished processing',
   'sample-failed': 'a sample you uploaded failed',
 };
+
+/** How long an invitation link works. */
+export const INVITATION_DAYS = 7;

@@ -4,10 +4,10 @@ import { signOut } from 'next-auth/react';
 import Link from 'next/link';
 import { useRouter } from 'next/navigation';
 import { sendJson } from '@/lib/api/client';
-import { PASSWORD_MIN, type StudyRole } from '@/models/vocabulary';
+import type { StudyRole } from '@/models/vocabulary';
 import { ActionForm, field, SubmitButton } from '../action-form';
 import { Button } from '../button';
-import { TextField } from '../fields';
+import { NewPasswordField, TextField } from '../fields';
 import { useForgetData } from '../hooks/use-forget-data';
 import { Notice } from '../notice';
 import { useAction } from '../use-action';
@@ -84,15 +84,7 @@ export function InvitationAnswer({ token, invitation, signedInAs }: InvitationAn
       <ActionForm onSubmit={signUp} aria-label="Create account and join">
         <TextField label="Email" name="email" type="email" value={invitation.email} readOnly hint="The invited address; the account is made with it." />
         <TextField label="Name" name="name" autoComplete="name" required autoFocus />
-        <TextField
-          label="Password"
-          name="password"
-          type="password"
-          autoComplete="new-password"
-          minLength={PASSWORD_MIN}
-          required
-          hint={`At least ${PASSWORD_MIN} characters.`}
-        />
+        <NewPasswordField />
         <SubmitButton pendingLabel="Creating account…">Create account and join</SubmitButton>
       </ActionForm>
       <p className="text-sm text-ink-soft">

@@ -3,9 +3,8 @@
 import Link from 'next/link';
 import { useState } from 'react';
 import { sendJson } from '@/lib/api/client';
-import { PASSWORD_MIN } from '@/models/vocabulary';
 import { ActionForm, field, SubmitButton } from '../action-form';
-import { TextField } from '../fields';
+import { NewPasswordField, TextField } from '../fields';
 import { Notice } from '../notice';
 
 /** Asks for a reset mail; the answer is the same whether or not an account has the address. */
@@ -46,7 +45,7 @@ export function NewPasswordForm({ token }: { token: string }) {
   }
   return (
     <ActionForm onSubmit={submit} aria-label="Choose a new password">
-      <TextField label="New password" name="password" type="password" autoComplete="new-password" minLength={PASSWORD_MIN} required autoFocus hint={`At least ${PASSWORD_MIN} characters.`} />
+      <NewPasswordField label="New password" autoFocus />
       <TextField label="New password again" name="confirmPassword" type="password" autoComplete="new-password" required />
       <SubmitButton pendingLabel="Saving…">Set new password</SubmitButton>
     </ActionForm>

@@ -3,9 +3,8 @@
 import { useRouter } from 'next/navigation';
 import useSWR from 'swr';
 import { sendJson, type ApiError } from '@/lib/api/client';
-import { PASSWORD_MIN } from '@/models/vocabulary';
 import { ActionForm, field, SubmitButton } from '../action-form';
-import { TextField } from '../fields';
+import { NewPasswordField, TextField } from '../fields';
 import { useForgetData } from '../hooks/use-forget-data';
 import { LoadingBlock } from '../loading-block';
 import { Notice } from '../notice';
@@ -36,15 +35,7 @@ export function SignUpForm() {
     <ActionForm onSubmit={submit} aria-label="Create account">
       <TextField label="Name" name="name" autoComplete="name" required autoFocus />
       <TextField label="Email" name="email" type="email" autoComplete="email" required />
-      <TextField
-        label="Password"
-        name="password"
-        type="password"
-        autoComplete="new-password"
-        minLength={PASSWORD_MIN}
-        required
-        hint={`At least ${PASSWORD_MIN} characters.`}
-      />
+      <NewPasswordField />
       <SubmitButton pendingLabel="Creating account…">Create account</SubmitButton>
     </ActionForm>
   );

@@ -9,7 +9,7 @@ import { ActionForm, field, SubmitButton } from '../action-form';
 import { ConfirmButton } from '../confirm-button';
 import { useForgetData } from '../hooks/use-forget-data';
 import { Notice } from '../notice';
-import { TextField } from '../fields';
+import { NewPasswordField, TextField } from '../fields';
 import { useMe } from '../hooks/use-me';
 import { PageHeader } from '../page-header';
 import { Panel } from '../panel';
@@ -89,7 +89,7 @@ export function ProfileView() {
               keep them.
             </p>
             <TextField label="Current password" name="currentPassword" type="password" autoComplete="current-password" required />
-            <TextField label="New password" name="newPassword" type="password" autoComplete="new-password" minLength={PASSWORD_MIN} required hint={`At least ${PASSWORD_MIN} characters.`} />
+            <NewPasswordField label="New password" name="newPassword" />
             <TextField label="New password again" name="confirmPassword" type="password" autoComplete="new-password" minLength={PASSWORD_MIN} required />
             <label className="flex items-start gap-2 text-sm text-ink">
               <input type="checkbox" name="keepApiTokens" className="mt-0.5 h-4 w-4 accent-accent" />

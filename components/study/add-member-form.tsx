@@ -2,8 +2,7 @@
 
 import { sendJson } from '@/lib/api/client';
 import { ActionForm, field, SubmitButton } from '../action-form';
-import { SelectField, TextField } from '../fields';
-import { RoleOptions } from './role-options';
+import { EmailRoleFields } from './email-role-fields';
 
 /** Owners add a collaborator by the e-mail of their account. */
 export function AddMemberForm({ studyId, onAdded }: { studyId: string; onAdded: () => Promise<unknown> }) {
@@ -13,10 +12,7 @@ export function AddMemberForm({ studyId, onAdded }: { studyId: string; onAdded: 
   }
   return (
     <ActionForm onSubmit={submit} resetOnSuccess successMessage="Member added." aria-label="Add member" className="space-y-3">
-      <TextField label="Email" name="email" type="email" required placeholder="colleague@example.org" />
-      <SelectField label="Role" name="role" defaultValue="viewer">
-        <RoleOptions />
-      </SelectField>
+      <EmailRoleFields />
       <SubmitButton size="sm" pendingLabel="Adding…">
         Add member
       </SubmitButton>

@@ -2,14 +2,14 @@
 
 import useSWR from 'swr';
 import { sendJson, type ApiError } from '@/lib/api/client';
+import { INVITATION_DAYS } from '@/models/vocabulary';
 import { ActionForm, field, SubmitButton } from '../action-form';
 import type { PendingInvitation } from '../api-types';
 import { ConfirmButton } from '../confirm-button';
-import { SelectField, TextField } from '../fields';
 import { formatDate } from '../format';
 import { Notice } from '../notice';
 import { RoleBadge } from '../role-badge';
-import { RoleOptions } from './role-options';
+import { EmailRoleFields } from './email-role-fields';
 
 /** Owners invite by e-mail (a mail with a link; the person may have no account yet) and revoke what is pending. */
 export function Invitations({ studyId }: { studyId: string }) {
@@ -25,10 +25,7 @@ export function Invitations({ studyId }: { studyId: string }) {
     <div className="space-y-3">
       <h3 className="text-sm font-semibold">Invite by e-mail</h3>
       <ActionForm onSubmit={invite} resetOnSuccess successMessage="Invitation mailed." aria-label="Invite by e-mail" className="space-y-3">
-        <TextField label="Email" name="email" type="email" required placeholder="colleague@example.org" hint="They get a link that works once, for 7 days; no account is needed yet." />
-        <SelectField label="Role" name="role" defaultValue="viewer">
-          <RoleOptions />
-        </SelectField>
+        <EmailRoleFields emailHint={`They get a link that works once, for ${INVITATION_DAYS} days; no account is needed yet.`} />
         <SubmitButton size="sm" pendingLabel="Inviting…">
           Send invitation
         </SubmitButton>

@@ -11,10 +11,7 @@ import { enqueueMail } from '../mail/queue';
 import type { Invitation } from '@/models/invitation';
 import type { Study } from '@/models/study';
 import type { User } from '@/models/user';
-import type { StudyRole } from '@/models/vocabulary';
-
-/** How long an invitation link works. */
-export const INVITATION_DAYS = 7;
+import { INVITATION_DAYS, type StudyRole } from '@/models/vocabulary';
 
 export type LoadedInvitation = Invitation & { study: Study; invitedBy: User | null };
 
