@@ -1,8 +1,12 @@
 import type { Sequelize } from 'sequelize';
+import { defineActivityRead } from './activity-read';
 import { defineApiToken } from './api-token';
 import { defineEntry } from './entry';
 import { defineMembership } from './membership';
 import { defineNotification } from './notification';
+import { defineRegion } from './region';
+import { defineRegionCategory } from './region-category';
+import { defineRegionComment } from './region-comment';
 import { defineSample } from './sample';
 import { defineSamplePlane } from './sample-plane';
 import { defineSignInSession } from './sign-in-session';
@@ -25,6 +29,10 @@ export function defineModels(sequelize: Sequelize) {
   const ApiToken = defineApiToken(sequelize);
   const SignInSession = defineSignInSession(sequelize);
   const Notification = defineNotification(sequelize);
+  const RegionCategory = defineRegionCategory(sequelize);
+  const Region = defineRegion(sequelize);
+  const RegionComment = defineRegionComment(sequelize);
+  const ActivityRead = defineActivityRead(sequelize);
 
   Study.hasMany(Membership, { foreignKey: 'studyId', as: 'memberships' });
   Membership.belongsTo(Study, { foreignKey: 'studyId', as: 'study' });
@@ -41,8 +49,14 @@ export function defineModels(sequelize: Sequelize) {
   ApiToken.belongsTo(User, { foreignKey: 'userId', as: 'user' });
   Notification.belongsTo(User, { foreignKey: 'userId', as: 'user' });
   Notification.belongsTo(User, { foreignKey: 'actorId', as: 'actor' });
+  Region.belongsTo(RegionCategory, { foreignKey: 'categoryId', as: 'category' });
+  Region.belongsTo(User, { foreignKey: 'createdById', as: 'createdBy' });
+  Region.belongsTo(User, { foreignKey: 'stateChangedById', as: 'stateChangedBy' });
+  Region.hasMany(RegionComment, { foreignKey: 'regionId', as: 'comments' });
+  RegionComment.belongsTo(User, { foreignKey: 'authorId', as: 'author' });
+  RegionComment.belongsTo(Region, { foreignKey: 'regionId', as: 'region' });
 
-  return { User, SiteSetting, Study, Membership, Entry, Sample, SamplePlane, ApiToken, SignInSession, Notification };
+  return { User, SiteSetting, Study, Membership, Entry, Sample, SamplePlane, ApiToken, SignInSession, Notification, RegionCategory, Region, RegionComment, ActivityRead };
 }
 
 export type Models = ReturnType<typeof defineModels>;

@@ -39,3 +39,11 @@ export const API_TOKEN_NAME_MAX = 100;
 export const NOTIFICATION_KINDS = ['mention', 'reply', 'sample-finished', 'sample-failed'] as const;
 export type NotificationKind = (typeof NOTIFICATION_KINDS)[number];
 export const NOTIFICATION_SUMMARY_MAX = 500;
+
+/** A region's states: open while it is discussed, resolved when settled; a resolved region can be reopened. */
+export const REGION_STATES = ['open', 'resolved'] as const;
+export type RegionState = (typeof REGION_STATES)[number];
+export const REGION_TITLE_MAX = 200;
+export const REGION_CATEGORY_NAME_MAX = 60;
+export const REGION_POLYGON_POINTS_MAX = 200;
+export const COMMENT_BODY_MAX = 20_000;

@@ -1,4 +1,4 @@
-// Limits of sign-in, sign-up, password and token attempts, read from the environment (README "Configuration").
+// Limits of sign-in, sign-up, password and token attempts and of comments, read from the environment (README "Configuration").
 import { z } from 'zod';
 import { checkedEnvironment, type Environment } from '../config/environment';
 
@@ -11,6 +11,8 @@ export interface ThrottleConfig {
   signupsPerAddress: number;
   /** API tokens one user may make per window. */
   tokensPerUser: number;
+  /** Comments one person may post per minute (over all studies). */
+  commentsPerMinute: number;
   windowSeconds: number;
   /** Take the client address from X-Forwarded-For (behind a reverse proxy that sets it). */
   trustProxy: boolean;
@@ -28,6 +30,7 @@ const environmentSchema = z.object({
   SPLITFIELD_SIGNIN_ADDRESS_FAILURES: count.optional(),
   SPLITFIELD_SIGNUPS_PER_ADDRESS: count.optional(),
   SPLITFIELD_TOKENS_PER_USER: count.optional(),
+  SPLITFIELD_COMMENTS_PER_MINUTE: count.optional(),
   SPLITFIELD_THROTTLE_WINDOW_SECONDS: count.optional(),
   SPLITFIELD_TRUST_PROXY: z.enum(['0', '1', 'false', 'true', '']).optional(),
 });
@@ -39,6 +42,7 @@ export function readThrottleConfig(env: Environment = process.env): ThrottleConf
     addressFailures: values.SPLITFIELD_SIGNIN_ADDRESS_FAILURES ?? 50,
     signupsPerAddress: values.SPLITFIELD_SIGNUPS_PER_ADDRESS ?? 20,
     tokensPerUser: values.SPLITFIELD_TOKENS_PER_USER ?? 30,
+    commentsPerMinute: values.SPLITFIELD_COMMENTS_PER_MINUTE ?? 20,
     windowSeconds: values.SPLITFIELD_THROTTLE_WINDOW_SECONDS ?? 900,
     trustProxy: values.SPLITFIELD_TRUST_PROXY === '1' || values.SPLITFIELD_TRUST_PROXY === 'true',
   };

@@ -1,12 +1,13 @@
 // Throttling of guessable or costly requests, in memory (one server per storage folder): failed sign-ins per
-// account and per client address, sign-ups per address, wrong current passwords, unknown API tokens, new tokens.
+// account and per client address, sign-ups per address, wrong current passwords, unknown API tokens, new tokens,
+// comments per person (a burst is refused; the comments already accepted stay).
 // A request over a limit gets 429 with the seconds until it may be tried again (Retry-After).
 import { RateLimiterMemory, RateLimiterRes } from 'rate-limiter-flexible';
 import { ApiError } from '../api/errors';
 import { retryAfterText } from './retry-after';
 import { readThrottleConfig, type ThrottleConfig } from './throttle-config';
 
-export type ThrottleKind = 'accountFailure' | 'addressFailure' | 'signup' | 'newToken';
+export type ThrottleKind = 'accountFailure' | 'addressFailure' | 'signup' | 'newToken' | 'comment';
 
 interface Throttles {
   config: ThrottleConfig;
@@ -21,8 +22,8 @@ function throttles(): Throttles {
   const holder = globalThis as ProcessWide;
   if (!holder[processWideKey]) {
     const config = readThrottleConfig();
-    const limiter = (points: number, keyPrefix: string) =>
-      new RateLimiterMemory({ points, duration: config.windowSeconds, keyPrefix });
+    const limiter = (points: number, keyPrefix: string, duration = config.windowSeconds) =>
+      new RateLimiterMemory({ points, duration, keyPrefix });
     holder[processWideKey] = {
       config,
       limiters: {
@@ -30,6 +31,7 @@ function throttles(): Throttles {
         addressFailure: limiter(config.addressFailures, 'address'),
         signup: limiter(config.signupsPerAddress, 'signup'),
         newToken: limiter(config.tokensPerUser, 'token'),
+        comment: limiter(config.commentsPerMinute, 'comment', 60),
       },
     };
   }
@@ -86,4 +88,17 @@ export async function requireNotThrottled(what: string, checks: Array<[ThrottleK
   const waits = await Promise.all(checks.map(([kind, key]) => secondsBlocked(kind, key)));
   const wait = Math.max(0, ...waits);
   if (wait > 0) throw new TooManyAttempts(wait, what);
+}
+
+/**
+ * Uses one of `key`'s allowance under `kind` before the action it pays for; 429 (nothing done) when none is left.
+ * Counting first, in one step, keeps requests that arrive together from slipping past the limit.
+ */
+export async function takeAllowance(kind: ThrottleKind, key: string, what: string): Promise<void> {
+  try {
+    await throttles().limiters[kind].consume(key);
+  } catch (error) {
+    if (!(error instanceof RateLimiterRes)) throw error;
+    throw new TooManyAttempts(Math.max(1, Math.ceil(error.msBeforeNext / 1000)), what);
+  }
 }
