@@ -9,7 +9,7 @@ import { shapeArea } from '@/lib/physics/plane/region';
 import { REGION_POLYGON_POINTS_MAX } from '@/models/vocabulary';
 
 const coordinate = (what: string) =>
-  z.number({ error: `${what} must be a number` }).refine(Number.isFinite, `${what} must be a finite number`);
+  z.number({ error: `${what} must be a finite number` }).refine(Number.isFinite, `${what} must be a finite number`);
 
 const rectangleSchema = z
   .strictObject({
@@ -36,6 +36,7 @@ const polygonSchema = z
   .check((context) => {
     const points = context.value.points;
     const n = points.length;
+    if (n < 3 || n > REGION_POLYGON_POINTS_MAX) return;
     for (let i = 0; i < n; i++) {
       const next = points[(i + 1) % n];
       if (points[i][0] === next[0] && points[i][1] === next[1]) {
