@@ -57,7 +57,11 @@ export function attachDrawing({ svg, holder, x, y, mode, onShape, onDragging }: 
     redraw();
   };
 
+  const onPlot = (event: Event) => event.target instanceof Node && svg.contains(event.target);
   const down = (event: PointerEvent) => {
+    if (mode() === null || !onPlot(event)) return;
+    // Plot's own pointer would pin its tooltip on this press (and stops other listeners on the SVG from hearing it).
+    event.stopPropagation();
     if (mode() !== 'rectangle') return;
     start = pixel(event);
     svg.setPointerCapture(event.pointerId);
@@ -77,7 +81,7 @@ export function attachDrawing({ svg, holder, x, y, mode, onShape, onDragging }: 
     if (shape.x2 > shape.x1 && shape.y2 > shape.y1) onShape(shape);
   };
   const click = (event: MouseEvent) => {
-    if (mode() !== 'polygon') return;
+    if (mode() !== 'polygon' || !onPlot(event)) return;
     const p = pixel(event);
     if (corners.length >= 3) {
       const [fx, fy] = [x.apply(corners[0][0]), y.apply(corners[0][1])];
@@ -87,7 +91,7 @@ export function attachDrawing({ svg, holder, x, y, mode, onShape, onDragging }: 
     redraw();
   };
   const doubleClick = (event: MouseEvent) => {
-    if (mode() !== 'polygon') return;
+    if (mode() !== 'polygon' || !onPlot(event)) return;
     event.preventDefault();
     // The double-click's two clicks each added a corner at the same place: keep one.
     const last = corners[corners.length - 1];
@@ -104,13 +108,17 @@ export function attachDrawing({ svg, holder, x, y, mode, onShape, onDragging }: 
     event.preventDefault();
     redraw();
   };
-  svg.addEventListener('pointerdown', down);
+  // Heard on the holder while capturing, before Plot's listeners on the SVG.
+  holder.addEventListener('pointerdown', down, true);
   svg.addEventListener('pointermove', move);
   svg.addEventListener('pointerup', up);
-  svg.addEventListener('click', click);
-  svg.addEventListener('dblclick', doubleClick);
+  holder.addEventListener('click', click, true);
+  holder.addEventListener('dblclick', doubleClick, true);
   window.addEventListener('keydown', key);
   return () => {
+    holder.removeEventListener('pointerdown', down, true);
+    holder.removeEventListener('click', click, true);
+    holder.removeEventListener('dblclick', doubleClick, true);
     window.removeEventListener('keydown', key);
     trace.remove();
   };
