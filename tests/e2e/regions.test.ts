@@ -82,7 +82,7 @@ describe('regions on the demo map', () => {
     expect(await row.getByTestId('region-numbers').textContent()).toMatch(/∫ρ = [\d.e-]+ ± [\d.e-]+/);
     expect(await row.textContent()).toContain('open');
     // The outline is on the figure, in the category's colour.
-    await expect.poll(() => plotSvg(page).locator('path[stroke="#cc6677"]').count()).toBeGreaterThan(0);
+    await expect.poll(() => plotSvg(page).locator('[stroke="#cc6677"]').count()).toBeGreaterThan(0);
     const thread = page.getByTestId('region-thread');
     await thread.getByTestId('comment').first().waitFor();
     expect(await thread.locator('.mention').first().textContent()).toBe('Tamsin Quell');
