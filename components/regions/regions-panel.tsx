@@ -128,8 +128,8 @@ function RegionRow({ region, numbers, selected, onSelect }: { region: RegionView
         <span className="ml-auto text-xs text-ink-faint">{countOf(region.commentCount, 'comment')}</span>
       </span>
       <span className="block font-mono text-xs text-ink-soft" data-testid="region-numbers">
-        {numbers.integrals.map(({ sample, integral }) => `${sample.label || sample.name}: ∫ρ = ${formatWithError(integral.value, Math.sqrt(integral.variance))}`).join('; ')}
-        {numbers.ratios.map((r) => `; ${r.sample.label || r.sample.name}/${r.reference.label || r.reference.name} = ${formatWithError(r.value, r.error)}`).join('')}
+        ∫ρ inside, splittings per jet: {numbers.integrals.map(({ sample, integral }) => `${sample.label || sample.name} ${formatWithError(integral.value, Math.sqrt(integral.variance))}`).join('; ')}
+        {numbers.ratios.map((r) => `; ratio ${r.sample.label || r.sample.name}/${r.reference.label || r.reference.name} = ${formatWithError(r.value, r.error)}`).join('')}
         {numbers.covered < 0.999 && ` (only ${formatValue(numbers.covered * 100, 2)}% of the region lies in the shown range)`}
       </span>
     </button>

@@ -79,7 +79,7 @@ describe('regions on the demo map', () => {
     // The title is shown as the text typed, not as markup.
     expect(await row.textContent()).toContain(TITLE);
     expect(await row.locator('b').count()).toBe(0);
-    expect(await row.getByTestId('region-numbers').textContent()).toMatch(/∫ρ = [\d.e-]+ ± [\d.e-]+/);
+    expect(await row.getByTestId('region-numbers').textContent()).toMatch(/^∫ρ inside, splittings per jet: q-demo [\d.e-]+ ± [\d.e-]+$/);
     expect(await row.textContent()).toContain('open');
     // The outline is on the figure, in the category's colour.
     await expect.poll(() => plotSvg(page).locator('[stroke="#cc6677"]').count()).toBeGreaterThan(0);
@@ -146,6 +146,19 @@ describe('regions on the demo map', () => {
     await screenshot(collaborator.page, 'regions-reply-seen-390', 390);
 
     expect(await notificationRows()).toContainEqual({ email: 'oren@larkspur.test', kind: 'reply', summary: `Tamsin Quell commented on region “${TITLE}”` });
+  });
+
+  it('shows the study's regions on the contrast of the same plane, with each sample's numbers and their ratio', async () => {
+    const { page } = owner;
+    await page.goto(mapUrl.replace(/\/entries\/.*$/, ''));
+    await page.getByRole('article', { name: 'Gluon-like over quark-like' }).getByRole('link', { name: 'Open contrast' }).click();
+    await page.waitForURL(/\/entries\/\d+$/);
+    const row = regionsPanel(page).getByTestId('region-row').filter({ hasText: 'Collinear corner' });
+    await row.waitFor();
+    expect(await row.getByTestId('region-numbers').textContent()).toMatch(/^∫ρ inside, splittings per jet: q-demo [\d.e-]+ ± [\d.e-]+; g-demo [\d.e-]+ ± [\d.e-]+; ratio g-demo\/q-demo = [\d.]+ ± [\d.e-]+$/);
+    // Both regions are drawn on the comparison and on each input.
+    await expect.poll(() => page.locator('figure svg [aria-description="region Collinear corner"]').count()).toBeGreaterThan(2);
+    await screenshot(page, 'regions-contrast-1280', 1280);
   });
 
   it('met no Content-Security-Policy violation and opened no dialog', () => {
