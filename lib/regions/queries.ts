@@ -2,7 +2,10 @@
 // something that does not exist.
 import { Op, type Transaction } from 'sequelize';
 import { badRequest, notFound } from '@/lib/api/errors';
+import { studyAccess } from '@/lib/auth/study-access';
 import { db } from '@/lib/db/connection';
+import type { User } from '@/models/user';
+import type { StudyRole } from '@/models/vocabulary';
 import type { RegionView } from './shapes';
 import { categoryView, commentView, regionView } from './views';
 
@@ -82,4 +85,10 @@ export async function requireStudyEntry(studyId: number, entryId: number | null 
   if (entryId === null || entryId === undefined) return;
   const found = await db().models.Entry.count({ where: { id: entryId, studyId }, transaction });
   if (!found) throw badRequest(`Invalid request body: entryId: no entry ${entryId} in this study`, [{ path: 'entryId', message: `No entry ${entryId} in this study` }]);
+}
+
+/** The study access of `user` (at least `minimum`) and the region, which must be in that study. */
+export async function regionAccess(user: User, ids: { studyId: number; regionId: number }, minimum: StudyRole) {
+  const access = await studyAccess(user, ids.studyId, minimum);
+  return { ...access, region: await studyRegion(access.study.id, ids.regionId) };
 }

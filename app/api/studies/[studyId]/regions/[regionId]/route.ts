@@ -7,7 +7,7 @@ import { readJsonBody } from '@/lib/api/validation';
 import { studyAccess } from '@/lib/auth/study-access';
 import { db } from '@/lib/db/connection';
 import { regionChangeSchema } from '@/lib/regions/input';
-import { regionComments, regionWithDetails, requireStudyCategory, studyRegion } from '@/lib/regions/queries';
+import { regionAccess, regionComments, regionWithDetails, requireStudyCategory, studyRegion } from '@/lib/regions/queries';
 import { mayChangeRegion } from '@/lib/regions/rules';
 import { touchStudy } from '@/lib/studies/queries';
 
@@ -18,8 +18,7 @@ const params = z.object({ studyId: idParam, regionId: idParam });
 
 /** The region with its whole thread. */
 export const GET = signedInRoute({ params }, async ({ params, user }) => {
-  const { study } = await studyAccess(user, params.studyId, 'viewer');
-  const region = await studyRegion(study.id, params.regionId);
+  const { region } = await regionAccess(user, params, 'viewer');
   return json({ region: await regionWithDetails(region.id), comments: await regionComments(region.id) });
 });
 

@@ -3,12 +3,11 @@ import { BODY_LIMITS } from '@/lib/api/body-limits';
 import { json, signedInRoute } from '@/lib/api/route-handlers';
 import { idParam } from '@/lib/api/schemas';
 import { readJsonBody } from '@/lib/api/validation';
-import { studyAccess } from '@/lib/auth/study-access';
 import { takeAllowance } from '@/lib/auth/throttle';
 import { db } from '@/lib/db/connection';
 import { addComment } from '@/lib/regions/comments';
 import { newCommentSchema } from '@/lib/regions/input';
-import { regionComment, regionComments, studyRegion } from '@/lib/regions/queries';
+import { regionAccess, regionComment, regionComments, studyRegion } from '@/lib/regions/queries';
 import { commentView } from '@/lib/regions/views';
 import { touchStudy } from '@/lib/studies/queries';
 
@@ -19,15 +18,13 @@ const params = z.object({ studyId: idParam, regionId: idParam });
 
 /** The thread, oldest first (pages poll this to show new comments without a reload). */
 export const GET = signedInRoute({ params }, async ({ params, user }) => {
-  const { study } = await studyAccess(user, params.studyId, 'viewer');
-  const region = await studyRegion(study.id, params.regionId);
+  const { region } = await regionAccess(user, params, 'viewer');
   return json({ comments: await regionComments(region.id) });
 });
 
 export const POST = signedInRoute({ params }, async ({ request, params, user }) => {
-  const { study } = await studyAccess(user, params.studyId, 'commenter');
+  const { study } = await regionAccess(user, params, 'commenter');
   const input = await readJsonBody(request, newCommentSchema, BODY_LIMITS.standard);
-  await studyRegion(study.id, params.regionId);
   await takeAllowance('comment', String(user.id), 'comments');
   const comment = await db().write(async (transaction) => {
     const region = await studyRegion(study.id, params.regionId, transaction);
