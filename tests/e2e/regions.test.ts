@@ -90,6 +90,22 @@ describe('regions on the demo map', () => {
     await screenshot(page, 'regions-drawn-1280', 1280);
   });
 
+  it('draws a polygon corner by corner with the mouse', async () => {
+    const { page } = collaborator;
+    const panel = regionsPanel(page);
+    await panel.getByRole('button', { name: 'Draw a polygon' }).click();
+    await plotSvg(page).scrollIntoViewIfNeeded();
+    const box = (await plotSvg(page).boundingBox())!;
+    const at = (fx: number, fy: number) => [box.x + box.width * fx, box.y + box.height * fy] as const;
+    for (const [fx, fy] of [[0.15, 0.6], [0.3, 0.6], [0.3, 0.75]]) await page.mouse.click(...at(fx, fy));
+    expect((await plotSvg(page).getByTestId('polygon-trace').getAttribute('points'))!.split(' ')).toHaveLength(3);
+    await page.mouse.dblclick(...at(0.18, 0.8));
+    const form = page.getByRole('form', { name: 'New region' });
+    expect(await form.getByTestId('pending-shape').textContent()).toMatch(/^Polygon of 4 corners: (\([\d.-]+, [\d.-]+\) ?){4}$/);
+    await form.getByRole('button', { name: 'Discard' }).click();
+    await form.waitFor({ state: 'detached' });
+  });
+
   it('takes a polygon typed corner by corner, and refuses a crossing one with a message', async () => {
     const { page } = collaborator;
     const panel = regionsPanel(page);
@@ -148,7 +164,7 @@ describe('regions on the demo map', () => {
     expect(await notificationRows()).toContainEqual({ email: 'oren@larkspur.test', kind: 'reply', summary: `Tamsin Quell commented on region “${TITLE}”` });
   });
 
-  it('shows the study's regions on the contrast of the same plane, with each sample's numbers and their ratio', async () => {
+  it("shows the study's regions on the contrast of the same plane, with each sample's numbers and their ratio", async () => {
     const { page } = owner;
     await page.goto(mapUrl.replace(/\/entries\/.*$/, ''));
     await page.getByRole('article', { name: 'Gluon-like over quark-like' }).getByRole('link', { name: 'Open contrast' }).click();
