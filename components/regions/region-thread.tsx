@@ -4,7 +4,7 @@
 // they answer, one's own comments editable (marked "edited") and deletable. The thread polls, so comments others
 // write appear without a reload. A refused comment (too many at once) stays in its box with the server's message.
 import { useState } from 'react';
-import useSWR from 'swr';
+import useSWR, { useSWRConfig } from 'swr';
 import { type ApiError, messageOf, sendJson } from '@/lib/api/client';
 import { type Actor, mayComment, mayDeleteComment, mayEditComment } from '@/lib/regions/rules';
 import type { CommentView } from '@/lib/regions/shapes';
@@ -13,6 +13,7 @@ import { formatDateTime } from '../format';
 import { MarkdownView } from '../markdown-view';
 import { Notice } from '../notice';
 import { CommentComposer, type MentionCandidate } from './comment-composer';
+import { regionsUrl } from './use-regions-workspace';
 
 /** How often an open thread asks for new comments. */
 const POLL_MS = 3000;
@@ -27,12 +28,15 @@ interface ThreadProps {
 export function RegionThread({ studyId, regionId, actor, members }: ThreadProps) {
   const url = `/api/studies/${studyId}/regions/${regionId}/comments`;
   const { data, error, mutate } = useSWR<{ comments: CommentView[] }, ApiError>(url, { refreshInterval: POLL_MS });
+  const { mutate: refreshList } = useSWRConfig();
+  // A change of the thread changes the region's comment count in the lists too.
+  const changed = () => Promise.all([mutate(), refreshList(regionsUrl(studyId))]);
   const comments = data?.comments ?? [];
   const repliesOf = (id: number | null) => comments.filter((c) => (id === null ? c.replyToId === null || !comments.some((p) => p.id === c.replyToId) : c.replyToId === id));
 
   const renderComment = (comment: CommentView, depth: number) => (
     <li key={comment.id} className={depth > 0 ? 'ml-4 border-l-2 border-accent-soft pl-3' : ''}>
-      <CommentItem comment={comment} url={url} actor={actor} members={members} onChanged={() => mutate()} />
+      <CommentItem comment={comment} url={url} actor={actor} members={members} onChanged={changed} />
       {repliesOf(comment.id).length > 0 && <ul className="mt-2 space-y-2">{repliesOf(comment.id).map((reply) => renderComment(reply, Math.min(depth + 1, 3)))}</ul>}
     </li>
   );
@@ -41,7 +45,7 @@ export function RegionThread({ studyId, regionId, actor, members }: ThreadProps)
     <div className="space-y-3" data-testid="region-thread">
       {error && <Notice tone="error">{error.message}</Notice>}
       <ul className="space-y-3">{repliesOf(null).map((comment) => renderComment(comment, 0))}</ul>
-      {mayComment(actor) && <NewComment url={url} members={members} onPosted={() => mutate()} label="Add a comment" />}
+      {mayComment(actor) && <NewComment url={url} members={members} onPosted={changed} label="Add a comment" />}
     </div>
   );
 }

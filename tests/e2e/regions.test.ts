@@ -151,7 +151,9 @@ describe('regions on the demo map', () => {
     await detail.getByLabel('Add a comment').fill('Resolved: the excess is the finer binning, see the contrast.');
     await detail.getByRole('button', { name: 'Post comment' }).click();
     await detail.getByText('Resolved: the excess is the finer binning').waitFor();
-    expect(await regionsPanel(page).getByTestId('region-row').filter({ hasText: 'Wide-angle' }).textContent()).toContain('resolved');
+    const ownersRow = regionsPanel(page).getByTestId('region-row').filter({ hasText: 'Wide-angle' });
+    expect(await ownersRow.textContent()).toContain('resolved');
+    await expect.poll(() => ownersRow.textContent()).toContain('2 comments');
     await screenshot(page, 'regions-resolved-1280', 1280);
 
     // No reload on the commenter's side: the thread polls.
