@@ -1,7 +1,8 @@
-import Markdown, { type Components } from 'react-markdown';
+import Markdown, { type Components, defaultUrlTransform } from 'react-markdown';
 import rehypeKatex from 'rehype-katex';
 import remarkGfm from 'remark-gfm';
 import remarkMath from 'remark-math';
+import { mentionTarget } from '@/lib/regions/mentions';
 
 // react-markdown builds React elements from the Markdown syntax tree and never injects HTML: raw HTML in the
 // source (a <script>, an onclick attribute) stays visible as plain text, and its default URL filter empties
@@ -18,7 +19,11 @@ const components: Components = {
       <span title="Image removed: its address is not allowed">Image: {alt}</span>
     ),
   a: ({ href, children }) =>
-    href ? (
+    href && mentionTarget(href) !== null ? (
+      <span className="mention" data-user={mentionTarget(href)!}>
+        {children}
+      </span>
+    ) : href ? (
       <a href={href} target="_blank" rel="noopener noreferrer nofollow">
         {children}
       </a>
@@ -30,13 +35,19 @@ const components: Components = {
 // Maths: $…$ inline and $$…$$ displayed, typeset by KaTeX (its stylesheet and fonts are bundled by app/layout.tsx,
 // nothing is fetched). KaTeX runs with its defaults: no \href or \url links, no HTML extensions; a formula it
 // cannot read is shown in red as its source text instead of failing the note.
+/** A mention (`@[Name](user:12)`, lib/regions/mentions.ts) keeps its address so it can be shown as a mention; every
+ * other address goes through react-markdown's own filter. */
+function urlTransform(url: string): string {
+  return mentionTarget(url) !== null ? url : defaultUrlTransform(url);
+}
+
 const katexOptions = { throwOnError: false, strict: 'ignore' as const };
 
-/** A Note's Markdown (with tables, task lists, strikethrough and maths), rendered safely. */
+/** A Note's or a comment's Markdown (with tables, task lists, strikethrough, maths and mentions), rendered safely. */
 export function MarkdownView({ source }: { source: string }) {
   return (
     <div className="note-body">
-      <Markdown remarkPlugins={[remarkGfm, remarkMath]} rehypePlugins={[[rehypeKatex, katexOptions]]} components={components}>
+      <Markdown remarkPlugins={[remarkGfm, remarkMath]} rehypePlugins={[[rehypeKatex, katexOptions]]} components={components} urlTransform={urlTransform}>
         {source}
       </Markdown>
     </div>

@@ -3,7 +3,7 @@ import type { SiteRole, StudyRole } from './api-types';
 const studyRoles: Record<StudyRole, { style: string; meaning: string }> = {
   owner: { style: 'bg-accent text-white border-accent', meaning: 'Edits the study and manages its members' },
   editor: { style: 'bg-accent-soft text-accent-strong border-accent/30', meaning: 'Edits the title and entries' },
-  commenter: { style: 'bg-warn-soft text-warn border-warn/30', meaning: 'Reads the study; cannot edit it' },
+  commenter: { style: 'bg-warn-soft text-warn border-warn/30', meaning: 'Reads the study; adds regions and comments' },
   viewer: { style: 'bg-paper-sunk text-ink-soft border-ink/15', meaning: 'Reads the study; cannot edit it' },
 };
 

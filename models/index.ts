@@ -1,4 +1,5 @@
 import type { Sequelize } from 'sequelize';
+import { defineActivityRead } from './activity-read';
 import { defineApiToken } from './api-token';
 import { defineEntry } from './entry';
 import { defineMembership } from './membership';
@@ -7,6 +8,9 @@ import { defineNotification } from './notification';
 import { defineOutgoingMail } from './outgoing-mail';
 import { definePasswordReset } from './password-reset';
 import { defineReceivedMail } from './received-mail';
+import { defineRegion } from './region';
+import { defineRegionCategory } from './region-category';
+import { defineRegionComment } from './region-comment';
 import { defineSample } from './sample';
 import { defineSamplePlane } from './sample-plane';
 import { defineSignInSession } from './sign-in-session';
@@ -33,6 +37,10 @@ export function defineModels(sequelize: Sequelize) {
   const ReceivedMail = defineReceivedMail(sequelize);
   const Invitation = defineInvitation(sequelize);
   const PasswordReset = definePasswordReset(sequelize);
+  const RegionCategory = defineRegionCategory(sequelize);
+  const Region = defineRegion(sequelize);
+  const RegionComment = defineRegionComment(sequelize);
+  const ActivityRead = defineActivityRead(sequelize);
 
   Study.hasMany(Membership, { foreignKey: 'studyId', as: 'memberships' });
   Membership.belongsTo(Study, { foreignKey: 'studyId', as: 'study' });
@@ -54,7 +62,14 @@ export function defineModels(sequelize: Sequelize) {
   Invitation.belongsTo(User, { foreignKey: 'invitedById', as: 'invitedBy' });
   Study.hasMany(Invitation, { foreignKey: 'studyId', as: 'invitations' });
 
-  return { User, SiteSetting, Study, Membership, Entry, Sample, SamplePlane, ApiToken, SignInSession, Notification, OutgoingMail, ReceivedMail, Invitation, PasswordReset };
+  Region.belongsTo(RegionCategory, { foreignKey: 'categoryId', as: 'category' });
+  Region.belongsTo(User, { foreignKey: 'createdById', as: 'createdBy' });
+  Region.belongsTo(User, { foreignKey: 'stateChangedById', as: 'stateChangedBy' });
+  Region.hasMany(RegionComment, { foreignKey: 'regionId', as: 'comments' });
+  RegionComment.belongsTo(User, { foreignKey: 'authorId', as: 'author' });
+  RegionComment.belongsTo(Region, { foreignKey: 'regionId', as: 'region' });
+
+  return { User, SiteSetting, Study, Membership, Entry, Sample, SamplePlane, ApiToken, SignInSession, Notification, OutgoingMail, ReceivedMail, Invitation, PasswordReset, RegionCategory, Region, RegionComment, ActivityRead };
 }
 
 export type Models = ReturnType<typeof defineModels>;

@@ -57,3 +57,11 @@ export const NOTIFICATION_KIND_LABELS: Record<NotificationKind, string> = {
 
 /** How long an invitation link works. */
 export const INVITATION_DAYS = 7;
+
+/** A region's states: open while it is discussed, resolved when settled; a resolved region can be reopened. */
+export const REGION_STATES = ['open', 'resolved'] as const;
+export type RegionState = (typeof REGION_STATES)[number];
+export const REGION_TITLE_MAX = 200;
+export const REGION_CATEGORY_NAME_MAX = 60;
+export const REGION_POLYGON_POINTS_MAX = 200;
+export const COMMENT_BODY_MAX = 20_000;

@@ -3,27 +3,13 @@
 import { useEffect, useState } from 'react';
 import type { Box } from '@/lib/maps/entry-settings';
 import { labelledParton } from '@/lib/maps/parton-label';
+import { densityGrid } from '@/lib/maps/plane-grid';
 import type { PlaneData, SampleRef } from '@/lib/maps/shapes';
-import type { DensityGrid } from '@/lib/physics/plane/binned-plane';
 import { boxRatio } from '@/lib/physics/plane/compare';
 import { C_A, C_F } from '@/lib/physics/running-coupling';
 import { Button } from '../button';
 import { inlineSelectClass } from '../fields';
 import { formatValue, formatWithError } from '../plane/value-format';
-
-function densityGrid(plane: PlaneData): DensityGrid {
-  return {
-    xEdges: Float64Array.from(plane.xEdges),
-    yEdges: Float64Array.from(plane.yEdges),
-    density: Float64Array.from(plane.density),
-    variance: Float64Array.from(plane.error, (e) => e * e),
-    count: plane.count ? Float64Array.from(plane.count) : null,
-    jetWeight: 1,
-    jetCount: 1,
-    outsidePerJet: 0,
-    splittingsPerJet: 0,
-  };
-}
 
 interface BoxResultProps {
   box: Box | null;

@@ -9,10 +9,13 @@ import type { ContrastResult } from '@/lib/maps/shapes';
 import type { AxisChoice } from '@/lib/physics/plane/axes';
 import { Button } from '../button';
 import { inlineSelectClass } from '../fields';
+import { axesOfView } from '@/lib/regions/geometry-schema';
 import { LoadingBlock } from '../loading-block';
 import { Notice } from '../notice';
 import { divergingDomain, sequentialDomain } from '../plane/colour-scale';
 import { PlaneFigure } from '../plane/plane-figure';
+import { RegionsPanel } from '../regions/regions-panel';
+import { useRegionsWorkspace } from '../regions/use-regions-workspace';
 import { formatValue } from '../plane/value-format';
 import { BoxResult } from './box-result';
 import { ChoiceButtons } from './choice-buttons';
@@ -29,10 +32,12 @@ interface ContrastViewProps {
   settings: ContrastSettings;
   onChange?: (next: ContrastSettings) => void;
   compact?: boolean;
+  /** The study entry shown: its study's regions of this plane are drawn, listed and discussed (not when compact). */
+  regionsOf?: { studyId: number; entryId: number | null };
 }
 
 /** A Contrast: two or more samples on the same bins, each later one compared with the first. */
-export function ContrastView({ settings, onChange, compact = false }: ContrastViewProps) {
+export function ContrastView({ settings, onChange, compact = false, regionsOf }: ContrastViewProps) {
   const { data, error, isLoading } = useSWR<ContrastResult, ApiError>(contrastApiUrl(settings), { keepPreviousData: true });
   const figure = useRef<Element | null>(null);
   const keepFigure = useCallback((element: Element | null) => {
@@ -70,6 +75,11 @@ export function ContrastView({ settings, onChange, compact = false }: ContrastVi
       })),
     };
   }, [data, settings.display.colour]);
+  const place = regionsOf && !compact ? { ...regionsOf, axes: axesOfView(data?.view ?? settings.view) } : null;
+  const regions = useRegionsWorkspace(place);
+  const planes = useMemo(() => data?.inputs ?? [], [data]);
+  // While a region is being drawn, the pointer draws it instead of the box.
+  const figureRegions = regions?.figure ?? {};
   const box = useMemo(() => settings.box, [JSON.stringify(settings.box)]); // eslint-disable-line react-hooks/exhaustive-deps
 
   const names = data?.inputs.map((input) => input.sample.name) ?? [];
@@ -126,6 +136,7 @@ export function ContrastView({ settings, onChange, compact = false }: ContrastVi
                   onBox={onChange && !compact ? (box) => change({ box }) : undefined}
                   title={`${b.sample.name} vs ${data.inputs[0].sample.name}`}
                   figureRef={keepFigure}
+                  {...figureRegions}
                 />
                 <p data-testid="chi2" className="text-xs text-ink-soft">
                   χ²/ndf = {formatValue(comparison.chi2)}/{comparison.ndf} = {formatValue(comparison.chi2 / comparison.ndf)} over the bins with at least {data.minEntries} splittings in both (grey: masked).
@@ -145,6 +156,7 @@ export function ContrastView({ settings, onChange, compact = false }: ContrastVi
                   compact
                   legend={k === 0}
                   title={`${String.fromCharCode(65 + k)}: ${input.sample.name}`}
+                  regions={regions?.figure.regions}
                 />
                 {!compact && <OutsideNote outside={input.outside} splittingsPerJet={input.splittingsPerJet} />}
               </div>
@@ -155,6 +167,7 @@ export function ContrastView({ settings, onChange, compact = false }: ContrastVi
       )}
       {data && !compact && (
         <>
+          {regions && drawn && <RegionsPanel workspace={regions} planes={planes} xLabel={drawn.xLabel} yLabel={drawn.yLabel} />}
           <BoxResult
             box={settings.box}
             onBox={(box) => change({ box })}

@@ -101,7 +101,11 @@ export function EntryViewPage({ studyId, entryId, settingsText }: { studyId: str
       {saveState.error && <Notice tone="error">{saveState.error}</Notice>}
       {saveState.saved && <Notice tone="success">Saved: everyone in the study now sees these settings.</Notice>}
       {entry.body && <MarkdownView source={entry.body} />}
-      {kind === 'map' ? <MapView settings={settings as MapSettings} onChange={show} /> : <ContrastView settings={settings as ContrastSettings} onChange={show} />}
+      {kind === 'map' ? (
+        <MapView settings={settings as MapSettings} onChange={show} regionsOf={{ studyId: data.study.id, entryId: entry.id }} />
+      ) : (
+        <ContrastView settings={settings as ContrastSettings} onChange={show} regionsOf={{ studyId: data.study.id, entryId: entry.id }} />
+      )}
       <p className="text-xs text-ink-faint">This page’s address holds the view’s settings: copy it to share the view as you see it.</p>
     </div>
   );

@@ -8,10 +8,13 @@ import type { MapSettings } from '@/lib/maps/entry-settings';
 import type { MapResult } from '@/lib/maps/shapes';
 import type { AxisChoice } from '@/lib/physics/plane/axes';
 import { Button } from '../button';
+import { axesOfView } from '@/lib/regions/geometry-schema';
 import { LoadingBlock } from '../loading-block';
 import { Notice } from '../notice';
 import { sequentialDomain } from '../plane/colour-scale';
 import { PlaneFigure } from '../plane/plane-figure';
+import { RegionsPanel } from '../regions/regions-panel';
+import { useRegionsWorkspace } from '../regions/use-regions-workspace';
 import { ExportMenu } from './export-menu';
 import { JetSummaryPanel } from './jet-summary-panel';
 import { OutsideNote } from './outside-note';
@@ -30,10 +33,12 @@ interface MapViewProps {
   onChange?: (next: MapSettings) => void;
   /** Without controls, projection and downloads: the figure and one line (an entry in the study's list). */
   compact?: boolean;
+  /** The study entry shown: its study's regions of this plane are drawn, listed and discussed (not when compact). */
+  regionsOf?: { studyId: number; entryId: number | null };
 }
 
 /** A Map: one sample's per-jet density on a plane, with its controls, overlays, summary, projection and downloads. */
-export function MapView({ settings, onChange, compact = false }: MapViewProps) {
+export function MapView({ settings, onChange, compact = false, regionsOf }: MapViewProps) {
   const { data, error, isLoading } = useSWR<MapResult, ApiError>(mapApiUrl(settings.sampleId, settings.view), { keepPreviousData: true });
   const figure = useRef<Element | null>(null);
   const keepFigure = useCallback((element: Element | null) => {
@@ -65,6 +70,10 @@ export function MapView({ settings, onChange, compact = false }: MapViewProps) {
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [data, displayKey]);
 
+  const place = regionsOf && !compact ? { ...regionsOf, axes: axesOfView(data?.view ?? view) } : null;
+  const regions = useRegionsWorkspace(place);
+  const planes = useMemo(() => (data ? [{ sample: data.sample, plane: data.plane }] : []), [data]);
+
   const title = data ? `${data.sample.name}: ${TREE_LABELS[data.view.tree]}` : '';
   const change = (next: Partial<MapSettings>) => onChange?.({ ...settings, ...next });
 
@@ -95,6 +104,7 @@ export function MapView({ settings, onChange, compact = false }: MapViewProps) {
             compact={compact}
             legend
             figureRef={keepFigure}
+            {...regions?.figure}
           />
           <OutsideNote outside={data.outside} splittingsPerJet={data.splittingsPerJet} />
           {!compact && drawn.overlays.caption.map((line) => (
@@ -109,6 +119,7 @@ export function MapView({ settings, onChange, compact = false }: MapViewProps) {
       )}
       {data && !compact && (
         <>
+          {regions && drawn && <RegionsPanel workspace={regions} planes={planes} xLabel={drawn.xLabel} yLabel={drawn.yLabel} />}
           <ExportMenu url={(format) => mapApiUrl(settings.sampleId, settings.view, format)} figure={() => figure.current} title={title} baseName={`map-${settings.sampleId}`} />
           {display.projection ? (
             <ProjectionPanel

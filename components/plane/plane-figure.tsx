@@ -3,8 +3,11 @@
 import * as Plot from '@observablehq/plot';
 import { useEffect, useRef, useState } from 'react';
 import type { EdgeLine } from '@/lib/physics/plane/edges';
+import type { RegionShape } from '@/lib/physics/plane/region';
 import type { ContourLine } from './contour-lines';
 import { type ColourScale, plotColour } from './colour-scale';
+import { attachDrawing, type DragBox, type DrawMode } from './figure-drawing';
+import { type FigureRegion, regionMarks } from './region-marks';
 import { useBoxWidth } from './use-box-width';
 import { formatValue, formatWithError } from './value-format';
 
@@ -59,6 +62,11 @@ interface PlaneFigureProps {
   box?: FigureBox | null;
   /** When set, dragging on the figure draws a box and reports it. */
   onBox?: (box: FigureBox) => void;
+  /** Regions drawn over the plane (region-marks.ts). */
+  regions?: readonly FigureRegion[];
+  /** When set, the pointer draws this shape (instead of a box) and `onShape` receives it. */
+  draw?: DrawMode | null;
+  onShape?: (shape: RegionShape) => void;
   legend?: boolean;
   /** Height over width. */
   aspect?: number;
@@ -116,18 +124,19 @@ export function describeBin(bin: HoverBin, xLabel: string, yLabel: string, value
 
 /**
  * A binned plane drawn with Observable Plot: one rectangle a bin coloured with a house scheme and a legend, the
- * kinematic lines and leading-order contours over it, a box, and a readout of the bin under the pointer (edges,
- * value ± error, raw count). Dragging draws a box when `onBox` is given.
+ * kinematic lines and leading-order contours over it, a box, regions, and a readout of the bin under the pointer
+ * (edges, value ± error, raw count). Dragging draws a box when `onBox` is given; `draw` draws a region's shape.
  */
 export function PlaneFigure(props: PlaneFigureProps) {
-  const { grid, colour, xLabel, yLabel, valueName, lines = [], contours, box, onBox, legend = true, aspect = 0.72, compact = false, title, figureRef } = props;
+  const { grid, colour, xLabel, yLabel, valueName, lines = [], contours, box, onBox, regions, draw = null, onShape, legend = true, aspect = 0.72, compact = false, title, figureRef } = props;
   const { box: holderBox, width } = useBoxWidth();
   const holder = useRef<HTMLDivElement>(null);
   const [hover, setHover] = useState<HoverBin | null>(null);
   /** The box being dragged, in pixels of the holder (drawn as an overlay, so the figure is not redrawn meanwhile). */
-  const [dragging, setDragging] = useState<{ left: number; top: number; width: number; height: number } | null>(null);
-  const onBoxRef = useRef(onBox);
-  onBoxRef.current = onBox;
+  const [dragging, setDragging] = useState<DragBox | null>(null);
+  const drawing = useRef({ onBox, onShape, mode: draw ?? (onBox ? ('rectangle' as const) : null) });
+  drawing.current = { onBox, onShape, mode: draw ?? (onBox ? 'rectangle' : null) };
+  const drawsAnything = draw !== null || onBox !== undefined;
 
   useEffect(() => {
     const target = holder.current;
@@ -152,6 +161,7 @@ export function PlaneFigure(props: PlaneFigureProps) {
     if (box) {
       marks.push(Plot.rect([box], { x1: 'x1', x2: 'x2', y1: 'y1', y2: 'y2', fill: 'none', stroke: '#0f766e', strokeWidth: 2, ariaDescription: 'box' }));
     }
+    if (regions) marks.push(...regionMarks(regions));
     marks.push(
       Plot.frame({ strokeOpacity: 0.25 }),
       Plot.tip(bins, Plot.pointer({ x: 'xc', y: 'yc', title: (d: Bin) => describeBin(d, xLabel, yLabel, valueName), maxRadius: 400 })),
@@ -176,50 +186,34 @@ export function PlaneFigure(props: PlaneFigureProps) {
     };
     figure.addEventListener('input', readout);
     const svg = [...figure.querySelectorAll('svg')].pop() ?? null;
-    const xScale = figure.scale('x');
-    const yScale = figure.scale('y');
-    let start: { x: number; y: number } | null = null;
-    const pixel = (event: PointerEvent) => {
-      const rect = svg!.getBoundingClientRect();
-      const outer = target.getBoundingClientRect();
-      return { x: event.clientX - rect.left, y: event.clientY - rect.top, dx: rect.left - outer.left, dy: rect.top - outer.top };
-    };
-    const down = (event: PointerEvent) => {
-      if (!onBoxRef.current) return;
-      start = pixel(event);
-      svg!.setPointerCapture(event.pointerId);
-    };
-    const move = (event: PointerEvent) => {
-      if (!start) return;
-      const p = pixel(event);
-      setDragging({ left: Math.min(start.x, p.x) + p.dx, top: Math.min(start.y, p.y) + p.dy, width: Math.abs(p.x - start.x), height: Math.abs(p.y - start.y) });
-    };
-    const up = (event: PointerEvent) => {
-      if (!start) return;
-      const p = pixel(event);
-      const xs = [start.x, p.x].map((v) => xScale!.invert!(v) as number);
-      const ys = [start.y, p.y].map((v) => yScale!.invert!(v) as number);
-      start = null;
-      setDragging(null);
-      const drawn = { x1: Math.min(...xs), x2: Math.max(...xs), y1: Math.min(...ys), y2: Math.max(...ys) };
-      if (drawn.x2 > drawn.x1 && drawn.y2 > drawn.y1) onBoxRef.current?.(drawn);
-    };
-    if (svg) {
-      svg.addEventListener('pointerdown', down);
-      svg.addEventListener('pointermove', move);
-      svg.addEventListener('pointerup', up);
-      if (onBox) svg.style.cursor = 'crosshair';
-    }
+    const detach =
+      svg && drawsAnything
+        ? attachDrawing({
+            svg,
+            holder: target,
+            x: figure.scale('x') as never,
+            y: figure.scale('y') as never,
+            mode: () => drawing.current.mode,
+            onDragging: setDragging,
+            onShape: (shape) => {
+              const { onShape: report, onBox: reportBox } = drawing.current;
+              if (draw && report) report(shape);
+              else if (reportBox && shape.type === 'rectangle') reportBox({ x1: shape.x1, x2: shape.x2, y1: shape.y1, y2: shape.y2 });
+            },
+          })
+        : null;
+    if (svg && drawsAnything) svg.style.cursor = 'crosshair';
     target.replaceChildren(figure);
     figureRef?.(figure);
     return () => {
+      detach?.();
       figure.removeEventListener('input', readout);
       figure.remove();
       figureRef?.(null);
     };
-    // onBox is read through a ref; only whether there is one changes the figure (its cursor).
+    // The callbacks are read through a ref; only whether the figure draws at all changes it (its cursor).
     // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [grid, colour, xLabel, yLabel, valueName, lines, contours, box, legend, aspect, compact, title, width, figureRef, onBox !== undefined]);
+  }, [grid, colour, xLabel, yLabel, valueName, lines, contours, box, regions, legend, aspect, compact, title, width, figureRef, drawsAnything, draw]);
 
   return (
     <div ref={holderBox} className="w-full">

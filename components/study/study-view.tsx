@@ -9,7 +9,9 @@ import { EmptyState } from '../empty-state';
 import { useMe } from '../hooks/use-me';
 import { LoadingBlock } from '../loading-block';
 import { Panel } from '../panel';
+import { StudyRegionsList } from '../regions/study-regions-list';
 import { StudySamplesPanel } from '../samples/study-samples-panel';
+import { ActivityPanel } from './activity-panel';
 import { EntryList } from './entry-list';
 import { MembersPanel } from './members-panel';
 import { studyPermissions } from './permissions';
@@ -44,8 +46,10 @@ export function StudyView({ studyId }: { studyId: string }) {
       <div className="min-w-0">
         <StudyHeading studyId={studyId} study={data.study} myRole={data.myRole} canEdit={canEdit} onChanged={mutate} />
         <EntryList studyId={studyId} entries={data.entries} canEdit={canEdit} onChanged={mutate} />
+        <StudyRegionsList studyId={data.study.id} />
       </div>
       <aside className="space-y-4">
+        <ActivityPanel studyId={studyId} />
         <StudySamplesPanel studyId={studyId} canEdit={canEdit} />
         <MembersPanel studyId={studyId} members={data.members} myId={me.id} canManage={canManage} onChanged={mutate} />
         {canManage && (

@@ -1,4 +1,5 @@
-// Limits of sign-in, sign-up, password, token, password-reset and invitation attempts, read from the environment (README "Configuration").
+// Limits of sign-in, sign-up, password, token, password-reset and invitation attempts and of comments, read from the
+// environment (README "Configuration").
 import { z } from 'zod';
 import { checkedEnvironment, type Environment } from '../config/environment';
 
@@ -17,6 +18,8 @@ export interface ThrottleConfig {
   resetsPerAccount: number;
   /** Invitations one user may send per window. */
   invitationsPerUser: number;
+  /** Comments one person may post per minute (over all studies). */
+  commentsPerMinute: number;
   windowSeconds: number;
   /** Take the client address from X-Forwarded-For (behind a reverse proxy that sets it). */
   trustProxy: boolean;
@@ -37,6 +40,7 @@ const environmentSchema = z.object({
   SPLITFIELD_RESETS_PER_ADDRESS: count.optional(),
   SPLITFIELD_RESETS_PER_ACCOUNT: count.optional(),
   SPLITFIELD_INVITATIONS_PER_USER: count.optional(),
+  SPLITFIELD_COMMENTS_PER_MINUTE: count.optional(),
   SPLITFIELD_THROTTLE_WINDOW_SECONDS: count.optional(),
   SPLITFIELD_TRUST_PROXY: z.enum(['0', '1', 'false', 'true', '']).optional(),
 });
@@ -51,6 +55,7 @@ export function readThrottleConfig(env: Environment = process.env): ThrottleConf
     resetsPerAddress: values.SPLITFIELD_RESETS_PER_ADDRESS ?? 10,
     resetsPerAccount: values.SPLITFIELD_RESETS_PER_ACCOUNT ?? 3,
     invitationsPerUser: values.SPLITFIELD_INVITATIONS_PER_USER ?? 50,
+    commentsPerMinute: values.SPLITFIELD_COMMENTS_PER_MINUTE ?? 20,
     windowSeconds: values.SPLITFIELD_THROTTLE_WINDOW_SECONDS ?? 900,
     trustProxy: values.SPLITFIELD_TRUST_PROXY === '1' || values.SPLITFIELD_TRUST_PROXY === 'true',
   };

@@ -1,13 +1,14 @@
 // Throttling of guessable or costly requests, in memory (one server per storage folder): failed sign-ins per
 // account and per client address, sign-ups per address, wrong current passwords, unknown API tokens, new tokens,
-// password reset requests (per address and per account) and invitations per user.
+// password reset requests (per address and per account), invitations per user, and comments per person (a burst is
+// refused; the comments already accepted stay).
 // A request over a limit gets 429 with the seconds until it may be tried again (Retry-After).
 import { RateLimiterMemory, RateLimiterRes } from 'rate-limiter-flexible';
 import { ApiError } from '../api/errors';
 import { retryAfterText } from './retry-after';
 import { readThrottleConfig, type ThrottleConfig } from './throttle-config';
 
-export type ThrottleKind = 'accountFailure' | 'addressFailure' | 'signup' | 'newToken' | 'resetAddress' | 'resetAccount' | 'invitation';
+export type ThrottleKind = 'accountFailure' | 'addressFailure' | 'signup' | 'newToken' | 'resetAddress' | 'resetAccount' | 'invitation' | 'comment';
 
 interface Throttles {
   config: ThrottleConfig;
@@ -22,8 +23,8 @@ function throttles(): Throttles {
   const holder = globalThis as ProcessWide;
   if (!holder[processWideKey]) {
     const config = readThrottleConfig();
-    const limiter = (points: number, keyPrefix: string) =>
-      new RateLimiterMemory({ points, duration: config.windowSeconds, keyPrefix });
+    const limiter = (points: number, keyPrefix: string, duration = config.windowSeconds) =>
+      new RateLimiterMemory({ points, duration, keyPrefix });
     holder[processWideKey] = {
       config,
       limiters: {
@@ -34,6 +35,7 @@ function throttles(): Throttles {
         resetAddress: limiter(config.resetsPerAddress, 'reset-address'),
         resetAccount: limiter(config.resetsPerAccount, 'reset-account'),
         invitation: limiter(config.invitationsPerUser, 'invitation'),
+        comment: limiter(config.commentsPerMinute, 'comment', 60),
       },
     };
   }
@@ -90,4 +92,17 @@ export async function requireNotThrottled(what: string, checks: Array<[ThrottleK
   const waits = await Promise.all(checks.map(([kind, key]) => secondsBlocked(kind, key)));
   const wait = Math.max(0, ...waits);
   if (wait > 0) throw new TooManyAttempts(wait, what);
+}
+
+/**
+ * Uses one of `key`'s allowance under `kind` before the action it pays for; 429 (nothing done) when none is left.
+ * Counting first, in one step, keeps requests that arrive together from slipping past the limit.
+ */
+export async function takeAllowance(kind: ThrottleKind, key: string, what: string): Promise<void> {
+  try {
+    await throttles().limiters[kind].consume(key);
+  } catch (error) {
+    if (!(error instanceof RateLimiterRes)) throw error;
+    throw new TooManyAttempts(Math.max(1, Math.ceil(error.msBeforeNext / 1000)), what);
+  }
 }

@@ -6,7 +6,7 @@ import type { SiteRole, StudyRole } from '@/models/vocabulary';
 import { hashPassword } from '../auth/password';
 import type { Database } from '../db/connection';
 import { demoViewEntries } from './study-views';
-import { DEMO_CLOSING_NOTE, DEMO_NOTES, DEMO_STUDY } from './study-text';
+import { DEMO_CLOSING_NOTE, DEMO_NOTES, DEMO_REGION_CATEGORIES, DEMO_STUDY } from './study-text';
 
 export interface DemoAccount {
   name: string;
@@ -68,6 +68,7 @@ export async function seedOnce(database: Database, storageDir: string, demoJets 
     for (const [position, entry] of entries.entries()) {
       await models.Entry.create({ studyId: study.id, position, ...entry, createdById: author.id, updatedById: author.id }, { transaction });
     }
+    await models.RegionCategory.bulkCreate(DEMO_REGION_CATEGORIES.map((category) => ({ studyId: study.id, ...category })), { transaction });
     // Written before the commit: if it fails, the transaction rolls back and the next start tries again.
     try {
       writeFileSync(path.join(storageDir, DEMO_CREDENTIALS_FILE), demoCredentialsText(accounts), { mode: 0o600 });

@@ -61,3 +61,10 @@ The generator's own emissions, before any clustering, do agree with $2\alpha_s C
 (high $k_t$, few emissions per jet), or compare with a parton shower that models the same clustering.
 `,
 };
+
+/** The demo study's own kinds of region, each with the colour its outlines are drawn in. */
+export const DEMO_REGION_CATEGORIES = [
+  { name: 'Excess', colour: '#cc6677' },
+  { name: 'Check the binning', colour: '#332288' },
+  { name: 'Agrees with expectation', colour: '#117733' },
+];

@@ -4,7 +4,8 @@ import { processingTime } from './0003-processing-time';
 import { hardening } from './0004-hardening';
 import { notifications } from './0005-notifications';
 import { mail } from './0007-mail';
+import { regions } from './0008-regions';
 import type { SchemaMigration } from './types';
 
 /** Every schema step in the order it runs. Listed here rather than found on disk so that any loader can run them. */
-export const schemaMigrations: readonly SchemaMigration[] = [foundation, samples, processingTime, hardening, notifications, mail];
+export const schemaMigrations: readonly SchemaMigration[] = [foundation, samples, processingTime, hardening, notifications, mail, regions];

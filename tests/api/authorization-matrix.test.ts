@@ -119,6 +119,53 @@ async function invitationTokenFor(world: World, email: string): Promise<string> 
   return linkToken(await waitForMail(admin(world), email, /invites you/), '/invite');
 }
 
+const RECTANGLE = { axes: { x: 'lnInvDelta', y: 'lnKt' }, shape: { type: 'rectangle', x1: 1, x2: 2, y1: 0, y2: 1 } };
+
+/** A new region of the matrix study, drawn by its owner; its path, and a check that it is still as made. */
+async function freshRegion(world: World, title: string): Promise<{ path: string; unchanged: () => Promise<void> }> {
+  const made = await world.people.owner.client.post(inStudy(world, '/regions'), { title, comment: 'First words.', geometry: RECTANGLE });
+  expect(made.status, made.text).toBe(201);
+  const path = inStudy(world, `/regions/${made.body.region.id}`);
+  return {
+    path,
+    unchanged: async () => {
+      const found = await world.people.owner.client.get(path);
+      expect(found.status).toBe(200);
+      expect(found.body.region.title).toBe(title);
+    },
+  };
+}
+
+/** A comment of the owner on a fresh region, and a check that its text is still as written. */
+async function ownersComment(world: World, label: string): Promise<Call> {
+  const region = await freshRegion(world, `Region for ${label}`);
+  const made = await world.people.owner.client.post(`${region.path}/comments`, { body: `Owner's words ${label}` });
+  expect(made.status, made.text).toBe(201);
+  return {
+    path: `${region.path}/comments/${made.body.comment.id}`,
+    unchanged: async () => {
+      const thread = (await world.people.owner.client.get(`${region.path}/comments`)).body.comments;
+      expect(thread.map((c: { body: string }) => c.body)).toContain(`Owner's words ${label}`);
+    },
+  };
+}
+
+async function freshCategory(world: World, name: string): Promise<Call> {
+  const made = await world.people.owner.client.post(inStudy(world, '/region-categories'), { name, colour: '#1f77b4' });
+  expect(made.status, made.text).toBe(201);
+  return {
+    path: inStudy(world, `/region-categories/${made.body.category.id}`),
+    unchanged: async () => {
+      const names = (await world.people.owner.client.get(inStudy(world, '/region-categories'))).body.categories.map((c: { name: string }) => c.name);
+      expect(names).toContain(name);
+    },
+  };
+}
+
+async function regionTitles(world: World): Promise<string[]> {
+  return (await world.people.owner.client.get(inStudy(world, '/regions'))).body.regions.map((r: { title: string }) => r.title);
+}
+
 //                                                    anon nonMem viewer comm  editor owner admin
 const ROWS: Row[] = [
   {
@@ -522,6 +569,113 @@ const ROWS: Row[] = [
     },
     expected: statuses(401, 403, 403, 403, 403, 403, 200),
   },
+  {
+    method: 'GET',
+    route: '/api/studies/[studyId]/regions',
+    call: async (world) => ({ path: inStudy(world, '/regions') }),
+    expected: statuses(401, 404, 200, 200, 200, 200, 200),
+  },
+  {
+    method: 'POST',
+    route: '/api/studies/[studyId]/regions',
+    call: async (world, actor) => ({
+      path: inStudy(world, '/regions'),
+      body: { title: `Drawn by ${actor}`, comment: 'Look here.', geometry: RECTANGLE },
+      unchanged: async () => expect(await regionTitles(world)).not.toContain(`Drawn by ${actor}`),
+    }),
+    expected: statuses(401, 404, 403, 201, 201, 201, 201),
+  },
+  {
+    method: 'GET',
+    route: '/api/studies/[studyId]/regions/[regionId]',
+    call: async (world) => ({ path: (await freshRegion(world, 'Read me')).path }),
+    expected: statuses(401, 404, 200, 200, 200, 200, 200),
+  },
+  {
+    // Title, category and shape are the author's (the owner here) and editors'.
+    method: 'PATCH',
+    route: '/api/studies/[studyId]/regions/[regionId]',
+    call: async (world, actor) => ({ ...(await freshRegion(world, `Renamed unless by ${actor}`)), body: { title: `Renamed by ${actor}` } }),
+    expected: statuses(401, 404, 403, 403, 200, 200, 200),
+  },
+  {
+    method: 'DELETE',
+    route: '/api/studies/[studyId]/regions/[regionId]',
+    call: async (world, actor) => freshRegion(world, `Kept unless deleted by ${actor}`),
+    expected: statuses(401, 404, 403, 403, 204, 204, 204),
+  },
+  {
+    method: 'GET',
+    route: '/api/studies/[studyId]/regions/[regionId]/comments',
+    call: async (world) => ({ path: `${(await freshRegion(world, 'Thread')).path}/comments` }),
+    expected: statuses(401, 404, 200, 200, 200, 200, 200),
+  },
+  {
+    method: 'POST',
+    route: '/api/studies/[studyId]/regions/[regionId]/comments',
+    call: async (world, actor) => {
+      const region = await freshRegion(world, `Commented on by ${actor}`);
+      return {
+        path: `${region.path}/comments`,
+        body: { body: `Said by ${actor}` },
+        unchanged: async () => {
+          const thread = (await world.people.owner.client.get(`${region.path}/comments`)).body.comments;
+          expect(thread).toHaveLength(1);
+        },
+      };
+    },
+    expected: statuses(401, 404, 403, 201, 201, 201, 201),
+  },
+  {
+    // Only one's own comment, whatever the role.
+    method: 'PATCH',
+    route: '/api/studies/[studyId]/regions/[regionId]/comments/[commentId]',
+    call: async (world, actor) => ({ ...(await ownersComment(world, `edit-${actor}`)), body: { body: `Changed by ${actor}` } }),
+    expected: statuses(401, 404, 403, 403, 403, 200, 403),
+  },
+  {
+    // One's own, or any as an owner (or a site admin).
+    method: 'DELETE',
+    route: '/api/studies/[studyId]/regions/[regionId]/comments/[commentId]',
+    call: async (world, actor) => ownersComment(world, `delete-${actor}`),
+    expected: statuses(401, 404, 403, 403, 403, 204, 204),
+  },
+  {
+    method: 'GET',
+    route: '/api/studies/[studyId]/region-categories',
+    call: async (world) => ({ path: inStudy(world, '/region-categories') }),
+    expected: statuses(401, 404, 200, 200, 200, 200, 200),
+  },
+  {
+    method: 'POST',
+    route: '/api/studies/[studyId]/region-categories',
+    call: async (world, actor) => ({ path: inStudy(world, '/region-categories'), body: { name: `Kind by ${actor}`, colour: '#aa3377' } }),
+    expected: statuses(401, 404, 403, 403, 201, 201, 201),
+  },
+  {
+    method: 'PATCH',
+    route: '/api/studies/[studyId]/region-categories/[categoryId]',
+    call: async (world, actor) => ({ ...(await freshCategory(world, `Recoloured unless by ${actor}`)), body: { colour: '#228833' } }),
+    expected: statuses(401, 404, 403, 403, 200, 200, 200),
+  },
+  {
+    method: 'DELETE',
+    route: '/api/studies/[studyId]/region-categories/[categoryId]',
+    call: async (world, actor) => freshCategory(world, `Kept unless removed by ${actor}`),
+    expected: statuses(401, 404, 403, 403, 204, 204, 204),
+  },
+  {
+    method: 'GET',
+    route: '/api/studies/[studyId]/activity',
+    call: async (world) => ({ path: inStudy(world, '/activity') }),
+    expected: statuses(401, 404, 200, 200, 200, 200, 200),
+  },
+  {
+    method: 'POST',
+    route: '/api/studies/[studyId]/activity',
+    call: async (world) => ({ path: inStudy(world, '/activity') }),
+    expected: statuses(401, 404, 204, 204, 204, 204, 204),
+  },
   // Last: it ends every session of each actor's person, so no row may come after it.
   {
     method: 'DELETE',
@@ -534,8 +688,10 @@ const ROWS: Row[] = [
 let world: World;
 
 beforeAll(async () => {
-  // The owner queues many samples here: the per-person queue limit is not what this table is about.
-  const { server, admin: adminClient } = await serverWithAdmin({ env: { SPLITFIELD_MAX_JOBS_PER_USER: '1000', SPLITFIELD_RESETS_PER_ADDRESS: '1000' } });
+  // The owner queues many samples and writes many comments here: the per-person limits are not what this table is about.
+  const { server, admin: adminClient } = await serverWithAdmin({
+    env: { SPLITFIELD_MAX_JOBS_PER_USER: '1000', SPLITFIELD_RESETS_PER_ADDRESS: '1000', SPLITFIELD_COMMENTS_PER_MINUTE: '1000' },
+  });
   const people = {
     owner: await newPerson(server, 'owner'),
     viewer: await newPerson(server, 'viewer'),
