@@ -1,8 +1,8 @@
 // Regions and their threads as collaborators use them, in real browsers against a real server on the demo data:
 // the demo study's commenter draws a rectangle on the quark map with the mouse and types a polygon's corners,
-// mentions the owner (with completion) in the first comment; the owner sees the mention and the study's activity,
-// opens the region from there, resolves it and replies; the commenter's open thread shows the reply without a
-// reload. Titles with HTML stay text. Screenshots go to tests/artifacts/regions-*.png.
+// mentions the owner (with completion) in the first comment; the mention mail reaches the Outbox; the owner sees the
+// mention and the study's activity, opens the region from there, resolves it and replies; the commenter's open thread
+// shows the reply without a reload. Titles with HTML stay text. Screenshots go to tests/artifacts/regions-*.png.
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { openDatabase } from '@/lib/db/connection';
@@ -129,6 +129,26 @@ describe('regions on the demo map', () => {
 
   it('tells the owner, who finds the region through the activity, resolves it and replies; the commenter sees the reply without reloading', async () => {
     expect((await notificationRows()).filter((row) => row.kind === 'mention')).toEqual([{ email: 'tamsin@larkspur.test', kind: 'mention', summary: `Oren Halvik mentioned you on region “${TITLE}”` }]);
+
+    // The mention reaches the owner by mail: the local mail server's copy, read on the admins' Outbox page.
+    const adminAccount = server.credentials.members.find((member) => member.siteRole === 'admin')!;
+    const outbox = await openBrowser();
+    try {
+      await signInThroughPage(outbox.page, server.baseUrl, adminAccount.email, adminAccount.password);
+      await outbox.page.goto(`${server.baseUrl}/admin/mail`);
+      const mentionMail = outbox.page.getByRole('list', { name: 'Received mail' }).getByRole('link', { name: /Oren Halvik mentioned you on region/ });
+      await mentionMail.waitFor({ timeout: 30_000 });
+      await mentionMail.click();
+      const html = outbox.page.getByTestId('mail-html');
+      await html.waitFor();
+      expect(await outbox.page.textContent('body')).toContain('tamsin@larkspur.test');
+      expect(await html.innerText()).toContain(`mentioned you on region “${TITLE}”`);
+      expect(await html.locator('b').count()).toBe(0);
+      expect(await html.getByRole('link', { name: 'Open it' }).getAttribute('href')).toMatch(/\/studies\/\d+\/entries\/\d+\?region=\d+$/);
+      await screenshot(outbox.page, 'regions-mention-mail-1280', 1280);
+    } finally {
+      await outbox.close();
+    }
 
     // The commenter opens the rectangle's thread and keeps it open.
     await regionsPanel(collaborator.page).getByTestId('region-row').filter({ hasText: 'Wide-angle' }).click();
