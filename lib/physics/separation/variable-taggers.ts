@@ -33,7 +33,8 @@ export function variableTagger(signal: TaggerSide, background: TaggerSide): Vari
   const largerIsSignal = !(weightedMean(signal.values, signal.weights, signal.train) < weightedMean(background.values, background.weights, background.train));
   const side = (s: TaggerSide) => {
     const v = packed(s.values, s.evaluate);
-    if (!largerIsSignal) for (let i = 0; i < v.length; i++) v[i] = -v[i];
+    // A jet without a value (e.g. failing SoftDrop in tagging mode) fails every threshold.
+    for (let i = 0; i < v.length; i++) v[i] = Number.isNaN(v[i]) ? -Infinity : largerIsSignal ? v[i] : -v[i];
     return rankScores(v, packed(s.weights, s.evaluate));
   };
   return { largerIsSignal, roc: rocOf(side(signal), side(background)) };
