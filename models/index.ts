@@ -8,6 +8,7 @@ import { defineSamplePlane } from './sample-plane';
 import { defineSignInSession } from './sign-in-session';
 import { defineSiteSetting } from './site-setting';
 import { defineStudy } from './study';
+import { defineTagger } from './tagger';
 import { defineUser } from './user';
 
 /**
@@ -25,6 +26,7 @@ export function defineModels(sequelize: Sequelize) {
   const ApiToken = defineApiToken(sequelize);
   const SignInSession = defineSignInSession(sequelize);
   const Notification = defineNotification(sequelize);
+  const Tagger = defineTagger(sequelize);
 
   Study.hasMany(Membership, { foreignKey: 'studyId', as: 'memberships' });
   Membership.belongsTo(Study, { foreignKey: 'studyId', as: 'study' });
@@ -41,8 +43,10 @@ export function defineModels(sequelize: Sequelize) {
   ApiToken.belongsTo(User, { foreignKey: 'userId', as: 'user' });
   Notification.belongsTo(User, { foreignKey: 'userId', as: 'user' });
   Notification.belongsTo(User, { foreignKey: 'actorId', as: 'actor' });
+  Study.hasMany(Tagger, { foreignKey: 'studyId', as: 'taggers' });
+  Tagger.belongsTo(User, { foreignKey: 'createdById', as: 'createdBy' });
 
-  return { User, SiteSetting, Study, Membership, Entry, Sample, SamplePlane, ApiToken, SignInSession, Notification };
+  return { User, SiteSetting, Study, Membership, Entry, Sample, SamplePlane, ApiToken, SignInSession, Notification, Tagger };
 }
 
 export type Models = ReturnType<typeof defineModels>;
