@@ -57,6 +57,8 @@ interface PlaneFigureProps {
   lines?: EdgeLine[];
   contours?: FigureContours | null;
   box?: FigureBox | null;
+  /** Labelled rectangles drawn over the figure (e.g. ranked region proposals). */
+  regions?: Array<FigureBox & { label: string }>;
   /** When set, dragging on the figure draws a box and reports it. */
   onBox?: (box: FigureBox) => void;
   legend?: boolean;
@@ -120,7 +122,7 @@ export function describeBin(bin: HoverBin, xLabel: string, yLabel: string, value
  * value ± error, raw count). Dragging draws a box when `onBox` is given.
  */
 export function PlaneFigure(props: PlaneFigureProps) {
-  const { grid, colour, xLabel, yLabel, valueName, lines = [], contours, box, onBox, legend = true, aspect = 0.72, compact = false, title, figureRef } = props;
+  const { grid, colour, xLabel, yLabel, valueName, lines = [], contours, box, regions, onBox, legend = true, aspect = 0.72, compact = false, title, figureRef } = props;
   const { box: holderBox, width } = useBoxWidth();
   const holder = useRef<HTMLDivElement>(null);
   const [hover, setHover] = useState<HoverBin | null>(null);
@@ -151,6 +153,12 @@ export function PlaneFigure(props: PlaneFigureProps) {
     }
     if (box) {
       marks.push(Plot.rect([box], { x1: 'x1', x2: 'x2', y1: 'y1', y2: 'y2', fill: 'none', stroke: '#0f766e', strokeWidth: 2, ariaDescription: 'box' }));
+    }
+    if (regions && regions.length > 0) {
+      marks.push(
+        Plot.rect(regions, { x1: 'x1', x2: 'x2', y1: 'y1', y2: 'y2', fill: 'none', stroke: '#1d2733', strokeWidth: 1.6, ariaDescription: 'regions' }),
+        Plot.text(regions, { x: 'x1', y: 'y2', text: 'label', dx: 3, dy: 7, textAnchor: 'start', fontWeight: 600, fill: '#1d2733', stroke: 'white', strokeWidth: 3, paintOrder: 'stroke' }),
+      );
     }
     marks.push(
       Plot.frame({ strokeOpacity: 0.25 }),
@@ -219,7 +227,7 @@ export function PlaneFigure(props: PlaneFigureProps) {
     };
     // onBox is read through a ref; only whether there is one changes the figure (its cursor).
     // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [grid, colour, xLabel, yLabel, valueName, lines, contours, box, legend, aspect, compact, title, width, figureRef, onBox !== undefined]);
+  }, [grid, colour, xLabel, yLabel, valueName, lines, contours, box, regions, legend, aspect, compact, title, width, figureRef, onBox !== undefined]);
 
   return (
     <div ref={holderBox} className="w-full">

@@ -14,14 +14,15 @@ export const runtime = 'nodejs';
 
 const params = z.object({ studyId: idParam });
 
-/** Save a Separation entry of the study as a tagger, or import a tagger file. */
-const newTaggerSchema = z.union(
-  [
-    z.strictObject({ entryId: z.number().int().positive('entryId must be an entry id'), name: entryTitleSchema.pipe(z.string().min(1, 'name must not be empty')) }),
-    z.strictObject({ document: taggerDocumentSchema }),
-  ],
-  { error: 'give {entryId, name} to save a Separation, or {document} to import a tagger file' },
-);
+/** Save a Separation entry of the study as a tagger ({entryId, name}), or import a tagger file ({document}). */
+const newTaggerSchema = z
+  .strictObject({
+    entryId: z.number({ error: 'entryId must be an entry id' }).int('entryId must be an entry id').positive('entryId must be an entry id').optional(),
+    name: entryTitleSchema.pipe(z.string().min(1, 'name must not be empty')).optional(),
+    document: taggerDocumentSchema.optional(),
+  })
+  .refine((v) => (v.document === undefined) !== (v.entryId === undefined), 'give {entryId, name} to save a Separation, or {document} to import a tagger file')
+  .refine((v) => v.document !== undefined || v.name !== undefined, { error: 'name is required when saving a Separation', path: ['name'] });
 
 export const GET = signedInRoute({ params }, async ({ params, user }) => {
   const { study } = await studyAccess(user, params.studyId, 'viewer');
@@ -31,11 +32,11 @@ export const GET = signedInRoute({ params }, async ({ params, user }) => {
 export const POST = signedInRoute({ params }, async ({ request, params, user }) => {
   const { study } = await studyAccess(user, params.studyId, 'editor');
   const input = await readJsonBody(request, newTaggerSchema, BODY_LIMITS.tagger);
-  const document = 'document' in input ? input.document : await separationEntryDocument(user, study.id, input.entryId, input.name);
+  const document = input.document ?? (await separationEntryDocument(user, study.id, input.entryId!, input.name!));
   const { models, write } = db();
   const id = await write(async (transaction) => {
     const created = await models.Tagger.create(
-      { studyId: study.id, sourceEntryId: 'entryId' in input ? input.entryId : null, name: document.name, definition: JSON.stringify(document), createdById: user.id },
+      { studyId: study.id, sourceEntryId: input.entryId ?? null, name: document.name, definition: JSON.stringify(document), createdById: user.id },
       { transaction },
     );
     await touchStudy(study.id, transaction);
