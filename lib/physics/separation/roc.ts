@@ -84,11 +84,22 @@ function sweep(signal: RankedScores, background: RankedScores) {
   return { thresholds: thresholds.subarray(0, points), effS: effS.subarray(0, points), effB: effB.subarray(0, points), auc };
 }
 
+/** The first index where the nondecreasing `values` reach `target` (its length − 1 when they never do). */
+function firstReaching(values: Float64Array, target: number): number {
+  let lo = 0;
+  let hi = values.length - 1;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (values[mid] >= target) hi = mid;
+    else lo = mid + 1;
+  }
+  return lo;
+}
+
 /** Where ε_S first reaches `target` (interpolated), with the curve's slope dε_B/dε_S there. */
 function workingPoint(target: number, curve: ReturnType<typeof sweep>, signal: RankedScores, background: RankedScores): WorkingPoint {
   const { thresholds, effS, effB } = curve;
-  let at = effS.findIndex((e) => e >= target);
-  if (at < 0) at = effS.length - 1;
+  const at = firstReaching(effS, target);
   const e0 = at > 0 ? effS[at - 1] : 0;
   const b0 = at > 0 ? effB[at - 1] : 0;
   const t0 = at > 0 ? thresholds[at - 1] : thresholds[at];
@@ -96,12 +107,8 @@ function workingPoint(target: number, curve: ReturnType<typeof sweep>, signal: R
   const eB = b0 + f * (effB[at] - b0);
   const threshold = t0 + f * (thresholds[at] - t0);
   // Local slope over ±0.02 in ε_S, for carrying the signal efficiency's error into ε_B.
-  const near = (e: number) => {
-    const j = effS.findIndex((x) => x >= e);
-    return j < 0 ? effS.length - 1 : j;
-  };
-  const lo = near(Math.max(0, target - 0.02));
-  const hi = near(Math.min(1, target + 0.02));
+  const lo = firstReaching(effS, Math.max(0, target - 0.02));
+  const hi = firstReaching(effS, Math.min(1, target + 0.02));
   const slope = effS[hi] > effS[lo] ? (effB[hi] - effB[lo]) / (effS[hi] - effS[lo]) : 0;
   const nB = effectiveCount(background);
   const nS = effectiveCount(signal);

@@ -109,3 +109,21 @@ describe('AUC with ties and weights (Mann–Whitney, counted pair by pair)', () 
     expect(efficiencyAt(ranked, 1.5).error).toBeCloseTo(Math.sqrt((0.4 * 0.6) / 5), 12);
   });
 });
+
+describe('ranking scores', () => {
+  it('sorts like a comparison sort: negatives, zeros, infinities, ties, with weights following their scores', () => {
+    const rng = new Rng(9);
+    const values = [-Infinity, Infinity, 0, -0, 1e-300, -1e-300, 5, 5, -5, 3.25, 1e12, -1e12];
+    for (let i = 0; i < 2000; i++) values.push(rng.normal() * 10 ** rng.int(-5, 5), rng.int(-3, 3));
+    const weights = values.map((_, i) => i + 1);
+    const ranked = rankScores(Float64Array.from(values), weights);
+    for (let i = 1; i < values.length; i++) {
+      expect(ranked.score[i]).toBeGreaterThanOrEqual(ranked.score[i - 1]);
+      // Equal scores keep their input order (−0 sorts before +0: the sort reads the bits).
+      if (Object.is(ranked.score[i], ranked.score[i - 1])) expect(ranked.weight[i]).toBeGreaterThan(ranked.weight[i - 1]);
+    }
+    // Each weight sits beside its own score, and nothing is lost.
+    for (let i = 0; i < values.length; i++) expect(Object.is(values[ranked.weight[i] - 1], ranked.score[i])).toBe(true);
+    expect(ranked.total).toBe(weights.reduce((a, b) => a + b, 0));
+  });
+});
