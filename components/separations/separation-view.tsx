@@ -7,10 +7,10 @@ import { axisLabel } from '@/lib/maps/axis-labels';
 import type { AxisChoice } from '@/lib/physics/plane/axes';
 import type { SavedRegion, SeparationSettings } from '@/lib/separations/settings';
 import type { SeparationResult } from '@/lib/separations/shapes';
-import { inlineSelectClass } from '../fields';
 import { LoadingBlock } from '../loading-block';
 import { ChoiceButtons } from '../maps/choice-buttons';
 import { filterRefusal } from '../maps/map-view';
+import { MinEntriesField } from '../maps/min-entries-field';
 import { ViewControls } from '../maps/view-controls';
 import { Notice } from '../notice';
 import { divergingDomain } from '../plane/colour-scale';
@@ -70,21 +70,9 @@ export function SeparationView({ settings, onChange, onSaveRegion = null, compac
       {!compact && onChange && (
         <>
           <ViewControls view={settings.view} onView={(view) => change({ view })} serverFilterError={serverFilterError} withOverlays={false} collision={data?.signal.sample.collision} />
-          <label className="flex items-center gap-2 text-sm text-ink-soft">
-            Mask bins with fewer entries than
-            <input
-              aria-label="Minimum entries"
-              className={`${inlineSelectClass} w-20`}
-              type="number"
-              min={0}
-              defaultValue={settings.minEntries}
-              onBlur={(event) => {
-                const value = Number(event.target.value);
-                if (Number.isInteger(value) && value >= 0 && value !== settings.minEntries) change({ minEntries: value });
-              }}
-            />
-            in either training half
-          </label>
+          <div className="text-sm">
+            <MinEntriesField value={settings.minEntries} onChange={(minEntries) => change({ minEntries })} suffix="in either training half" />
+          </div>
         </>
       )}
       {error && !serverFilterError && <Notice tone="error">{error.message}</Notice>}

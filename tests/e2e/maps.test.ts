@@ -7,6 +7,7 @@ import { demoSampleSpec } from '@/lib/demo/scenario';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { type Client, signIn, startTestServer, type TestServer } from '../support/server';
+import { waitForDemoSamples } from './demo-samples';
 import { ARTIFACTS_DIR, openBrowser, screenshot, signInThroughPage, type BrowserSession } from './browser';
 
 let server: TestServer;
@@ -18,21 +19,10 @@ let quarkSampleId = 0;
 /** The figure's plot (the last svg of the figure: the first is the colour legend). */
 const plotSvg = (page: Page) => page.locator('figure svg').last();
 
-async function waitForSamples(client: Client) {
-  const deadline = Date.now() + 180_000;
-  while (Date.now() < deadline) {
-    const samples = (await client.get('/api/samples')).body.samples as Array<{ state: string }>;
-    if (samples.length === 2 && samples.every((s) => s.state === 'done')) return;
-    if (samples.some((s) => s.state === 'failed')) throw new Error(`a demo sample failed: ${JSON.stringify(samples)}`);
-    await new Promise((resolve) => setTimeout(resolve, 250));
-  }
-  throw new Error('the demo samples were not processed in time');
-}
-
 beforeAll(async () => {
   server = await startTestServer({ demoJets: 20_000 });
   const owner = server.credentials.members.find((member) => member.studyRole === 'owner')!;
-  await waitForSamples(await signIn(server.baseUrl, owner.email, owner.password));
+  await waitForDemoSamples(await signIn(server.baseUrl, owner.email, owner.password));
   browser = await openBrowser();
   await signInThroughPage(browser.page, server.baseUrl, owner.email, owner.password);
 });

@@ -7,6 +7,7 @@ import { particlesFileLines } from '@/lib/ingest/generated-sample-file';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import { uploadDone } from '../api/sample-fixtures';
 import { type Client, signIn, startTestServer, type TestServer } from '../support/server';
+import { waitForDemoSamples } from './demo-samples';
 import { openBrowser, screenshot, signInThroughPage, type BrowserSession } from './browser';
 
 let server: TestServer;
@@ -16,17 +17,6 @@ let studyId = 0;
 let entryPath = '';
 let thirdId = 0;
 const THIRD = 'third check sample (gluon-like)';
-
-async function waitForDemoSamples(client: Client) {
-  const deadline = Date.now() + 180_000;
-  while (Date.now() < deadline) {
-    const samples = (await client.get('/api/samples')).body.samples as Array<{ state: string }>;
-    if (samples.length === 2 && samples.every((s) => s.state === 'done')) return;
-    if (samples.some((s) => s.state === 'failed')) throw new Error(`a demo sample failed: ${JSON.stringify(samples)}`);
-    await new Promise((resolve) => setTimeout(resolve, 250));
-  }
-  throw new Error('the demo samples were not processed in time');
-}
 
 beforeAll(async () => {
   server = await startTestServer({ demoJets: 20_000 });
