@@ -43,7 +43,7 @@ export function RegionList({ proposals, measure, axes, xLabel, yLabel, saved, on
             </div>
             <p className="text-ink-soft">
               signal {formatWithError(p.signalPerJet, p.signalError)} and background {formatWithError(p.backgroundPerJet, p.backgroundError)} emissions per jet (densities {formatValue(p.signalDensity)} and{' '}
-              {formatValue(p.backgroundDensity)} per unit area); S/B = {formatWithError(p.ratio, p.ratioError)}; significance of S − B: {formatValue(p.significance)} σ.
+              {formatValue(p.backgroundDensity)} per unit area); S/B = {formatWithError(p.ratio, p.ratioError)}; significance of S − B: {formatValue(p.significance)} σ ({p.significance < 0 ? 'background-like' : 'signal-like'}).
             </p>
           </li>
         ))}

@@ -7,7 +7,8 @@ import { formatValue } from '../plane/value-format';
 import { PlotHolder } from './plot-holder';
 
 /** Score distributions as step lines, each normalised to its sample's weight; what lies beyond the range is stated. */
-export function ScorePlot({ distribution, names, colours, thresholds = [] }: { distribution: ScoreDistribution; names: string[]; colours: string[]; thresholds?: number[] }) {
+/** `names`, `colours` and `thresholds` should keep their identity between renders: a new array redraws the chart. */
+export function ScorePlot({ distribution, names, colours, thresholds }: { distribution: ScoreDistribution; names: string[]; colours: string[]; thresholds: number[] }) {
   const draw = useCallback(
     (width: number) => {
       const { edges, fractions } = distribution;

@@ -22,6 +22,8 @@ import { type RocSeries, RocPlot, SERIES_COLOURS } from './roc-plot';
 import { ScorePlot } from './score-plot';
 import { separationApiUrl } from './separation-urls';
 
+const PAIR_COLOURS = [SERIES_COLOURS[0], SERIES_COLOURS[1]];
+
 interface SeparationViewProps {
   settings: SeparationSettings;
   onChange?: (next: SeparationSettings) => void;
@@ -60,11 +62,12 @@ export function SeparationView({ settings, onChange, onSaveRegion = null, compac
       colour: { scheme: 'tide' as const, type: 'linear' as const, pivot: 0, domain: divergingDomain(data.logRatio.value, 0, 'linear'), label: 'ln(ρ_S/ρ_B)' },
       regions: data.regions.proposals.map((p) => ({ ...p.rectangle, label: `#${p.rank}` })),
       series,
+      thresholds: data.score.roc.workingPoints.map((w) => w.threshold),
+      names: [data.signal.sample.name, data.background.sample.name],
     };
   }, [data]);
 
-  const names = data ? [data.signal.sample.name, data.background.sample.name] : [];
-  const title = data ? `ln(ρ_S/ρ_B): ${names[0]} (signal) over ${names[1]} (background)` : '';
+  const title = data ? `ln(ρ_S/ρ_B): ${data.signal.sample.name} (signal) over ${data.background.sample.name} (background)` : '';
   return (
     <div className="space-y-4">
       {!compact && onChange && (
@@ -108,7 +111,7 @@ export function SeparationView({ settings, onChange, onSaveRegion = null, compac
                 <FiguresTable series={drawn.series} />
               </Section>
               <Section title="Score distributions (evaluation jets)">
-                <ScorePlot distribution={data.score.distribution} names={names} colours={[SERIES_COLOURS[0], SERIES_COLOURS[1]]} thresholds={data.score.roc.workingPoints.map((w) => w.threshold)} />
+                <ScorePlot distribution={data.score.distribution} names={drawn.names} colours={PAIR_COLOURS} thresholds={drawn.thresholds} />
                 <p className="text-xs text-ink-faint">
                   Score of a jet: Σ ln(ρ_S/ρ_B) over its {data.view.tree === 'primary' ? 'primary ' : ''}splittings in unmasked bins − ∫(ρ_S − ρ_B) = {formatValue(-data.logRatio.excessPerJet)} (Poisson emission
                   model). Dashed: the thresholds of 30, 50 and 70 % signal efficiency.

@@ -1,6 +1,6 @@
 'use client';
 
-import { useState } from 'react';
+import { useMemo, useState } from 'react';
 import useSWR from 'swr';
 import { type ApiError, messageOf, sendJson } from '@/lib/api/client';
 import type { TaggerApplication } from '@/lib/separations/tagger-apply';
@@ -20,10 +20,14 @@ interface TaggerSummary {
   workingPoints: Array<{ signalEfficiency: number; threshold: number; backgroundEfficiency: number }>;
 }
 
+const APPLIED_COLOURS = [SERIES_COLOURS[1]];
+
 /** One saved tagger: export, and its application to any sample the reader can see. */
 function TaggerItem({ studyId, tagger, samples }: { studyId: string; tagger: TaggerSummary; samples: SampleSummary[] }) {
   const [sampleId, setSampleId] = useState('');
   const { data, error, isLoading } = useSWR<TaggerApplication, ApiError>(sampleId ? `/api/studies/${studyId}/taggers/${tagger.id}/scores?sample=${sampleId}` : null);
+  // Stable between renders, so that the chart is drawn once per answer.
+  const shown = useMemo(() => data && { names: [data.sample.name], thresholds: data.workingPoints.map((w) => w.threshold) }, [data]);
   return (
     <li className="space-y-2 rounded-md border border-ink/10 px-3 py-2 text-sm" aria-label={`Tagger ${tagger.name}`}>
       <div className="flex flex-wrap items-baseline justify-between gap-2">
@@ -72,7 +76,7 @@ function TaggerItem({ studyId, tagger, samples }: { studyId: string; tagger: Tag
               ))}
             </tbody>
           </table>
-          <ScorePlot distribution={data.distribution} names={[data.sample.name]} colours={[SERIES_COLOURS[1]]} thresholds={data.workingPoints.map((w) => w.threshold)} />
+          <ScorePlot distribution={data.distribution} names={shown!.names} colours={APPLIED_COLOURS} thresholds={shown!.thresholds} />
           <p className="text-xs text-ink-faint">
             {data.jets.selected} jets of {data.sample.name} scored with the tagger’s jet selection; dashed lines: the working points’ thresholds.
           </p>

@@ -104,6 +104,10 @@ describe('separations and taggers in a browser', () => {
     expect(efficiency50).toBeLessThan(0.5);
     await applied.scrollIntoViewIfNeeded();
     await screenshot(page, 'separations-tagger-1280', 1280);
+    // The figures keep their size through the changes of the page (each chart is at least 400 px wide).
+    const widths = await page.evaluate(() => Array.from(document.querySelectorAll('[role=figure] > div > figure > svg')).map((svg) => svg.getBoundingClientRect().width));
+    expect(widths.length).toBe(3);
+    for (const width of widths) expect(width).toBeGreaterThan(400);
   });
 
   it('draws the ROC on a linear rejection axis on request, kept in the address', async () => {
