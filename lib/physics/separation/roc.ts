@@ -51,16 +51,34 @@ export function hanleyMcNeilError(auc: number, nSignal: number, nBackground: num
   return Math.sqrt(Math.max(0, variance));
 }
 
-/** Every distinct threshold's efficiencies, highest threshold first, and the AUC, from one merged sweep. */
-function sweep(signal: RankedScores, background: RankedScores) {
+interface SweepPoint {
+  threshold: number;
+  s: number;
+  b: number;
+}
+
+/** The point before and the first point at or above an ε_S level, as the sweep met them. */
+interface Crossing {
+  before: SweepPoint;
+  after: SweepPoint;
+}
+
+/**
+ * One merged sweep of the two ranked samples from the highest score down, one point per distinct threshold, kept
+ * only where needed (no arrays of every point): the AUC, the curve thinned to steps of CURVE_STEP in ε_S, and the
+ * crossing of each of `levels` (ascending ε_S values).
+ */
+function sweep(signal: RankedScores, background: RankedScores, levels: number[]) {
   const s = signal.score;
   const b = background.score;
-  const size = s.length + b.length;
-  const thresholds = new Float64Array(size);
-  const effS = new Float64Array(size);
-  const effB = new Float64Array(size);
-  let points = 0;
-  // Walk both ascending lists from the top down: above(t) sums are what passes t.
+  const curve: RocPoint[] = [{ threshold: Infinity, signalEfficiency: 0, backgroundEfficiency: 0 }];
+  const crossings: Array<Crossing | null> = levels.map(() => null);
+  let level = 0;
+  let next = CURVE_STEP;
+  // The previous point as scalars (no object per threshold in this loop).
+  let previousT = Number.NaN;
+  let previousS = 0;
+  let previousB = 0;
   let i = s.length - 1;
   let k = b.length - 1;
   let passS = 0;
@@ -75,41 +93,33 @@ function sweep(signal: RankedScores, background: RankedScores) {
     aucSum += groupS * (passB + 0.5 * groupB);
     passS += groupS;
     passB += groupB;
-    thresholds[points] = v;
-    effS[points] = passS / signal.total;
-    effB[points] = passB / background.total;
-    points++;
+    const effS = passS / signal.total;
+    const effB = passB / background.total;
+    while (level < levels.length && effS >= levels[level]) {
+      const before = Number.isNaN(previousT) ? { threshold: v, s: 0, b: 0 } : { threshold: previousT, s: previousS, b: previousB };
+      crossings[level++] = { before, after: { threshold: v, s: effS, b: effB } };
+    }
+    if (effS >= next || (i < 0 && k < 0)) {
+      curve.push({ threshold: v, signalEfficiency: effS, backgroundEfficiency: effB });
+      while (next <= effS) next += CURVE_STEP;
+    }
+    previousT = v;
+    previousS = effS;
+    previousB = effB;
   }
-  const auc = 1 - aucSum / (signal.total * background.total);
-  return { thresholds: thresholds.subarray(0, points), effS: effS.subarray(0, points), effB: effB.subarray(0, points), auc };
+  // Rounding can leave the last ε_S a hair below 1: levels never reached cross at the last point.
+  const last: SweepPoint = { threshold: previousT, s: previousS, b: previousB };
+  const reached = crossings.map((c) => c ?? { before: last, after: last });
+  return { auc: 1 - aucSum / (signal.total * background.total), curve, crossings: reached };
 }
 
-/** The first index where the nondecreasing `values` reach `target` (its length − 1 when they never do). */
-function firstReaching(values: Float64Array, target: number): number {
-  let lo = 0;
-  let hi = values.length - 1;
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1;
-    if (values[mid] >= target) hi = mid;
-    else lo = mid + 1;
-  }
-  return lo;
-}
-
-/** Where ε_S first reaches `target` (interpolated), with the curve's slope dε_B/dε_S there. */
-function workingPoint(target: number, curve: ReturnType<typeof sweep>, signal: RankedScores, background: RankedScores): WorkingPoint {
-  const { thresholds, effS, effB } = curve;
-  const at = firstReaching(effS, target);
-  const e0 = at > 0 ? effS[at - 1] : 0;
-  const b0 = at > 0 ? effB[at - 1] : 0;
-  const t0 = at > 0 ? thresholds[at - 1] : thresholds[at];
-  const f = effS[at] > e0 ? (target - e0) / (effS[at] - e0) : 1;
-  const eB = b0 + f * (effB[at] - b0);
-  const threshold = t0 + f * (thresholds[at] - t0);
-  // Local slope over ±0.02 in ε_S, for carrying the signal efficiency's error into ε_B.
-  const lo = firstReaching(effS, Math.max(0, target - 0.02));
-  const hi = firstReaching(effS, Math.min(1, target + 0.02));
-  const slope = effS[hi] > effS[lo] ? (effB[hi] - effB[lo]) / (effS[hi] - effS[lo]) : 0;
+/** The working point at `target` from its crossing (interpolated) and the crossings ±0.02 in ε_S (the local slope). */
+function workingPoint(target: number, at: Crossing, lo: Crossing, hi: Crossing, signal: RankedScores, background: RankedScores): WorkingPoint {
+  const { before, after } = at;
+  const f = after.s > before.s ? (target - before.s) / (after.s - before.s) : 1;
+  const eB = before.b + f * (after.b - before.b);
+  const threshold = before.threshold + f * (after.threshold - before.threshold);
+  const slope = hi.after.s > lo.after.s ? (hi.after.b - lo.after.b) / (hi.after.s - lo.after.s) : 0;
   const nB = effectiveCount(background);
   const nS = effectiveCount(signal);
   const varB = nB > 0 ? (eB * (1 - eB)) / nB : Number.NaN;
@@ -132,21 +142,16 @@ export function rocOf(signal: RankedScores, background: RankedScores, targets: r
   if (!(signal.total > 0) || !(background.total > 0)) {
     throw new RangeError(`ROC: both samples need jets with positive total weight (signal ${signal.total}, background ${background.total})`);
   }
-  const full = sweep(signal, background);
-  const curve: RocPoint[] = [{ threshold: Infinity, signalEfficiency: 0, backgroundEfficiency: 0 }];
-  let next = CURVE_STEP;
-  const last = full.thresholds.length - 1;
-  for (let p = 0; p <= last; p++) {
-    if (full.effS[p] >= next || p === last) {
-      curve.push({ threshold: full.thresholds[p], signalEfficiency: full.effS[p], backgroundEfficiency: full.effB[p] });
-      while (next <= full.effS[p]) next += CURVE_STEP;
-    }
-  }
+  // Each target with its neighbours ±0.02, sorted for the sweep.
+  const wanted = targets.map((t) => [t, Math.max(0, t - 0.02), Math.min(1, t + 0.02)]);
+  const levels = [...new Set(wanted.flat())].sort((x, y) => x - y);
+  const { auc, curve, crossings } = sweep(signal, background, levels);
+  const crossing = (level: number) => crossings[levels.indexOf(level)];
   return {
-    auc: full.auc,
-    aucError: hanleyMcNeilError(full.auc, effectiveCount(signal), effectiveCount(background)),
+    auc,
+    aucError: hanleyMcNeilError(auc, effectiveCount(signal), effectiveCount(background)),
     curve,
-    workingPoints: targets.map((t) => workingPoint(t, full, signal, background)),
+    workingPoints: wanted.map(([t, lo, hi]) => workingPoint(t, crossing(t), crossing(lo), crossing(hi), signal, background)),
     signalJets: signal.score.length,
     backgroundJets: background.score.length,
   };
