@@ -50,12 +50,18 @@ async function separationSide(sample: Sample, view: PlaneView, bins: PlaneBins, 
     trainJets: split.trainCount,
     evaluateJets: split.evaluateCount,
   };
-  return { data, split, columns, grid: densityOf(plane), shown };
+  return { sample, data, split, columns, grid: densityOf(plane), shown };
 }
 
 type Side = Awaited<ReturnType<typeof separationSide>>;
 
-async function variableTaggers(signal: Side, background: Side) {
+/** The single-variable taggers depend on the selection (and so the split) only: kept by samples and selection. */
+function variableTaggers(signal: Side, background: Side, selection: PlaneView['selection']) {
+  const key = `separation-variables:${sampleKey(signal.sample)},${sampleKey(background.sample)}:${JSON.stringify(selection)}`;
+  return remembered(key, () => computeVariableTaggers(signal, background));
+}
+
+async function computeVariableTaggers(signal: Side, background: Side) {
   const out = [];
   for (const { name, label } of VARIABLE_TAGGERS) {
     const side = async (s: Side) => ({ values: await s.data.jet(name), weights: s.columns.jetWeight, train: s.split.train, evaluate: s.split.evaluate });
@@ -92,7 +98,7 @@ export function computeSeparation(signal: Sample, background: Sample, view: Plan
           excessPerJet: table.excessPerJet,
         },
         score: { roc: rocView(rocOf(rankedS, rankedB)), distribution: scoreDistribution([rankedS, rankedB]) },
-        variables: await variableTaggers(s, b),
+        variables: await variableTaggers(s, b, view.selection),
         regions: { measure: REGION_MEASURE, proposals: findRegions(s.grid, b.grid, table.masked, MAX_PROPOSALS) },
       };
     }),
