@@ -16,7 +16,7 @@ export const TAGGER_FORMAT = 'splitfield-tagger';
 export const TAGGER_VERSION = 1;
 
 export const SCORE_RULE =
-  'score = offset + the sum, over the jet’s splittings of the given tree whose (x, y) falls in a bin with a number, of lnRatio[iy][ix], where ix = floor((x - bins.x.min) / bins.x.step) and iy = floor((y - bins.y.min) / bins.y.step); splittings outside the bins or in a null bin add nothing. Larger scores are more signal-like; a jet passes a working point when its score is at least the threshold.';
+  'score = offset + the sum, over the jet’s splittings of the given tree whose (x, y) falls in a bin with a number, of lnRatio[iy][ix], where ix = floor((x - bins.x.min) / bins.x.step) and iy = floor((y - bins.y.min) / bins.y.step) (a value exactly at max belongs to the last bin); splittings outside the bins or in a null bin add nothing. Larger scores are more signal-like; a jet passes a working point when its score is at least the threshold.';
 
 const finite = (what: string) => z.number({ error: `${what} must be a number` }).refine(Number.isFinite, `${what} must be finite`);
 const axisBinsSchema = (name: string) =>
