@@ -16,6 +16,7 @@ import { defineSamplePlane } from './sample-plane';
 import { defineSignInSession } from './sign-in-session';
 import { defineSiteSetting } from './site-setting';
 import { defineStudy } from './study';
+import { defineTagger } from './tagger';
 import { defineUser } from './user';
 
 /**
@@ -41,6 +42,7 @@ export function defineModels(sequelize: Sequelize) {
   const Region = defineRegion(sequelize);
   const RegionComment = defineRegionComment(sequelize);
   const ActivityRead = defineActivityRead(sequelize);
+  const Tagger = defineTagger(sequelize);
 
   Study.hasMany(Membership, { foreignKey: 'studyId', as: 'memberships' });
   Membership.belongsTo(Study, { foreignKey: 'studyId', as: 'study' });
@@ -69,7 +71,10 @@ export function defineModels(sequelize: Sequelize) {
   RegionComment.belongsTo(User, { foreignKey: 'authorId', as: 'author' });
   RegionComment.belongsTo(Region, { foreignKey: 'regionId', as: 'region' });
 
-  return { User, SiteSetting, Study, Membership, Entry, Sample, SamplePlane, ApiToken, SignInSession, Notification, OutgoingMail, ReceivedMail, Invitation, PasswordReset, RegionCategory, Region, RegionComment, ActivityRead };
+  Study.hasMany(Tagger, { foreignKey: 'studyId', as: 'taggers' });
+  Tagger.belongsTo(User, { foreignKey: 'createdById', as: 'createdBy' });
+
+  return { User, SiteSetting, Study, Membership, Entry, Sample, SamplePlane, ApiToken, SignInSession, Notification, Tagger, OutgoingMail, ReceivedMail, Invitation, PasswordReset, RegionCategory, Region, RegionComment, ActivityRead };
 }
 
 export type Models = ReturnType<typeof defineModels>;

@@ -21,6 +21,7 @@ import { BoxResult } from './box-result';
 import { ChoiceButtons } from './choice-buttons';
 import { ExportMenu } from './export-menu';
 import { filterRefusal } from './map-view';
+import { MinEntriesField } from './min-entries-field';
 import { OutsideNote } from './outside-note';
 import { ProjectionPanel } from './projection-panel';
 import { ViewControls } from './view-controls';
@@ -100,20 +101,7 @@ export function ContrastView({ settings, onChange, compact = false, regionsOf }:
           />
           <div className="flex flex-wrap items-center gap-3 text-sm">
             <ChoiceButtons label="Comparison" value={settings.mode} options={[['ratio', 'Ratio'], ['difference', 'Difference'], ['pull', 'Pull']]} onChange={(mode) => change({ mode })} />
-            <label className="flex items-center gap-2 text-ink-soft">
-              Mask bins with fewer entries than
-              <input
-                aria-label="Minimum entries"
-                className={`${inlineSelectClass} w-20`}
-                type="number"
-                min={0}
-                defaultValue={settings.minEntries}
-                onBlur={(event) => {
-                  const value = Number(event.target.value);
-                  if (Number.isInteger(value) && value >= 0 && value !== settings.minEntries) change({ minEntries: value });
-                }}
-              />
-            </label>
+            <MinEntriesField value={settings.minEntries} onChange={(minEntries) => change({ minEntries })} />
           </div>
         </>
       )}

@@ -98,9 +98,10 @@ function AxisSelect({
 
 interface ViewControlsProps {
   view: PlaneView;
-  display: DisplaySettings;
+  /** How the figure is drawn; without it (a Separation's ln-ratio map) there is no colour or overlay control. */
+  display?: DisplaySettings;
   onView: (view: PlaneView) => void;
-  onDisplay: (display: DisplaySettings) => void;
+  onDisplay?: (display: DisplaySettings) => void;
   /** A refusal of the filter from the server, shown at the filter field. */
   serverFilterError?: string | null;
   /** The samples' collision type: e+e− planes name θ and kₜ = E sin θ. */
@@ -145,8 +146,8 @@ export function ViewControls({ view, display, onView, onDisplay, serverFilterErr
   }
 
   const filterError = filterProblem ?? serverFilterError ?? null;
-  const overlays = display.overlays;
-  const setOverlay = (change: Partial<DisplaySettings['overlays']>) => onDisplay({ ...display, overlays: { ...overlays, ...change } });
+  const overlays = display?.overlays;
+  const setOverlay = (change: Partial<DisplaySettings['overlays']>) => display && onDisplay?.({ ...display, overlays: { ...overlays!, ...change } });
 
   return (
     <div className="space-y-3 text-sm">
@@ -163,7 +164,9 @@ export function ViewControls({ view, display, onView, onDisplay, serverFilterErr
         </label>
         <AxisSelect label="Horizontal" variables={HORIZONTAL_VARIABLES} axis={view.x} collision={collision} onChange={(x) => onView({ ...view, x: x as PlaneView['x'], bins: { ...view.bins, x: NO_RANGE } })} />
         <AxisSelect label="Vertical" variables={VERTICAL_VARIABLES} axis={view.y} collision={collision} onChange={(y) => onView({ ...view, y: y as PlaneView['y'], bins: { ...view.bins, y: NO_RANGE } })} />
-        <ChoiceButtons label="Colour scale" value={display.colour} options={[['linear', 'Linear colour'], ['log', 'Log colour']]} onChange={(colour) => onDisplay({ ...display, colour })} />
+        {display && onDisplay && (
+          <ChoiceButtons label="Colour scale" value={display.colour} options={[['linear', 'Linear colour'], ['log', 'Log colour']]} onChange={(colour) => onDisplay({ ...display, colour })} />
+        )}
       </div>
 
       <form onSubmit={apply} aria-label="Ranges, bins and jets" className="space-y-2 rounded-md border border-ink/10 bg-paper px-3 py-2">
@@ -216,7 +219,7 @@ export function ViewControls({ view, display, onView, onDisplay, serverFilterErr
         </div>
       </form>
 
-      {withOverlays && (
+      {withOverlays && overlays && (
         <fieldset className="flex flex-wrap items-center gap-x-4 gap-y-2">
           <legend className="sr-only">Overlays</legend>
           <label className="flex items-center gap-1.5 text-ink-soft">

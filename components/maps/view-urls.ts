@@ -27,7 +27,7 @@ export function projectionApiUrl(sampleIds: number[], view: PlaneView, projectio
 }
 
 /** The page of an entry showing these settings (they override the saved ones until saved). */
-export function entryPageUrl(studyId: number | string, entryId: number, settings?: MapSettings | ContrastSettings): string {
+export function entryPageUrl(studyId: number | string, entryId: number, settings?: object): string {
   const base = `/studies/${studyId}/entries/${entryId}`;
   return settings ? `${base}?${new URLSearchParams({ settings: JSON.stringify(settings) })}` : base;
 }

@@ -46,6 +46,7 @@ const BADGES = {
   note: ['Note', 'bg-accent-soft/70 text-accent-strong'],
   map: ['Map', 'bg-warn-soft text-warn'],
   contrast: ['Contrast', 'bg-warn-soft text-warn'],
+  separation: ['Separation', 'bg-warn-soft text-warn'],
 } as const;
 
 /** The top line of an entry in the study's list: its kind, its title, and who changed it last and when. */

@@ -18,9 +18,9 @@ interface EntryListProps {
   onChanged: () => Promise<unknown>;
 }
 
-type Adding = 'note' | 'map' | 'contrast' | null;
+type Adding = 'note' | 'map' | 'contrast' | 'separation' | null;
 
-/** The study's entries in order (Notes, Maps, Contrasts); editors can add, move and delete them, and edit Notes. */
+/** The study's entries in order (Notes, Maps, Contrasts, Separations); editors can add, move and delete them, and edit Notes. */
 export function EntryList({ studyId, entries, canEdit, onChanged }: EntryListProps) {
   const [adding, setAdding] = useState<Adding>(null);
   const ordered = [...entries].sort((a, b) => a.position - b.position);
@@ -61,6 +61,7 @@ export function EntryList({ studyId, entries, canEdit, onChanged }: EntryListPro
           </Button>
           <Button onClick={() => setAdding('map')}>Add map</Button>
           <Button onClick={() => setAdding('contrast')}>Add contrast</Button>
+          <Button onClick={() => setAdding('separation')}>Add separation</Button>
         </div>
       )
     );
@@ -80,7 +81,7 @@ export function EntryList({ studyId, entries, canEdit, onChanged }: EntryListPro
       <ol className="space-y-4" aria-label="Entries">
         {ordered.map((entry, index) => (
           <li key={entry.id}>
-            {entry.kind === 'map' || entry.kind === 'contrast' ? (
+            {entry.kind !== 'note' ? (
               <ViewCard studyId={studyId} entry={entry} actions={canEdit ? actionsFor(entry, index) : undefined} />
             ) : (
               <NoteCard entry={entry} actions={canEdit ? actionsFor(entry, index) : undefined} />

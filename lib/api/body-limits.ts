@@ -11,6 +11,8 @@ export const BODY_LIMITS = {
   standard: 64 * KiB,
   /** A note: up to 200 000 characters of Markdown, 4 bytes each at worst, plus JSON escaping. */
   note: 1024 * KiB,
+  /** An imported tagger file: its ln-ratio table holds up to 400 × 400 numbers. */
+  tagger: 4096 * KiB,
 } as const;
 
 export type BodyLimit = (typeof BODY_LIMITS)[keyof typeof BODY_LIMITS];

@@ -24,7 +24,7 @@ export function memberView(membership: Membership & { user: User }) {
   return { userId: user.id, name: user.name, email: user.email, role };
 }
 
-function authorView(user: User | null | undefined) {
+export function authorView(user: User | null | undefined) {
   return user ? { id: user.id, name: user.name } : null;
 }
 

@@ -5,7 +5,7 @@ import { DEMO_SAMPLE_JETS, seedDemoSamples } from '@/lib/demo/samples';
 import type { SiteRole, StudyRole } from '@/models/vocabulary';
 import { hashPassword } from '../auth/password';
 import type { Database } from '../db/connection';
-import { demoViewEntries } from './study-views';
+import { demoSeparationEntry, demoViewEntries } from './study-views';
 import { DEMO_CLOSING_NOTE, DEMO_NOTES, DEMO_REGION_CATEGORIES, DEMO_STUDY } from './study-text';
 
 export interface DemoAccount {
@@ -59,11 +59,12 @@ export async function seedOnce(database: Database, storageDir: string, demoJets 
     const author = users[accounts.findIndex((account) => account.studyRole === 'owner')];
     const demoSamples = { storageDir, studyId: study.id, uploaderId: author.id, jets: demoJets };
     const { ids, removeFiles: removeSampleFiles } = await seedDemoSamples(models, transaction, demoSamples);
-    // Notes first, then a Map of each sample and their Contrast, then what the contrast shows.
+    // Notes first, then a Map of each sample and their Contrast, then what the contrast shows, then a Separation.
     const entries = [
       ...DEMO_NOTES.map((note) => ({ kind: 'note' as const, ...note, settings: {} })),
       ...demoViewEntries(ids),
       { kind: 'note' as const, ...DEMO_CLOSING_NOTE, settings: {} },
+      demoSeparationEntry(ids),
     ];
     for (const [position, entry] of entries.entries()) {
       await models.Entry.create({ studyId: study.id, position, ...entry, createdById: author.id, updatedById: author.id }, { transaction });

@@ -20,7 +20,7 @@ import { planeViewKey, type PlaneView } from './view-settings';
 const results = () => processWide('mapResults', () => new Lru<Promise<unknown>>(300));
 
 /** The cached result under `key`, computing it once (a failed computation is not kept). */
-function remembered<T>(key: string, compute: () => Promise<T>): Promise<T> {
+export function remembered<T>(key: string, compute: () => Promise<T>): Promise<T> {
   const cache = results();
   const hit = cache.get(key) as Promise<T> | undefined;
   if (hit) return hit;
@@ -32,7 +32,7 @@ function remembered<T>(key: string, compute: () => Promise<T>): Promise<T> {
 
 export const finiteOrNull = (v: number): JsonNumber => (Number.isFinite(v) ? v : null);
 
-function planeData(grid: DensityGrid): PlaneData {
+export function planeData(grid: DensityGrid): PlaneData {
   return {
     xEdges: Array.from(grid.xEdges),
     yEdges: Array.from(grid.yEdges),
@@ -43,7 +43,7 @@ function planeData(grid: DensityGrid): PlaneData {
 }
 
 /** Turns a refused filter into a 400 that names the expression field. */
-async function withFilterField<T>(work: () => Promise<T>): Promise<T> {
+export async function withFilterField<T>(work: () => Promise<T>): Promise<T> {
   try {
     return await work();
   } catch (error) {
@@ -83,7 +83,7 @@ async function planeOn(sample: Sample, view: PlaneView, bins: PlaneBins) {
 }
 
 /** Bins for several samples at once: the user's, or fitted to all of them together. */
-async function sharedBins(samples: Sample[], view: PlaneView): Promise<PlaneBins> {
+export async function sharedBins(samples: Sample[], view: PlaneView): Promise<PlaneBins> {
   const { x, y } = view.bins;
   // Ranges given on both axes: nothing to fit, so no pass over the splittings to find where they are.
   if (x.min !== null && x.max !== null && y.min !== null && y.max !== null) return resolveBins(view, { x: null, y: null });
@@ -95,7 +95,7 @@ async function sharedBins(samples: Sample[], view: PlaneView): Promise<PlaneBins
   return resolveBins(view, extents);
 }
 
-function checkedSamples(samples: Sample[], view: PlaneView): void {
+export function checkedSamples(samples: Sample[], view: PlaneView): void {
   for (const sample of samples) {
     requireDone(sample);
     requireTree(sample, view);

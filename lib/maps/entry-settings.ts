@@ -55,8 +55,3 @@ export type DisplaySettings = z.output<typeof displaySchema>;
 export type MapSettings = z.output<typeof mapSettingsSchema>;
 export type ContrastSettings = z.output<typeof contrastSettingsSchema>;
 export type Box = z.output<typeof boxSchema>;
-
-/** The sample ids an entry's settings name. */
-export function entrySampleIds(kind: 'map' | 'contrast', settings: MapSettings | ContrastSettings): number[] {
-  return kind === 'map' ? [(settings as MapSettings).sampleId] : (settings as ContrastSettings).sampleIds;
-}

@@ -63,7 +63,8 @@ export function viewJets(sample: Sample, view: PlaneView): Promise<SelectedJets>
   return jets;
 }
 
-async function membersAndCoordinates(sample: Sample, view: PlaneView) {
+/** The view's splitting coordinates, their jets, tree membership and the jets' weights (from the stored columns). */
+export async function membersAndCoordinates(sample: Sample, view: Pick<PlaneView, 'tree' | 'x' | 'y'>) {
   const data = sampleColumns(sample);
   const [xs, ys, jetRow, member, jetWeight] = await Promise.all([
     data.coordinate(view.x as AxisChoice),

@@ -6,7 +6,7 @@ import { planeViewSchema } from './view-settings';
 /** The most samples one contrast or projection compares. */
 export const MAX_VIEW_SAMPLES = 6;
 
-const viewParam = z
+export const viewParam = z
   .string()
   .max(4000, 'view must be at most 4000 characters of JSON')
   .transform((text, context) => {
@@ -24,7 +24,7 @@ export const EXPORT_FORMATS = ['csv', 'json', 'yaml', 'provenance'] as const;
 export type ExportFormat = (typeof EXPORT_FORMATS)[number];
 const formatParam = z.enum(EXPORT_FORMATS, { error: `format must be one of ${EXPORT_FORMATS.join(', ')}` }).optional();
 
-const sampleIdsParam = (least: number) =>
+export const sampleIdsParam = (least: number) =>
   z
     .string({ error: 'samples is required: sample ids separated by commas' })
     .regex(/^[1-9]\d{0,14}(,[1-9]\d{0,14})*$/, 'samples must be sample ids separated by commas')

@@ -52,6 +52,11 @@ export class SampleColumns {
     return ColumnReader.open(sampleDir(sampleStorage(), this.sampleId));
   }
 
+  /** Every record's id, in record order (read each time: only exports of per-jet values need them). */
+  async recordIds(): Promise<string[]> {
+    return (await this.reader()).recordIds();
+  }
+
   jet<K extends JetColumnName>(name: K): Promise<Float64Array | Int32Array> {
     return cached(this.key, `jet.${name}`, async () => (await this.reader()).jetColumn(name));
   }

@@ -23,6 +23,9 @@ interface World {
   accounts: Record<Exclude<Actor, 'anonymous'>, { email: string; password: string }>;
   /** Another processed sample of the study (for contrasts). */
   secondSampleId: number;
+  /** A tagger of the study saved from a Separation of the two samples, and its document (for imports). */
+  taggerId: number;
+  taggerDocument: Record<string, unknown>;
 }
 
 interface Call {
@@ -98,6 +101,18 @@ const inSample = (world: World, rest = '') => `/api/samples/${world.sampleId}${r
 
 async function tokenNames(client: Client): Promise<string[]> {
   return (await client.get('/api/tokens')).body.tokens.map((token: { name: string }) => token.name);
+}
+
+async function taggerNames(world: World): Promise<string[]> {
+  const list = await world.people.owner.client.get(inStudy(world, '/taggers'));
+  return list.body.taggers.map((tagger: { name: string }) => tagger.name);
+}
+
+/** A fresh tagger of the matrix study, imported by the owner. */
+async function freshTagger(world: World, name: string): Promise<Call> {
+  const made = await world.people.owner.client.post(inStudy(world, '/taggers'), { document: { ...world.taggerDocument, name } });
+  expect(made.status, made.text).toBe(201);
+  return { path: inStudy(world, `/taggers/${made.body.tagger.id}`), unchanged: async () => expect(await taggerNames(world)).toContain(name) };
 }
 
 async function entryBodies(world: World): Promise<string[]> {
@@ -428,6 +443,47 @@ const ROWS: Row[] = [
   },
   {
     method: 'GET',
+    route: '/api/separations',
+    call: async (world) => ({ path: `/api/separations?signal=${world.sampleId}&background=${world.secondSampleId}` }),
+    expected: statuses(401, 404, 200, 200, 200, 200, 200),
+  },
+  {
+    method: 'GET',
+    route: '/api/studies/[studyId]/taggers',
+    call: async (world) => ({ path: inStudy(world, '/taggers') }),
+    expected: statuses(401, 404, 200, 200, 200, 200, 200),
+  },
+  {
+    method: 'POST',
+    route: '/api/studies/[studyId]/taggers',
+    call: async (world, actor) => ({
+      path: inStudy(world, '/taggers'),
+      body: { document: { ...world.taggerDocument, name: `Imported by ${actor}` } },
+      unchanged: async () => expect(await taggerNames(world)).not.toContain(`Imported by ${actor}`),
+    }),
+    expected: statuses(401, 404, 403, 403, 201, 201, 201),
+  },
+  {
+    method: 'GET',
+    route: '/api/studies/[studyId]/taggers/[taggerId]',
+    call: async (world) => ({ path: inStudy(world, `/taggers/${world.taggerId}`) }),
+    expected: statuses(401, 404, 200, 200, 200, 200, 200),
+  },
+  {
+    method: 'DELETE',
+    route: '/api/studies/[studyId]/taggers/[taggerId]',
+    call: (world, actor) => freshTagger(world, `Kept unless deleted by ${actor}`),
+    expected: statuses(401, 404, 403, 403, 204, 204, 204),
+  },
+  {
+    // The tagger's study and the sample's study must both be visible.
+    method: 'GET',
+    route: '/api/studies/[studyId]/taggers/[taggerId]/scores',
+    call: async (world) => ({ path: inStudy(world, `/taggers/${world.taggerId}/scores?sample=${world.sampleId}`) }),
+    expected: statuses(401, 404, 200, 200, 200, 200, 200),
+  },
+  {
+    method: 'GET',
     route: '/api/samples/[sampleId]/provenance',
     call: async (world) => ({ path: inSample(world, '/provenance') }),
     expected: statuses(401, 404, 200, 200, 200, 200, 200),
@@ -705,11 +761,18 @@ beforeAll(async () => {
   }
   const sample = await uploadDone(people.owner.client, { studyId, name: 'Matrix sample', file: jetsFileText(50, 1) });
   const second = await uploadDone(people.owner.client, { studyId, name: 'Second matrix sample', file: jetsFileText(50, 2) });
+  const separation = await people.owner.client.post(`/api/studies/${studyId}/entries`, { kind: 'separation', settings: { signalSampleId: sample.id, backgroundSampleId: second.id } });
+  expect(separation.status, separation.text).toBe(201);
+  const tagger = await people.owner.client.post(`/api/studies/${studyId}/taggers`, { entryId: separation.body.entry.id, name: 'Matrix tagger' });
+  expect(tagger.status, tagger.text).toBe(201);
+  const taggerDocument = (await people.owner.client.get(`/api/studies/${studyId}/taggers/${tagger.body.tagger.id}`)).body.document;
   world = {
     server,
     studyId,
     sampleId: sample.id,
     secondSampleId: second.id,
+    taggerId: tagger.body.tagger.id,
+    taggerDocument,
     people,
     accounts: {
       nonMember: outsider,

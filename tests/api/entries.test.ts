@@ -76,11 +76,14 @@ describe('notes', () => {
     expect(await titlesInOrder(study)).toEqual(['d', 'c', 'a']);
   });
 
-  it('answers 400 for kinds that cannot be created yet, a map without settings, bad positions and oversized bodies', async () => {
+  it('answers 400 for an unknown kind, a map or separation without settings, bad positions and oversized bodies', async () => {
     const study = await studyWithEditor();
+    const unknown = await owner.client.post(`/api/studies/${study}/entries`, { kind: 'region', body: '' });
+    expect(unknown.status).toBe(400);
+    expect(unknown.body.error.details[0].path).toBe('kind');
     const separation = await owner.client.post(`/api/studies/${study}/entries`, { kind: 'separation', body: '' });
     expect(separation.status).toBe(400);
-    expect(separation.body.error.details[0].path).toBe('kind');
+    expect(separation.body.error.details[0].path).toBe('settings');
     const map = await owner.client.post(`/api/studies/${study}/entries`, { kind: 'map', body: '' });
     expect(map.status).toBe(400);
     expect(map.body.error.details[0].path).toBe('settings');

@@ -6,7 +6,7 @@ import { readFileSync } from 'node:fs';
 import { demoSampleSpec } from '@/lib/demo/scenario';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { signIn, startTestServer, type TestServer } from '../support/server';
+import { type Client, signIn, startTestServer, type TestServer } from '../support/server';
 import { waitForDemoSamples } from './demo-samples';
 import { ARTIFACTS_DIR, openBrowser, screenshot, signInThroughPage, type BrowserSession } from './browser';
 

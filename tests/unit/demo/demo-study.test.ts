@@ -7,7 +7,7 @@ import { describe, expect, it } from 'vitest';
 import { DEMO_SAMPLE_JETS } from '@/lib/demo/samples';
 import { demoSampleSpec } from '@/lib/demo/scenario';
 import { DEMO_CLOSING_NOTE } from '@/lib/demo/study-text';
-import { DEMO_BOX, demoViewEntries } from '@/lib/demo/study-views';
+import { DEMO_BOX, demoSeparationEntry, demoViewEntries } from '@/lib/demo/study-views';
 import { settingsInputSchema } from '@/lib/ingest/settings';
 import { generateEmissionRecords } from '@/lib/physics/emission-generator';
 import { softCollinearDensity, type Parton } from '@/lib/physics/lo-density';
@@ -72,5 +72,9 @@ describe('the demo study', () => {
     const entries = demoViewEntries({ quark: 11, gluon: 12 });
     expect(entries.map((e) => e.kind)).toEqual(['map', 'map', 'contrast']);
     expect(entries[2].settings).toMatchObject({ sampleIds: [11, 12], box: DEMO_BOX });
+  });
+
+  it('holds a Separation of the quark-like (signal) from the gluon-like jets', () => {
+    expect(demoSeparationEntry({ quark: 11, gluon: 12 })).toMatchObject({ kind: 'separation', settings: { signalSampleId: 11, backgroundSampleId: 12, minEntries: 10 } });
   });
 });
