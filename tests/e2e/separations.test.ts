@@ -1,7 +1,7 @@
 // Separations and taggers as a tagger developer uses them, in a real browser against a real server on the demo data
 // of a first start (20 000 jets a sample): the demo study's Separation opened, its AUC and rejections read, the split
-// rule on screen, a region proposal saved with the entry (checked in plane coordinates through the API), a tagger
-// saved and applied to a third sample, and the ROC on a linear axis. Screenshots go to tests/artifacts/.
+// rule on screen, a region proposal saved with the entry (checked in plane coordinates through the API), another
+// made a Region with its thread, a tagger saved and applied to a third sample, and the ROC on a linear axis. Screenshots go to tests/artifacts/.
 import { demoSampleSpec } from '@/lib/demo/scenario';
 import { particlesFileLines } from '@/lib/ingest/generated-sample-file';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
@@ -87,6 +87,26 @@ describe('separations and taggers in a browser', () => {
     expect(region.geometry.shape.y2).toBeGreaterThan(region.geometry.shape.y1);
     await page.getByRole('region', { name: 'Region proposals' }).scrollIntoViewIfNeeded();
     await screenshot(page, 'separations-regions-1280', 1280);
+  });
+
+  it('turns the second proposal into a Region with a thread in one step; it shows in the regions panel of the page', async () => {
+    const { page } = browser;
+    const second = page.getByTestId('region-2');
+    await second.getByRole('button', { name: 'Make this a region to discuss' }).click();
+    const form = second.getByRole('form', { name: 'New region' });
+    expect(await form.getByLabel('Title').inputValue()).toBe('Separating region #2');
+    await form.getByLabel('First comment').fill('Background-rich corner proposed by the separation: worth a closer look.');
+    await form.getByRole('button', { name: 'Save region' }).click();
+    await form.waitFor({ state: 'detached' });
+    const listed = page.getByRole('region', { name: 'Regions', exact: true }).getByTestId('region-row').filter({ hasText: 'Separating region #2' });
+    await listed.waitFor();
+    // The numbers of both samples (background first: the ratio is signal over background).
+    expect(await listed.getByTestId('region-numbers').textContent()).toMatch(/ratio .+ = [\d.]+ ± [\d.e-]+/);
+    const { regions } = (await owner.get(`/api/studies/${studyId}/regions`)).body;
+    const made = regions.find((r: { title: string }) => r.title === 'Separating region #2');
+    expect(made.geometry).toMatchObject({ axes: { x: 'lnInvDelta', y: 'lnKt' }, shape: { type: 'rectangle' } });
+    expect(made.entryId).toBe(Number(entryPath.split('/').pop()));
+    await screenshot(page, 'separations-region-made-1280', 1280);
   });
 
   it('saves a tagger and applies it to a third sample', async () => {
