@@ -121,14 +121,14 @@ describe('Separation entries, saved regions and taggers', () => {
     await refused({ signalSampleId: quark.id, backgroundSampleId: gluon.id, minEntries: -1 }, 'settings.minEntries');
   });
 
-  it('keeps a region proposal in plane coordinates, and refuses a shape that is not one', async () => {
+  it('keeps a region proposal in plane coordinates, and refuses a rectangle without width', async () => {
     const saved = await owner.patch(`/api/studies/${studyId}/entries/${entryId}`, {
       settings: { signalSampleId: quark.id, backgroundSampleId: gluon.id, view: COARSE, savedRegions: [{ title: 'Proposal 1', rank: 1, geometry }] },
     });
     expect(saved.status, saved.text).toBe(200);
     expect(saved.body.entry.settings.savedRegions).toEqual([{ title: 'Proposal 1', rank: 1, geometry }]);
     const bad = await owner.patch(`/api/studies/${studyId}/entries/${entryId}`, {
-      settings: { signalSampleId: quark.id, backgroundSampleId: gluon.id, savedRegions: [{ title: 'x', geometry: { ...geometry, shape: { ...geometry.shape, x2: 0 } } }] },
+      settings: { signalSampleId: quark.id, backgroundSampleId: gluon.id, savedRegions: [{ title: 'x', geometry: { ...geometry, shape: { ...geometry.shape, x2: geometry.shape.x1 } } }] },
     });
     expect(bad.status, bad.text).toBe(400);
     expect(bad.body.error.details.map((d: any) => d.path)).toContain('settings.savedRegions.0.geometry.shape.x2');
