@@ -131,7 +131,7 @@ describe('regions on the demo map', () => {
     expect((await notificationRows()).filter((row) => row.kind === 'mention')).toEqual([{ email: 'tamsin@larkspur.test', kind: 'mention', summary: `Oren Halvik mentioned you on region “${TITLE}”` }]);
 
     // The mention reaches the owner by mail: the local mail server's copy, read on the admins' Outbox page.
-    const adminAccount = server.credentials.members.find((member) => member.siteRole === 'admin')!;
+    const adminAccount = server.credentials.admin;
     const outbox = await openBrowser();
     try {
       await signInThroughPage(outbox.page, server.baseUrl, adminAccount.email, adminAccount.password);
