@@ -163,8 +163,9 @@ describe('a mail server that is down when a mail is due', () => {
       });
       expect(sent.attempts).toBeGreaterThanOrEqual(3);
       expect(sent.lastError).toBeNull();
-      expect(received).toHaveLength(1);
-      expect(received[0]).toMatch(/To: later@retry\.test/);
+      // The demo samples' "finished" mails to their uploader may reach this server too: only the invitation counts,
+      // and it arrives once.
+      expect(received.filter((text) => /^To: later@retry\.test$/m.test(text))).toHaveLength(1);
     } finally {
       await new Promise<void>((resolve) => smtp.close(() => resolve()));
     }
