@@ -22,7 +22,7 @@ import {
 
 export const COLUMNS_FORMAT = 'splitfield-columns';
 export const COLUMNS_VERSION = 1;
-const MANIFEST_FILE = 'manifest.json';
+export const MANIFEST_FILE = 'manifest.json';
 
 export type ColumnType = 'float64' | 'int32';
 type ColumnArray<T extends ColumnType> = T extends 'int32' ? Int32Array : Float64Array;

@@ -9,7 +9,9 @@ import { Worker } from 'node:worker_threads';
 import { db } from '@/lib/db/connection';
 import type { PipelineProgress } from '@/lib/ingest/pipeline/sink';
 import { readSampleConfig, type SampleConfig } from '@/lib/samples/config';
+import { publishColumnFolder } from '@/lib/samples/column-files';
 import {
+  cachedSampleDir,
   removeSampleFiles,
   removeUpload,
   sampleDir,
@@ -18,6 +20,8 @@ import {
   uploadPath,
   type SampleStorage,
 } from '@/lib/samples/storage';
+import { fetchUpload, storedUploadNames } from '@/lib/samples/upload-files';
+import { samplePrefix } from '@/lib/objects/keys';
 import { tablesFolderOf } from '@/lib/samples/sharing';
 import type { Sample } from '@/models/sample';
 import { sampleError, type JobErrorReport } from './failure';
@@ -67,7 +71,8 @@ export class JobRunner {
   async start(): Promise<void> {
     await mkdir(this.storage.uploadsDir, { recursive: true });
     await mkdir(this.storage.samplesDir, { recursive: true });
-    const unfinished = await requeueInterrupted((name) => existsSync(uploadPath(this.storage, name)));
+    const uploads = await storedUploadNames(this.storage);
+    const unfinished = await requeueInterrupted((name) => uploads.has(name));
     const done = await db().models.Sample.findAll({ where: { state: 'done' }, attributes: ['id', 'tablesId'] });
     const removed = await sweepUnowned(this.storage, unfinished.waitingUploads, new Set(done.map(tablesFolderOf)));
     if (unfinished.requeued.length > 0) console.log(`[jobs] requeued interrupted samples ${unfinished.requeued.join(', ')}`);
@@ -98,7 +103,7 @@ export class JobRunner {
     while (this.running.size < this.config.maxJobs) {
       const sample = await claimNextQueued();
       if (!sample) return;
-      this.launch(sample);
+      await this.launch(sample);
     }
   }
 
@@ -123,14 +128,31 @@ export class JobRunner {
     clearTimeout(force);
   }
 
-  private launch(sample: Sample): void {
+  /**
+   * Starts the sample's worker. With a bucket, the upload is fetched first and the columns are committed into the
+   * cache folder, from which conclude() publishes them.
+   */
+  private async launch(sample: Sample): Promise<void> {
+    const remote = this.storage.remote;
     const input: JobWorkerInput = {
       uploadPath: uploadPath(this.storage, sample.uploadFile ?? ''),
-      sampleDir: sampleDir(this.storage, sample.id),
+      sampleDir: remote ? cachedSampleDir(this.storage, sample.id) : sampleDir(this.storage, sample.id),
       settings: sample.settings,
       threads: this.config.jobThreads,
       limits: { maxRecords: this.config.maxRecords, maxTextBytes: this.config.maxDecompressedBytes },
     };
+    if (remote) {
+      const unreadable = await fetchUpload(this.storage, sample.uploadFile ?? '').then(
+        () => null,
+        (error: Error) => error,
+      );
+      if (unreadable) {
+        const message = `the uploaded file cannot be read from ${remote.description}: ${unreadable.message}`;
+        const ending: Ending = { type: 'failed', error: { code: 'internal', message, line: null } };
+        await this.conclude(sample, performance.now(), ending).catch((error) => logFailure(`sample ${sample.id}: recording the outcome`, error));
+        return;
+      }
+    }
     const worker = new Worker(this.workerFile, { workerData: input });
     const job: RunningJob = { sample, launchedAt: performance.now(), worker, cancelRequested: false, finished: Promise.resolve() };
     let ending: Ending | null = null;
@@ -154,7 +176,7 @@ export class JobRunner {
     });
     job.finished = new Promise<void>((resolve) => {
       worker.once('exit', (exitCode) => {
-        this.conclude(job, ending ?? this.unexplainedEnd(job, crash, exitCode))
+        this.conclude(sample, job.launchedAt, ending ?? this.unexplainedEnd(job, crash, exitCode))
           .catch((error) => logFailure(`sample ${sample.id}: recording the outcome`, error))
           .finally(() => {
             this.running.delete(sample.id);
@@ -180,13 +202,13 @@ export class JobRunner {
     return { type: 'failed', error: { code: 'internal', message, line: null } satisfies JobErrorReport };
   }
 
-  private async conclude(job: RunningJob, ending: Ending): Promise<void> {
-    const { sample } = job;
-    const processingMs = Math.round(performance.now() - job.launchedAt);
+  private async conclude(sample: Sample, launchedAt: number, ending: Ending): Promise<void> {
+    const processingMs = Math.round(performance.now() - launchedAt);
     try {
       if (ending.type === 'done') {
         const { counts, planes } = ending;
         const progress = this.progressOf(sample, ending.progress);
+        if (this.storage.remote) await publishColumnFolder(this.storage.remote, cachedSampleDir(this.storage, sample.id), samplePrefix(sample.id));
         if (!(await recordDone(sample.id, { counts, planes, progress, processingMs }))) {
           await removeSampleFiles(this.storage, sample.id);
         }
