@@ -15,6 +15,7 @@ const items: NavItem[] = [
   { href: '/samples', label: 'Samples' },
   { href: '/profile', label: 'Profile' },
   { href: '/admin/users', label: 'Users', adminOnly: true },
+  { href: '/admin/processing', label: 'Processing', adminOnly: true },
 ];
 
 /** The main navigation; the admin section appears for site admins only. */

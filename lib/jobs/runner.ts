@@ -23,6 +23,9 @@ import {
 import { fetchUpload, storedUploadNames } from '@/lib/samples/upload-files';
 import { samplePrefix } from '@/lib/objects/keys';
 import { tablesFolderOf } from '@/lib/samples/sharing';
+import { readQueueSettings } from '@/lib/scale/config';
+import type { ProcessingOverview } from '@/lib/scale/overview';
+import { QueueRunner } from '@/lib/scale/queue-runner';
 import type { Sample } from '@/models/sample';
 import { sampleError, type JobErrorReport } from './failure';
 import type { JobControlMessage, JobWorkerInput, JobWorkerMessage } from './messages';
@@ -56,7 +59,7 @@ function logFailure(what: string, error: unknown): void {
   console.error(`[jobs] ${what}:`, error);
 }
 
-export class JobRunner {
+export class JobRunner implements ProcessingRunner {
   private readonly running = new Map<number, RunningJob>();
   private filling: Promise<void> | null = null;
   private fillAgain = false;
@@ -118,6 +121,22 @@ export class JobRunner {
     // Claimed between the look-up and the update: the job started, so stop it.
     const late = this.running.get(sample.id);
     if (late) await this.stop(late);
+  }
+
+  async overview(): Promise<ProcessingOverview> {
+    const waiting = await db().models.Sample.count({ where: { state: 'queued' } });
+    const running = [...this.running.values()].map(({ sample }) => ({
+      id: `sample-${sample.id}`,
+      kind: 'sample',
+      sampleId: sample.id,
+      shard: null,
+      attempts: sample.attempts,
+      startedAt: sample.startedAt?.toISOString() ?? null,
+      worker: 'this server',
+      fraction: null,
+    }));
+    const store = this.storage.remote?.description ?? path.dirname(this.storage.uploadsDir);
+    return { mode: 'embedded', store, counts: { waiting, running: running.length, delayed: 0, failed: 0 }, running, failed: [] };
   }
 
   private async stop(job: RunningJob): Promise<void> {
@@ -228,17 +247,28 @@ export class JobRunner {
   }
 }
 
+/** What the rest of the server asks of the runner, in either mode. */
+export interface ProcessingRunner {
+  /** Looks for queued samples now (after an upload). */
+  wake(): void;
+  /** Stops the sample's job or takes it out of the queue; resolves once it is recorded and cleaned up. */
+  cancel(sample: Sample): Promise<void>;
+  /** The admin page's view of the processing. */
+  overview(): Promise<ProcessingOverview>;
+}
+
 const processWideKey = Symbol.for('splitfield.jobRunner');
-type ProcessWide = typeof globalThis & { [processWideKey]?: Promise<JobRunner> };
+type ProcessWide = typeof globalThis & { [processWideKey]?: Promise<ProcessingRunner> };
 
 /**
- * The process's job runner, started on first use (instrumentation.ts uses it at server start). Kept on globalThis
+ * The process's job runner (the queue's with SPLITFIELD_REDIS_URL, else worker threads here), started on first use (instrumentation.ts uses it at server start). Kept on globalThis
  * because the bundler may load this module once per route bundle.
  */
-export function jobRunner(): Promise<JobRunner> {
+export function jobRunner(): Promise<ProcessingRunner> {
   const holder = globalThis as ProcessWide;
   holder[processWideKey] ??= (async () => {
-    const runner = new JobRunner(readSampleConfig(), sampleStorage(), jobWorkerFile());
+    const queue = readQueueSettings();
+    const runner = queue ? new QueueRunner(readSampleConfig(), sampleStorage(), queue) : new JobRunner(readSampleConfig(), sampleStorage(), jobWorkerFile());
     await runner.start();
     return runner;
   })().catch((error: unknown) => {

@@ -137,12 +137,20 @@ export interface UnfinishedAtStart {
  * At start no job runs, so a sample marked running was cut short by a stop of the server: it goes back to the
  * queue (from the start of its file), unless that happened MAX_ATTEMPTS times or its upload is missing.
  */
-export async function requeueInterrupted(uploadExists: (fileName: string) => boolean): Promise<UnfinishedAtStart> {
+export async function requeueInterrupted(
+  uploadExists: (fileName: string) => boolean,
+  /** Running samples whose job carries on elsewhere (the scaled mode's queue): left running. */
+  carryOn: ReadonlySet<number> = new Set(),
+): Promise<UnfinishedAtStart> {
   const { models, write } = db();
   return write(async (transaction) => {
     const unfinished = await models.Sample.findAll({ where: { state: ['queued', 'running'] }, transaction });
     const result: UnfinishedAtStart = { requeued: [], abandoned: [], waitingUploads: new Set() };
     for (const sample of unfinished) {
+      if (carryOn.has(sample.id) && sample.state === 'running' && sample.uploadFile) {
+        result.waitingUploads.add(sample.uploadFile);
+        continue;
+      }
       const uploadKept = sample.uploadFile !== null && uploadExists(sample.uploadFile);
       const triesLeft = sample.state === 'queued' || sample.attempts < MAX_ATTEMPTS;
       if (!uploadKept || !triesLeft) {

@@ -61,6 +61,9 @@ export const jobIds = {
   merge: (ref: RunRef) => `${runName(ref)}-merge`,
 };
 
+/** How long finished jobs stay in Redis: failed ones are shown on the admin page. */
+export const KEEP_JOBS = { removeOnComplete: { age: 3600 }, removeOnFail: { age: 7 * 24 * 3600 } };
+
 /** Set when a run is cancelled; workers look for it while they work. */
 export function cancelKey(ref: RunRef): string {
   return `splitfield:cancelled:${runName(ref)}`;

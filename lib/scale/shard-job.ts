@@ -26,6 +26,7 @@ import { sumCounts } from './counts';
 import {
   cancelKey,
   jobIds,
+  KEEP_JOBS,
   type MergeJobData,
   type MergeResult,
   type PlanJobData,
@@ -72,7 +73,7 @@ async function plan(job: Job<PlanJobData>, context: WorkerContext): Promise<{ sh
   const merge = jobIds.merge(data);
   // A retried plan finds the flow it added before.
   if (!(await context.queue.getJob(merge))) {
-    const retries = { attempts: context.settings.attempts, backoff: { type: 'exponential', delay: context.settings.retryDelayMs } };
+    const retries = { attempts: context.settings.attempts, backoff: { type: 'exponential', delay: context.settings.retryDelayMs }, ...KEEP_JOBS };
     const flows = new FlowProducer({ connection: context.connection });
     try {
       await flows.add({
