@@ -225,7 +225,9 @@ export class QueueRunner {
         const finished = planes.map((plane) => ({ horizontal: plane.horizontal, bytes: new Uint8Array(Buffer.from(plane.base64, 'base64')) }));
         if (!(await recordDone(sample.id, { counts, planes: finished, progress, processingMs }))) await removeSampleFiles(this.storage, sample.id);
       } else {
-        await removeSampleFiles(this.storage, sample.id);
+        // A store that refuses writes may refuse removals too: the sample still ends, and the start-up sweep
+        // removes what is left of it.
+        await removeSampleFiles(this.storage, sample.id).catch((error) => logFailure(`sample ${sample.id}: removing its objects`, error));
         const state = outcome.error.code === 'cancelled' ? 'cancelled' : 'failed';
         await recordEnded(sample.id, state, state === 'failed' ? sampleError(outcome.error) : null, processingMs);
       }

@@ -31,6 +31,7 @@ import {
   type MergeResult,
   type PlanJobData,
   QUEUE_NAME,
+  type RunRef,
   type ShardJobData,
   type ShardResult,
   shardSources,
@@ -117,6 +118,16 @@ async function openShard(data: ShardJobData, context: WorkerContext, dir: string
   return reader;
 }
 
+/**
+ * The web server marks a run that ended (cancelled or failed) before it removes the run's objects: what was
+ * published before the mark is removed by the server, what was published after is removed here.
+ */
+async function dropIfEnded(context: WorkerContext, ref: RunRef, prefix: string): Promise<void> {
+  if (!(await context.connection.exists(cancelKey(ref)))) return;
+  await removePrefix(context.store, prefix);
+  throw final({ code: 'cancelled', message: 'cancelled', line: null });
+}
+
 async function shard(job: Job<ShardJobData>, context: WorkerContext): Promise<ShardResult> {
   const data = job.data;
   const cancel = new AbortController();
@@ -141,7 +152,9 @@ async function shard(job: Job<ShardJobData>, context: WorkerContext): Promise<Sh
           );
         },
       });
-      await publishColumnFolder(context.store, columns, `${workPrefix(data.sampleId, data.attempt)}shard-${data.index}/`);
+      const prefix = `${workPrefix(data.sampleId, data.attempt)}shard-${data.index}/`;
+      await publishColumnFolder(context.store, columns, prefix);
+      await dropIfEnded(context, data, prefix);
       return { index: data.index, counts, input: input! };
     } catch (error) {
       if (error instanceof IngestAbortError || cancel.signal.aborted) throw final({ code: 'cancelled', message: 'cancelled', line: null });
@@ -169,6 +182,7 @@ async function merge(job: Job<MergeJobData>, context: WorkerContext): Promise<Me
     await mergeColumnFolders(parts, merged);
     const planes = await planesFromColumns(await ColumnReader.open(merged), data.settings.jet.R);
     await publishColumnFolder(context.store, merged, samplePrefix(data.sampleId));
+    await dropIfEnded(context, data, samplePrefix(data.sampleId));
     await removePrefix(context.store, work);
     return {
       counts,

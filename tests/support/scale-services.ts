@@ -36,6 +36,8 @@ function firstLine(child: ChildProcess, what: string): Promise<string> {
 export interface FakeS3 extends Service {
   endpoint: string;
   bucket: string;
+  /** The folder the fake server keeps its buckets in. */
+  directory: string;
   /** The SPLITFIELD_S3_* variables of this bucket. */
   env: Record<string, string>;
 }
@@ -50,6 +52,7 @@ export async function startFakeS3(bucket = 'splitfield-test'): Promise<FakeS3> {
     process: child,
     endpoint,
     bucket,
+    directory: dir,
     env: {
       SPLITFIELD_S3_BUCKET: bucket,
       SPLITFIELD_S3_ENDPOINT: endpoint,
