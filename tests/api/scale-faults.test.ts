@@ -1,6 +1,6 @@
 // Faults of the scaled mode, on real processes: a worker killed in the middle of a shard, Redis restarted during
 // a job, and the bucket refusing a write. A clean run of the same file on the same servers is the reference.
-import { mkdirSync } from 'node:fs';
+import { readdirSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { readS3Settings } from '@/lib/objects/config';
@@ -109,14 +109,16 @@ describe('scaled mode under faults', () => {
 
   it('fails the sample clearly when the bucket refuses a write, and leaves no half sample', async () => {
     const id = await queueAgain('Refused write');
-    // The fake server keeps an object as a file; a folder in the way of the manifest's file makes it refuse
-    // that write (and only that one), after the column files were written.
-    mkdirSync(path.join(fake.directory, fake.bucket, 'samples', String(id), 'manifest.json._S3rver_object'), { recursive: true });
+    // The fake server keeps a key's objects under folders named by its parts: a file in the way of the sample's
+    // folder makes it refuse (HTTP 500) every write of the sample's columns, while uploads and shards still work.
+    writeFileSync(path.join(fake.directory, fake.bucket, 'samples', String(id)), '');
     const sample = await waitForSample(admin, id, isFinished, 'the end of its job');
     expect(sample.state).toBe('failed');
-    expect(sample.error.message).toMatch(new RegExp(`cannot write samples/${id}/manifest.json`));
-    expect((await store.list(`samples/${id}/`)).filter((key) => !key.endsWith('manifest.json'))).toEqual([]);
+    expect(sample.error.message).toMatch(new RegExp(`cannot write samples/${id}/\\S+ to s3://${fake.bucket}/`));
+    expect(await store.list(`samples/${id}/`)).toEqual([]);
     expect(await store.list('work/')).toEqual([]);
+    expect(await store.list('uploads/')).toEqual([]);
+    expect(readdirSync(path.join(server.storageDir, 'cache'))).not.toContain(String(id));
     const jets = await admin.get(`/api/samples/${id}/jets`);
     expect(jets.status).toBe(409);
   });
