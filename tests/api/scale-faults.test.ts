@@ -7,7 +7,7 @@ import { readS3Settings } from '@/lib/objects/config';
 import { readObjectBytes } from '@/lib/objects/object-store';
 import { S3ObjectStore } from '@/lib/objects/s3-store';
 import { type FakeS3, type Redis, type Service, startFakeS3, startRedis, startWorker } from '../support/scale-services';
-import type { Client, TestServer } from '../support/server';
+import { type Client, signIn, startTestServer, type TestServer } from '../support/server';
 import { newStudy, serverWithAdmin } from './fixtures';
 import { isFinished, jetsFileText, upload, uploadDone, waitForSample } from './sample-fixtures';
 
@@ -102,6 +102,17 @@ describe('scaled mode under faults', () => {
     await redis.stop();
     await new Promise((resolve) => setTimeout(resolve, 1000));
     await redis.restart();
+    const sample = await waitForSample(admin, id, isFinished, 'the end of its job');
+    expect(sample.state, JSON.stringify(sample.error)).toBe('done');
+    expectSameFiles(await objects(id), reference);
+  });
+
+  it('follows a run still in the queue after the web server is killed and started again', async () => {
+    const id = await queueAgain('Server restarted');
+    await runningShardWorker(id);
+    await server.kill();
+    server = await startTestServer({ storageOf: server, env: env() });
+    admin = await signIn(server.baseUrl, server.credentials.admin.email, server.credentials.admin.password);
     const sample = await waitForSample(admin, id, isFinished, 'the end of its job');
     expect(sample.state, JSON.stringify(sample.error)).toBe('done');
     expectSameFiles(await objects(id), reference);
