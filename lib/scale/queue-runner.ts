@@ -241,24 +241,24 @@ export class QueueRunner {
    * for the workers (so shards under way stop) and its waiting jobs leave the queue.
    */
   private async cleanUp(run: Run, finished: boolean): Promise<void> {
-    try {
-      if (!finished) {
-        await this.connection.set(cancelKey(run), '1', 'EX', CANCEL_MARK_SECONDS);
+    const step = (what: string, work: () => Promise<unknown>) => work().catch((error) => logFailure(`sample ${run.sampleId}: ${what}`, error));
+    if (!finished) {
+      await step('marking the run ended', () => this.connection.set(cancelKey(run), '1', 'EX', CANCEL_MARK_SECONDS));
+      await step('removing its waiting jobs', async () => {
         const waiting = await this.queue.getJobs(['waiting', 'delayed', 'waiting-children', 'prioritized']);
         const ours = waiting.filter((job) => job.id?.startsWith(`${runName(run)}-`));
-        await Promise.all(ours.map((job) => job.remove().catch(() => undefined)));
-        // A shard that was mid-write when the mark appeared may still publish its columns.
-        setTimeout(() => {
-          removePrefix(this.store, workPrefix(run.sampleId, run.attempt)).catch((error) => logFailure('late clean-up', error));
-          removeSampleFiles(this.storage, run.sampleId).catch((error) => logFailure('late clean-up', error));
-        }, LATE_CLEANUP_MS).unref();
-      }
-      await removeUpload(this.storage, run.sample.uploadFile);
-      await removePrefix(this.store, workPrefix(run.sampleId, run.attempt));
-    } finally {
-      this.running.delete(run.sampleId);
-      this.wake();
+        await Promise.all(ours.map((job) => job.remove()));
+      });
+      // A shard that was mid-write when the mark appeared may still publish its columns.
+      setTimeout(() => {
+        void step('late clean-up', () => removePrefix(this.store, workPrefix(run.sampleId, run.attempt)));
+        void step('late clean-up', () => removeSampleFiles(this.storage, run.sampleId));
+      }, LATE_CLEANUP_MS).unref();
     }
+    await step('removing its upload', () => removeUpload(this.storage, run.sample.uploadFile));
+    await step('removing its work objects', () => removePrefix(this.store, workPrefix(run.sampleId, run.attempt)));
+    this.running.delete(run.sampleId);
+    this.wake();
   }
 
   /** Stops a sample's run (workers see the mark within a progress interval) or takes it out of the queue. */

@@ -156,6 +156,30 @@ describe('scaled mode: queue, shards, bucket', () => {
     await expectEventually(async () => expect(await store.list('work/')).toEqual([]));
   });
 
+  it('keeps files in the bucket without the queue too: jobs run on the web server, columns go to the bucket', async () => {
+    const bucketOnly = await serverWithAdmin({ env: { ...fake.env, SPLITFIELD_S3_PREFIX: 'bucket-only/', SPLITFIELD_JOB_THREADS: '1' }, demoJets: 200 });
+    try {
+      const own = new S3ObjectStore(readS3Settings({ ...fake.env, SPLITFIELD_S3_PREFIX: 'bucket-only/' })!);
+      const studyId = await newStudy(bucketOnly.admin, 'Bucket study');
+      const text = jetsWithoutSomeIds(300, 18);
+      const [inBucket, here] = await Promise.all([
+        uploadDone(bucketOnly.admin, { studyId, file: text }),
+        uploadDone(people.embedded.client, { studyId: people.embedded.studyId, file: text, name: 'Reference' }),
+      ]);
+      const expected = folderFiles(path.join(embedded.storageDir, 'samples', String(here.id)));
+      for (const [name, bytes] of expected) {
+        expect((await readObjectBytes(own, `samples/${inBucket.id}/${name}`)).equals(bytes), `${name} differs`).toBe(true);
+      }
+      expect(storedFiles(bucketOnly.server.storageDir)).toEqual({ uploads: [], samples: [] });
+      expect(await own.list('uploads/')).toEqual([]);
+      expect((await bucketOnly.admin.get(`/api/samples/${inBucket.id}/jets?limit=5`)).body.total).toBe(here.counts.jets);
+      expect((await bucketOnly.admin.send('DELETE', `/api/samples/${inBucket.id}`)).status).toBe(204);
+      expect(await own.list(`samples/${inBucket.id}/`)).toEqual([]);
+    } finally {
+      await bucketOnly.server.stop();
+    }
+  });
+
   it('deletes the objects of a deleted sample', async () => {
     const sample = await uploadDone(people.scaled.client, { studyId: people.scaled.studyId, file: jetsFileText(50, 17), name: 'To delete' });
     expect((await store.list(`samples/${sample.id}/`)).length).toBeGreaterThan(0);
