@@ -31,6 +31,7 @@ import { sampleError, type JobErrorReport } from './failure';
 import type { JobControlMessage, JobWorkerInput, JobWorkerMessage } from './messages';
 import { progressView } from './progress';
 import { claimNextQueued, recordDone, recordEnded, recordInput, recordProgress, requeueInterrupted } from './sample-states';
+import { WakeLoop } from './wake-loop';
 
 /** Progress reaches the database at most this often per job. */
 const PROGRESS_WRITE_MS = 1000;
@@ -61,8 +62,10 @@ function logFailure(what: string, error: unknown): void {
 
 export class JobRunner implements ProcessingRunner {
   private readonly running = new Map<number, RunningJob>();
-  private filling: Promise<void> | null = null;
-  private fillAgain = false;
+  private readonly filling = new WakeLoop(
+    () => this.fill(),
+    (error) => logFailure('cannot start queued jobs', error),
+  );
 
   constructor(
     private readonly config: SampleConfig,
@@ -87,19 +90,7 @@ export class JobRunner implements ProcessingRunner {
 
   /** Looks for queued samples now (after an upload). */
   wake(): void {
-    if (this.filling) {
-      this.fillAgain = true;
-      return;
-    }
-    this.filling = this.fill()
-      .catch((error) => logFailure('cannot start queued jobs', error))
-      .finally(() => {
-        this.filling = null;
-        if (this.fillAgain) {
-          this.fillAgain = false;
-          this.wake();
-        }
-      });
+    this.filling.wake();
   }
 
   private async fill(): Promise<void> {

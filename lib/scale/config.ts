@@ -1,7 +1,7 @@
 // The scaled mode's settings, from the environment (README "Running on many machines"): the queue is on when
 // SPLITFIELD_REDIS_URL is set.
 import { z } from 'zod';
-import { checkedEnvironment, type Environment } from '@/lib/config/environment';
+import { checkedEnvironment, type Environment, wholeNumberVariable } from '@/lib/config/environment';
 
 export interface QueueSettings {
   /** redis://[user:password@]host:port[/db] (SPLITFIELD_REDIS_URL). */
@@ -16,20 +16,12 @@ export interface QueueSettings {
   lockMs: number;
 }
 
-const wholeNumber = (minimum: number) =>
-  z
-    .string()
-    .trim()
-    .regex(/^\d+$/, 'must be a whole number')
-    .transform(Number)
-    .refine((value) => Number.isSafeInteger(value) && value >= minimum, `must be at least ${minimum}`);
-
 const environmentSchema = z.object({
   SPLITFIELD_REDIS_URL: z.url({ protocol: /^rediss?$/ }).optional(),
-  SPLITFIELD_SHARD_BYTES: wholeNumber(1024).optional(),
-  SPLITFIELD_SHARD_ATTEMPTS: wholeNumber(1).optional(),
-  SPLITFIELD_RETRY_DELAY_MS: wholeNumber(0).optional(),
-  SPLITFIELD_QUEUE_LOCK_MS: wholeNumber(1000).optional(),
+  SPLITFIELD_SHARD_BYTES: wholeNumberVariable(1024).optional(),
+  SPLITFIELD_SHARD_ATTEMPTS: wholeNumberVariable(1).optional(),
+  SPLITFIELD_RETRY_DELAY_MS: wholeNumberVariable(0).optional(),
+  SPLITFIELD_QUEUE_LOCK_MS: wholeNumberVariable(1000).optional(),
 });
 
 /** The queue's settings, or null in the embedded mode (no SPLITFIELD_REDIS_URL). */

@@ -33,6 +33,7 @@ import {
   type RunRef,
   runName,
 } from './queue';
+import { WakeLoop } from '@/lib/jobs/wake-loop';
 
 /** How often running samples are looked at in the queue. */
 const FOLLOW_MS = 1000;
@@ -58,8 +59,10 @@ export class QueueRunner {
   private readonly connection: IORedis;
   readonly queue: Queue;
   private readonly store: ObjectStore;
-  private filling: Promise<void> | null = null;
-  private fillAgain = false;
+  private readonly filling = new WakeLoop(
+    () => this.fill(),
+    (error) => logFailure('cannot queue samples', error),
+  );
   private following = false;
 
   constructor(
@@ -99,19 +102,7 @@ export class QueueRunner {
   }
 
   wake(): void {
-    if (this.filling) {
-      this.fillAgain = true;
-      return;
-    }
-    this.filling = this.fill()
-      .catch((error) => logFailure('cannot queue samples', error))
-      .finally(() => {
-        this.filling = null;
-        if (this.fillAgain) {
-          this.fillAgain = false;
-          this.wake();
-        }
-      });
+    this.filling.wake();
   }
 
   private async fill(): Promise<void> {

@@ -6,7 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { readS3Settings } from '@/lib/objects/config';
 import { readObjectBytes } from '@/lib/objects/object-store';
 import { S3ObjectStore } from '@/lib/objects/s3-store';
-import { type FakeS3, type Redis, type Service, startFakeS3, startRedis, startWorker } from '../support/scale-services';
+import { type FakeS3, type Redis, scaledEnv, type Service, startFakeS3, startRedis, startWorker } from '../support/scale-services';
 import { type Client, signIn, startTestServer, type TestServer } from '../support/server';
 import { newStudy, serverWithAdmin } from './fixtures';
 import { isFinished, jetsFileText, upload, uploadDone, waitForSample } from './sample-fixtures';
@@ -24,14 +24,7 @@ let reference: Map<string, Buffer>;
 const text = jetsFileText(2500, 21);
 
 function env(): Record<string, string> {
-  return {
-    ...fake.env,
-    SPLITFIELD_REDIS_URL: redis.url,
-    SPLITFIELD_SHARD_BYTES: String(SHARD_BYTES),
-    SPLITFIELD_QUEUE_LOCK_MS: '2000',
-    SPLITFIELD_RETRY_DELAY_MS: '200',
-    SPLITFIELD_JOB_THREADS: '1',
-  };
+  return scaledEnv(fake, redis, SHARD_BYTES);
 }
 
 async function addWorker(name: string): Promise<void> {

@@ -8,7 +8,7 @@ import { readS3Settings } from '@/lib/objects/config';
 import { readObjectBytes } from '@/lib/objects/object-store';
 import { S3ObjectStore } from '@/lib/objects/s3-store';
 import { generateEvents } from '@/tests/support/test-events';
-import { type FakeS3, type Redis, type Service, startFakeS3, startRedis, startWorker } from '../support/scale-services';
+import { type FakeS3, type Redis, scaledEnv, type Service, startFakeS3, startRedis, startWorker } from '../support/scale-services';
 import type { Client, TestServer } from '../support/server';
 import { hepmc3Text } from '../unit/ingest/helpers';
 import { newPerson, newStudy, serverWithAdmin } from './fixtures';
@@ -25,23 +25,15 @@ let embedded: TestServer;
 let store: S3ObjectStore;
 const people: Record<'scaled' | 'embedded', { client: Client; studyId: number }> = {} as never;
 
-function scaledEnv(): Record<string, string> {
-  return {
-    ...fake.env,
-    SPLITFIELD_REDIS_URL: redis.url,
-    SPLITFIELD_SHARD_BYTES: String(SHARD_BYTES),
-    SPLITFIELD_QUEUE_LOCK_MS: '2000',
-    SPLITFIELD_RETRY_DELAY_MS: '200',
-    SPLITFIELD_JOB_THREADS: '1',
-    SPLITFIELD_MAX_JOBS: '2',
-  };
+function env(): Record<string, string> {
+  return { ...scaledEnv(fake, redis, SHARD_BYTES), SPLITFIELD_MAX_JOBS: '2' };
 }
 
 beforeAll(async () => {
   [fake, redis] = await Promise.all([startFakeS3(), startRedis()]);
   store = new S3ObjectStore(readS3Settings(fake.env)!);
-  workers = await Promise.all(['w1', 'w2'].map((name) => startWorker(scaledEnv(), name)));
-  ({ server: scaled } = await serverWithAdmin({ env: scaledEnv(), demoJets: 200 }));
+  workers = await Promise.all(['w1', 'w2'].map((name) => startWorker(env(), name)));
+  ({ server: scaled } = await serverWithAdmin({ env: env(), demoJets: 200 }));
   ({ server: embedded } = await serverWithAdmin({ env: { SPLITFIELD_JOB_THREADS: '1' }, demoJets: 200 }));
   for (const [mode, server] of [['scaled', scaled], ['embedded', embedded]] as const) {
     const person = await newPerson(server, 'analyst');

@@ -123,3 +123,15 @@ export async function startWorker(env: Record<string, string>, name: string): Pr
   child.stdout!.resume();
   return { process: child, stop: stopper(child) };
 }
+
+/** The variables of the scaled mode on these services, with the small shards and short waits tests use. */
+export function scaledEnv(fake: FakeS3, redis: Redis, shardBytes: number): Record<string, string> {
+  return {
+    ...fake.env,
+    SPLITFIELD_REDIS_URL: redis.url,
+    SPLITFIELD_SHARD_BYTES: String(shardBytes),
+    SPLITFIELD_QUEUE_LOCK_MS: '2000',
+    SPLITFIELD_RETRY_DELAY_MS: '200',
+    SPLITFIELD_JOB_THREADS: '1',
+  };
+}
