@@ -162,6 +162,8 @@ describe('scaled mode: queue, shards, bucket', () => {
       for (const [name, bytes] of expected) {
         expect((await readObjectBytes(own, `samples/${inBucket.id}/${name}`)).equals(bytes), `${name} differs`).toBe(true);
       }
+      // The demo samples (written into uploads/ by the first start) are processed too before storage is looked at.
+      for (const demo of [1, 2]) expect((await waitForSample(bucketOnly.admin, demo, isFinished, 'the end of its job')).state).toBe('done');
       expect(storedFiles(bucketOnly.server.storageDir)).toEqual({ uploads: [], samples: [] });
       expect(await own.list('uploads/')).toEqual([]);
       expect((await bucketOnly.admin.get(`/api/samples/${inBucket.id}/jets?limit=5`)).body.total).toBe(here.counts.jets);
