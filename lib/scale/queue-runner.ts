@@ -199,11 +199,13 @@ export class QueueRunner {
     await recordProgress(run.sampleId, progressView(total, run.sample.fileSize ?? 0, run.sample.settings.fullTree));
   }
 
+  /** Records the outcome once the run's files are settled: a sample that reads as ended has nothing in progress left. */
   private async conclude(run: Run, outcome: { kind: 'done'; result: MergeResult } | { kind: 'failed'; error: JobErrorReport }): Promise<void> {
     run.concluding = true;
     const { sample } = run;
     const processingMs = Date.now() - run.startedAt;
     try {
+      await this.retire(run, outcome.kind === 'done');
       if (outcome.kind === 'done') {
         const { counts, input, planes } = outcome.result;
         await recordInput(sample.id, input);
@@ -216,22 +218,22 @@ export class QueueRunner {
         const finished = planes.map((plane) => ({ horizontal: plane.horizontal, bytes: new Uint8Array(Buffer.from(plane.base64, 'base64')) }));
         if (!(await recordDone(sample.id, { counts, planes: finished, progress, processingMs }))) await removeSampleFiles(this.storage, sample.id);
       } else {
-        // A store that refuses writes may refuse removals too: the sample still ends, and the start-up sweep
-        // removes what is left of it.
-        await removeSampleFiles(this.storage, sample.id).catch((error) => logFailure(`sample ${sample.id}: removing its objects`, error));
         const state = outcome.error.code === 'cancelled' ? 'cancelled' : 'failed';
         await recordEnded(sample.id, state, state === 'failed' ? sampleError(outcome.error) : null, processingMs);
       }
     } finally {
-      await this.cleanUp(run, outcome.kind === 'done');
+      this.running.delete(run.sampleId);
+      this.wake();
     }
   }
 
   /**
-   * Removes the run's upload and work objects and forgets it. A run that did not finish is also marked cancelled
-   * for the workers (so shards under way stop) and its waiting jobs leave the queue.
+   * Removes the run's upload and work objects. A run that did not finish is also marked ended for the workers
+   * (shards under way stop and remove what they publish later), its waiting jobs leave the queue and its sample's
+   * objects go. Each step stands alone: a store that refuses writes may refuse removals too, and the start-up
+   * sweep removes what is left.
    */
-  private async cleanUp(run: Run, finished: boolean): Promise<void> {
+  private async retire(run: Run, finished: boolean): Promise<void> {
     const step = (what: string, work: () => Promise<unknown>) => work().catch((error) => logFailure(`sample ${run.sampleId}: ${what}`, error));
     if (!finished) {
       await step('marking the run ended', () => this.connection.set(cancelKey(run), '1', 'EX', CANCEL_MARK_SECONDS));
@@ -240,6 +242,7 @@ export class QueueRunner {
         const ours = waiting.filter((job) => job.id?.startsWith(`${runName(run)}-`));
         await Promise.all(ours.map((job) => job.remove()));
       });
+      await step('removing its objects', () => removeSampleFiles(this.storage, run.sampleId));
       // A shard that was mid-write when the mark appeared may still publish its columns.
       setTimeout(() => {
         void step('late clean-up', () => removePrefix(this.store, workPrefix(run.sampleId, run.attempt)));
@@ -248,8 +251,6 @@ export class QueueRunner {
     }
     await step('removing its upload', () => removeUpload(this.storage, run.sample.uploadFile));
     await step('removing its work objects', () => removePrefix(this.store, workPrefix(run.sampleId, run.attempt)));
-    this.running.delete(run.sampleId);
-    this.wake();
   }
 
   /** Stops a sample's run (workers see the mark within a progress interval) or takes it out of the queue. */
@@ -260,9 +261,13 @@ export class QueueRunner {
       return;
     }
     run.concluding = true;
-    await removeSampleFiles(this.storage, sample.id);
-    await recordEnded(sample.id, 'cancelled', null, Date.now() - run.startedAt);
-    await this.cleanUp(run, false);
+    try {
+      await this.retire(run, false);
+      await recordEnded(sample.id, 'cancelled', null, Date.now() - run.startedAt);
+    } finally {
+      this.running.delete(run.sampleId);
+      this.wake();
+    }
   }
 
   /** What the admin page shows: the queue's counts, the jobs under way and the failed ones. */

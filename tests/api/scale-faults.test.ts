@@ -1,6 +1,6 @@
 // Faults of the scaled mode, on real processes: a worker killed in the middle of a shard, Redis restarted during
 // a job, and the bucket refusing a write. A clean run of the same file on the same servers is the reference.
-import { readdirSync, writeFileSync } from 'node:fs';
+import { existsSync, readdirSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { readS3Settings } from '@/lib/objects/config';
@@ -129,7 +129,8 @@ describe('scaled mode under faults', () => {
     expect(await store.list(`samples/${id}/`)).toEqual([]);
     expect(await store.list('work/')).toEqual([]);
     expect(await store.list('uploads/')).toEqual([]);
-    expect(readdirSync(path.join(server.storageDir, 'cache'))).not.toContain(String(id));
+    const cache = path.join(server.storageDir, 'cache');
+    expect(existsSync(cache) ? readdirSync(cache) : []).not.toContain(String(id));
     const jets = await admin.get(`/api/samples/${id}/jets`);
     expect(jets.status).toBe(409);
   });
