@@ -47,6 +47,8 @@ const LATE_CLEANUP_MS = 30_000;
 interface Run extends RunRef {
   sample: Sample;
   startedAt: number;
+  /** Its plan job is in the queue (until then there is nothing to look at). */
+  enqueued: boolean;
   concluding: boolean;
 }
 
@@ -84,7 +86,7 @@ export class QueueRunner {
       const ref = { sampleId: sample.id, attempt: sample.attempts };
       if (await this.queue.getJob(jobIds.plan(ref))) {
         carryOn.add(sample.id);
-        this.running.set(sample.id, { ...ref, sample, startedAt: sample.startedAt?.getTime() ?? Date.now(), concluding: false });
+        this.running.set(sample.id, { ...ref, sample, startedAt: sample.startedAt?.getTime() ?? Date.now(), enqueued: true, concluding: false });
       }
     }
     const uploads = await storedUploadNames(this.storage);
@@ -109,10 +111,11 @@ export class QueueRunner {
     while (this.running.size < this.config.maxJobs) {
       const sample = await claimNextQueued();
       if (!sample) return;
-      const run: Run = { sampleId: sample.id, attempt: sample.attempts, sample, startedAt: Date.now(), concluding: false };
+      const run: Run = { sampleId: sample.id, attempt: sample.attempts, sample, startedAt: Date.now(), enqueued: false, concluding: false };
       this.running.set(sample.id, run);
       try {
         await this.enqueue(run);
+        run.enqueued = true;
       } catch (error) {
         await this.conclude(run, { kind: 'failed', error: { code: 'internal', message: `the job could not be queued: ${(error as Error).message}`, line: null } });
       }
@@ -151,7 +154,7 @@ export class QueueRunner {
   }
 
   private async look(run: Run): Promise<void> {
-    if (run.concluding) return;
+    if (run.concluding || !run.enqueued) return;
     const plan = await this.queue.getJob(jobIds.plan(run));
     if (!plan) {
       return this.conclude(run, { kind: 'failed', error: { code: 'interrupted', message: 'the queue no longer holds this job (was Redis emptied?)', line: null } });
