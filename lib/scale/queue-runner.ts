@@ -287,7 +287,10 @@ export class QueueRunner {
         failed: counts.failed ?? 0,
       },
       running: active.map((job) => ({ ...jobView(job), worker: job.processedBy ?? null, fraction: fractionOf(job) })),
-      failed: failed.map((job) => ({ ...jobView(job), reason: reportOfReason(job.failedReason).message })),
+      // A merge fails when one of its shards did (BullMQ: "child <key> failed"): the shard's row says why.
+      failed: failed
+        .filter((job) => !/^child \S+ failed$/.test(job.failedReason ?? ''))
+        .map((job) => ({ ...jobView(job), reason: reportOfReason(job.failedReason).message })),
     };
   }
 }
