@@ -231,15 +231,15 @@ export class QueueRunner {
   }
 
   /**
-   * Removes the run's upload and work objects. A run that did not finish is also marked ended for the workers
-   * (shards under way stop and remove what they publish later), its waiting jobs leave the queue and its sample's
-   * objects go. Each step stands alone: a store that refuses writes may refuse removals too, and the start-up
+   * Marks the run ended for the workers (a shard still under way, e.g. a stalled copy, stops and removes what it
+   * publishes later) and removes its upload and work objects. For a run that did not finish, its waiting jobs
+   * also leave the queue and its sample's objects go. Each step stands alone: a store that refuses writes may refuse removals too, and the start-up
    * sweep removes what is left.
    */
   private async retire(run: Run, finished: boolean): Promise<void> {
     const step = (what: string, work: () => Promise<unknown>) => work().catch((error) => logFailure(`sample ${run.sampleId}: ${what}`, error));
+    await step('marking the run ended', () => this.connection.set(cancelKey(run), '1', 'EX', CANCEL_MARK_SECONDS));
     if (!finished) {
-      await step('marking the run ended', () => this.connection.set(cancelKey(run), '1', 'EX', CANCEL_MARK_SECONDS));
       await step('removing its waiting jobs', async () => {
         const waiting = await this.queue.getJobs(['waiting', 'delayed', 'waiting-children', 'prioritized']);
         const ours = waiting.filter((job) => job.id?.startsWith(`${runName(run)}-`));

@@ -39,6 +39,8 @@ export interface MergeJobData extends RunRef {
 
 export interface ShardResult {
   index: number;
+  /** Where this shard's columns were published. */
+  prefix: string;
   counts: SampleCounts;
   input: SampleInput;
 }
@@ -64,7 +66,7 @@ export const jobIds = {
 /** How long finished jobs stay in Redis: failed ones are shown on the admin page. */
 export const KEEP_JOBS = { removeOnComplete: { age: 3600 }, removeOnFail: { age: 7 * 24 * 3600 } };
 
-/** Set when a run is cancelled; workers look for it while they work. */
+/** Set when a run has ended (done, failed or cancelled); workers look for it while they work and after publishing. */
 export function cancelKey(ref: RunRef): string {
   return `splitfield:cancelled:${runName(ref)}`;
 }

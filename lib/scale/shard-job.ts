@@ -152,10 +152,12 @@ async function shard(job: Job<ShardJobData>, context: WorkerContext): Promise<Sh
           );
         },
       });
-      const prefix = `${workPrefix(data.sampleId, data.attempt)}shard-${data.index}/`;
+      // Each run of a shard writes its own copy: a copy still running after its lock ran out (a stall) never
+      // overwrites what the merge reads, which is exactly the copy whose completion the queue recorded.
+      const prefix = `${workPrefix(data.sampleId, data.attempt)}shard-${data.index}-${randomUUID()}/`;
       await publishColumnFolder(context.store, columns, prefix);
       await dropIfEnded(context, data, prefix);
-      return { index: data.index, counts, input: input! };
+      return { index: data.index, prefix, counts, input: input! };
     } catch (error) {
       if (error instanceof IngestAbortError || cancel.signal.aborted) throw final({ code: 'cancelled', message: 'cancelled', line: null });
       if (error instanceof IngestError) throw final(jobErrorReport(error));
@@ -177,7 +179,7 @@ async function merge(job: Job<MergeJobData>, context: WorkerContext): Promise<Me
   const work = workPrefix(data.sampleId, data.attempt);
   return withScratch(context, async (dir) => {
     const parts = results.map((result) => path.join(dir, `shard-${result.index}`));
-    await Promise.all(parts.map((part, k) => fetchColumnFolder(context.store, `${work}shard-${k}/`, part)));
+    await Promise.all(parts.map((part, k) => fetchColumnFolder(context.store, results[k].prefix, part)));
     const merged = path.join(dir, 'merged');
     await mergeColumnFolders(parts, merged);
     const planes = await planesFromColumns(await ColumnReader.open(merged), data.settings.jet.R);
