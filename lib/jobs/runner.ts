@@ -30,7 +30,7 @@ import type { Sample } from '@/models/sample';
 import { sampleError, type JobErrorReport } from './failure';
 import type { JobControlMessage, JobWorkerInput, JobWorkerMessage } from './messages';
 import { progressView } from './progress';
-import { claimNextQueued, recordDone, recordEnded, recordInput, recordProgress, requeueInterrupted } from './sample-states';
+import { claimNextQueued, logStartUp, recordDone, recordEnded, recordInput, recordProgress, requeueInterrupted } from './sample-states';
 import { WakeLoop } from './wake-loop';
 
 /** Progress reaches the database at most this often per job. */
@@ -81,9 +81,7 @@ export class JobRunner implements ProcessingRunner {
     const unfinished = await requeueInterrupted((name) => uploads.has(name));
     const done = await db().models.Sample.findAll({ where: { state: 'done' }, attributes: ['id', 'tablesId'] });
     const removed = await sweepUnowned(this.storage, unfinished.waitingUploads, new Set(done.map(tablesFolderOf)));
-    if (unfinished.requeued.length > 0) console.log(`[jobs] requeued interrupted samples ${unfinished.requeued.join(', ')}`);
-    if (unfinished.abandoned.length > 0) console.log(`[jobs] marked failed: samples ${unfinished.abandoned.join(', ')}`);
-    if (removed.length > 0) console.log(`[jobs] removed ${removed.length} unowned file(s) from storage: ${removed.join(', ')}`);
+    logStartUp('jobs', unfinished, removed);
     setInterval(() => this.wake(), POLL_MS).unref();
     this.wake();
   }

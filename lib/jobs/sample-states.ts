@@ -133,6 +133,13 @@ export interface UnfinishedAtStart {
   waitingUploads: Set<string>;
 }
 
+/** What a runner's start changed, in the server's log (`tag`: the runner's). */
+export function logStartUp(tag: string, unfinished: UnfinishedAtStart, removed: string[]): void {
+  if (unfinished.requeued.length > 0) console.log(`[${tag}] requeued interrupted samples ${unfinished.requeued.join(', ')}`);
+  if (unfinished.abandoned.length > 0) console.log(`[${tag}] marked failed: samples ${unfinished.abandoned.join(', ')}`);
+  if (removed.length > 0) console.log(`[${tag}] removed ${removed.length} unowned file(s) from storage: ${removed.join(', ')}`);
+}
+
 /**
  * At start no job runs, so a sample marked running was cut short by a stop of the server: it goes back to the
  * queue (from the start of its file), unless that happened MAX_ATTEMPTS times or its upload is missing.
