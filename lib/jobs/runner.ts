@@ -30,8 +30,8 @@ import type { Sample } from '@/models/sample';
 import { sampleError, type JobErrorReport } from './failure';
 import type { JobControlMessage, JobWorkerInput, JobWorkerMessage } from './messages';
 import { progressView } from './progress';
-import { claimNextQueued, logStartUp, recordDone, recordEnded, recordInput, recordProgress, requeueInterrupted } from './sample-states';
-import { WakeLoop } from './wake-loop';
+import { logStartUp, recordDone, recordEnded, recordInput, recordProgress, requeueInterrupted } from './sample-states';
+import { claimWhileRoom, WakeLoop } from './wake-loop';
 
 /** Progress reaches the database at most this often per job. */
 const PROGRESS_WRITE_MS = 1000;
@@ -82,8 +82,7 @@ export class JobRunner implements ProcessingRunner {
     const done = await db().models.Sample.findAll({ where: { state: 'done' }, attributes: ['id', 'tablesId'] });
     const removed = await sweepUnowned(this.storage, unfinished.waitingUploads, new Set(done.map(tablesFolderOf)));
     logStartUp('jobs', unfinished, removed);
-    setInterval(() => this.wake(), POLL_MS).unref();
-    this.wake();
+    this.filling.start(POLL_MS);
   }
 
   /** Looks for queued samples now (after an upload). */
@@ -91,12 +90,8 @@ export class JobRunner implements ProcessingRunner {
     this.filling.wake();
   }
 
-  private async fill(): Promise<void> {
-    while (this.running.size < this.config.maxJobs) {
-      const sample = await claimNextQueued();
-      if (!sample) return;
-      await this.launch(sample);
-    }
+  private fill(): Promise<void> {
+    return claimWhileRoom(() => this.running.size < this.config.maxJobs, (sample) => this.launch(sample));
   }
 
   /**

@@ -10,7 +10,7 @@ import { db } from '@/lib/db/connection';
 import type { PipelineProgress } from '@/lib/ingest/pipeline/sink';
 import { sampleError, type JobErrorReport } from '@/lib/jobs/failure';
 import { progressView } from '@/lib/jobs/progress';
-import { claimNextQueued, logStartUp, recordDone, recordEnded, recordInput, recordProgress, requeueInterrupted } from '@/lib/jobs/sample-states';
+import { logStartUp, recordDone, recordEnded, recordInput, recordProgress, requeueInterrupted } from '@/lib/jobs/sample-states';
 import { uploadKey, workPrefix } from '@/lib/objects/keys';
 import { objectStore } from '@/lib/objects/config';
 import { type ObjectStore, removePrefix } from '@/lib/objects/object-store';
@@ -33,7 +33,7 @@ import {
   type RunRef,
   runName,
 } from './queue';
-import { WakeLoop } from '@/lib/jobs/wake-loop';
+import { claimWhileRoom, WakeLoop } from '@/lib/jobs/wake-loop';
 
 /** How often running samples are looked at in the queue. */
 const FOLLOW_MS = 1000;
@@ -97,27 +97,28 @@ export class QueueRunner {
     if (carryOn.size > 0) console.log(`[queue] following samples still in the queue: ${[...carryOn].join(', ')}`);
     logStartUp('queue', unfinished, removed);
     setInterval(() => this.follow(), FOLLOW_MS).unref();
-    setInterval(() => this.wake(), POLL_MS).unref();
-    this.wake();
+    this.filling.start(POLL_MS);
   }
 
   wake(): void {
     this.filling.wake();
   }
 
-  private async fill(): Promise<void> {
-    while (this.running.size < this.config.maxJobs) {
-      const sample = await claimNextQueued();
-      if (!sample) return;
-      const run: Run = { sampleId: sample.id, attempt: sample.attempts, sample, startedAt: Date.now(), enqueued: false, concluding: false };
-      this.running.set(sample.id, run);
-      try {
-        await this.enqueue(run);
-        run.enqueued = true;
-      } catch (error) {
-        await this.conclude(run, { kind: 'failed', error: { code: 'internal', message: `the job could not be queued: ${(error as Error).message}`, line: null } });
-      }
-    }
+  private fill(): Promise<void> {
+    return claimWhileRoom(
+      () => this.running.size < this.config.maxJobs,
+      async (sample) => {
+        const run: Run = { sampleId: sample.id, attempt: sample.attempts, sample, startedAt: Date.now(), enqueued: false, concluding: false };
+        this.running.set(sample.id, run);
+        try {
+          await this.enqueue(run);
+          run.enqueued = true;
+        } catch (error) {
+          const message = `the job could not be queued: ${(error as Error).message}`;
+          await this.conclude(run, { kind: 'failed', error: { code: 'internal', message, line: null } });
+        }
+      },
+    );
   }
 
   private async enqueue(run: Run): Promise<void> {
