@@ -286,9 +286,10 @@ export class QueueRunner {
         failed: counts.failed ?? 0,
       },
       running: active.map((job) => ({ ...jobView(job), worker: job.processedBy ?? null, fraction: fractionOf(job) })),
-      // A merge fails when one of its shards did (BullMQ: "child <key> failed"): the shard's row says why.
+      // A merge fails when one of its shards did (BullMQ: "child <key> failed") and the other shards of that run
+      // are stopped (cancelled): only the shard that failed is listed, with why.
       failed: failed
-        .filter((job) => !/^child \S+ failed$/.test(job.failedReason ?? ''))
+        .filter((job) => !/^child \S+ failed$/.test(job.failedReason ?? '') && reportOfReason(job.failedReason).code !== 'cancelled')
         .map((job) => ({ ...jobView(job), reason: reportOfReason(job.failedReason).message })),
     };
   }

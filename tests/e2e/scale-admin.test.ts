@@ -50,7 +50,7 @@ describe('admin processing page, scaled mode', () => {
     const failed = page.getByRole('region', { name: 'Failed shards' });
     await failed.getByText(/"weight" must be a finite number|weight/).first().waitFor({ timeout: 10_000 });
     await failed.getByRole('link', { name: `sample ${bad.body.sample.id}` }).waitFor();
-    await waitForSample(admin, big.body.sample.id, isFinished, 'the end of its job');
+    expect((await waitForSample(admin, big.body.sample.id, isFinished, 'the end of its job')).state).toBe('done');
     await screenshot(page, 'scale-admin-failed', 1280);
     await screenshot(page, 'scale-admin-narrow', 390);
   });
