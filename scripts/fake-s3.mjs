@@ -1,7 +1,8 @@
 #!/usr/bin/env node
 // A local S3-compatible server for development and tests (s3rver, from the npm registry): serves a folder on
 // 127.0.0.1, creates the bucket, and prints one JSON line {endpoint, bucket} once it listens.
-// Usage: node scripts/fake-s3.mjs [--port N] [--dir FOLDER] [--bucket NAME]
+// Usage: node --openssl-legacy-provider scripts/fake-s3.mjs [--port N] [--dir FOLDER] [--bucket NAME]
+// (s3rver makes the continuation tokens of long listings with a cipher that OpenSSL 3 keeps in its legacy provider.)
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { parseArgs } from 'node:util';

@@ -72,7 +72,7 @@ export class S3ObjectStore implements ObjectStore {
       return answer.Body as Readable;
     } catch (error) {
       if (isMissing(error)) throw new ObjectMissingError(key);
-      throw error;
+      throw new Error(`cannot read ${key} from ${this.description}: ${(error as Error).message}`, { cause: error });
     }
   }
 
@@ -88,14 +88,19 @@ export class S3ObjectStore implements ObjectStore {
 
   async list(prefix: string): Promise<string[]> {
     const keys: string[] = [];
-    let token: string | undefined;
-    do {
-      const page = await this.client.send(
-        new ListObjectsV2Command({ Bucket: this.settings.bucket, Prefix: this.settings.prefix + prefix, ContinuationToken: token }),
-      );
-      for (const object of page.Contents ?? []) keys.push(object.Key!.slice(this.settings.prefix.length));
-      token = page.IsTruncated ? page.NextContinuationToken : undefined;
-    } while (token);
+    // Pages continue after the last key seen (StartAfter): every S3-compatible server reads it alike.
+    let after: string | undefined;
+    for (;;) {
+      const page = await this.client
+        .send(new ListObjectsV2Command({ Bucket: this.settings.bucket, Prefix: this.settings.prefix + prefix, StartAfter: after }))
+        .catch((error: Error) => {
+          throw new Error(`cannot list ${prefix} in ${this.description}: ${error.message}`, { cause: error });
+        });
+      const found = (page.Contents ?? []).map((object) => object.Key!);
+      keys.push(...found.map((key) => key.slice(this.settings.prefix.length)));
+      if (!page.IsTruncated || found.length === 0) break;
+      after = found[found.length - 1];
+    }
     return keys.sort();
   }
 

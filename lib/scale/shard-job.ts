@@ -179,7 +179,8 @@ async function merge(job: Job<MergeJobData>, context: WorkerContext): Promise<Me
   const work = workPrefix(data.sampleId, data.attempt);
   return withScratch(context, async (dir) => {
     const parts = results.map((result) => path.join(dir, `shard-${result.index}`));
-    await Promise.all(parts.map((part, k) => fetchColumnFolder(context.store, results[k].prefix, part)));
+    // One shard at a time (each fetches a few files at once): hundreds of requests at once overwhelm small servers.
+    for (let k = 0; k < parts.length; k++) await fetchColumnFolder(context.store, results[k].prefix, parts[k]);
     const merged = path.join(dir, 'merged');
     await mergeColumnFolders(parts, merged);
     const planes = await planesFromColumns(await ColumnReader.open(merged), data.settings.jet.R);

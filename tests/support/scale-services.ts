@@ -44,7 +44,8 @@ export interface FakeS3 extends Service {
 
 export async function startFakeS3(bucket = 'splitfield-test'): Promise<FakeS3> {
   const dir = mkdtempSync(path.join(os.tmpdir(), 'splitfield-s3-'));
-  const child = spawn(process.execPath, [path.join(repoRoot, 'scripts/fake-s3.mjs'), '--dir', dir, '--bucket', bucket], {
+  // s3rver makes listing continuation tokens with a cipher OpenSSL 3 keeps in its legacy provider.
+  const child = spawn(process.execPath, ['--openssl-legacy-provider', path.join(repoRoot, 'scripts/fake-s3.mjs'), '--dir', dir, '--bucket', bucket], {
     stdio: ['ignore', 'pipe', 'inherit'],
   });
   const { endpoint } = JSON.parse(await firstLine(child, 'the fake S3 server')) as { endpoint: string };

@@ -84,3 +84,14 @@ describe('S3 settings from the environment', () => {
     expect(() => readS3Settings({ SPLITFIELD_S3_BUCKET: 'bucket', SPLITFIELD_S3_PREFIX: 'no-slash' })).toThrow(/SPLITFIELD_S3_PREFIX/);
   });
 });
+
+describe('S3 listing', () => {
+  it('lists past one page of 1000 keys', async () => {
+    const store = new S3ObjectStore(readS3Settings({ ...fake.env, SPLITFIELD_S3_PREFIX: `many${Date.now()}/` })!);
+    const keys = Array.from({ length: 1203 }, (_, k) => `work/1-1/shard-${String(k).padStart(4, '0')}`);
+    for (let at = 0; at < keys.length; at += 50) await Promise.all(keys.slice(at, at + 50).map((key) => store.put(key, 'x')));
+    expect(await store.list('work/1-1/')).toEqual(keys);
+    await removePrefix(store, 'work/');
+    expect(await store.list('work/')).toEqual([]);
+  });
+});
