@@ -36,7 +36,8 @@ function SampleLink({ id }: { id: number | null }) {
 function RunningJobs({ jobs }: { jobs: ProcessingOverview['running'] }) {
   if (jobs.length === 0) return <p className="text-sm text-ink-soft">No job is running.</p>;
   return (
-    <table className="w-full text-sm">
+    <div className="overflow-x-auto">
+    <table className="w-full whitespace-nowrap text-sm [&_td]:pr-4 [&_th]:pr-4">
       <thead className="text-left text-xs uppercase tracking-wider text-ink-soft">
         <tr>
           <th className="py-1 font-medium">Sample</th>
@@ -60,6 +61,7 @@ function RunningJobs({ jobs }: { jobs: ProcessingOverview['running'] }) {
         ))}
       </tbody>
     </table>
+    </div>
   );
 }
 
@@ -106,7 +108,7 @@ export function ProcessingView() {
             <Count label={data.mode === 'queue' ? 'Jobs waiting' : 'Samples queued'} value={data.counts.waiting} />
             <Count label="Running" value={data.counts.running} />
             <Count label="Waiting to retry" value={data.counts.delayed} />
-            <Count label="Failed" value={data.counts.failed} tone="danger" />
+            <Count label="Failed jobs" value={data.counts.failed} tone="danger" />
           </div>
           <Panel title="Running jobs" className="mb-6">
             <RunningJobs jobs={data.running} />
