@@ -11,7 +11,7 @@ const API_CONTENT_SECURITY_POLICY = "default-src 'none'; frame-ancestors 'none'"
 /** @type {import('next').NextConfig} */
 const nextConfig = {
   // Sequelize and sqlite3 load native code and dynamic requires that the bundler cannot follow.
-  serverExternalPackages: ['sequelize', 'sqlite3', 'piscina', 'multer', 'nodemailer', 'smtp-server', 'mailparser', 'rate-limiter-flexible'],
+  serverExternalPackages: ['sequelize', 'sqlite3', 'piscina', 'multer', 'nodemailer', 'smtp-server', 'mailparser', 'rate-limiter-flexible', 'bullmq', 'ioredis', '@aws-sdk/client-s3', '@aws-sdk/lib-storage'],
   poweredByHeader: false,
   // Separate build folders let several builds (tests, a developer's server) coexist.
   distDir: process.env.NEXT_DIST_DIR || '.next',

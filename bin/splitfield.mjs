@@ -2,6 +2,7 @@
 // The `splitfield` command. It runs the engine bundle in dist/engine/ directly (no npm, no bundler at start),
 // building it first only when it is missing or older than one of the sources it was built from.
 //   splitfield decluster INPUT [options]     (splitfield decluster --help)
+//   splitfield worker [options]              (splitfield worker --help)
 import { spawnSync } from 'node:child_process';
 import { readFileSync, statSync } from 'node:fs';
 import { createRequire } from 'node:module';
@@ -13,6 +14,7 @@ const engine = path.join(root, 'dist/engine');
 
 const COMMANDS = {
   decluster: { bundle: 'cli.js', summary: 'cluster and decluster the jets of a particle file; write the declusterings' },
+  worker: { bundle: 'queue-worker.js', summary: 'work on the processing jobs of the scaled mode (Redis queue, object store)' },
 };
 
 const USAGE = `Usage: splitfield COMMAND [options]

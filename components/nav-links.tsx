@@ -16,6 +16,7 @@ const items: NavItem[] = [
   { href: '/profile', label: 'Profile' },
   { href: '/admin/users', label: 'Users', adminOnly: true },
   { href: '/admin/mail', label: 'Outbox', adminOnly: true },
+  { href: '/admin/processing', label: 'Processing', adminOnly: true },
 ];
 
 /** The main navigation; the admin section appears for site admins only. */

@@ -24,6 +24,15 @@ const environmentSchema = z.object({
     .optional(),
 });
 
+/** A variable holding a whole number of at least `minimum`. */
+export const wholeNumberVariable = (minimum: number) =>
+  z
+    .string()
+    .trim()
+    .regex(/^\d+$/, 'must be a whole number')
+    .transform(Number)
+    .refine((value) => Number.isSafeInteger(value) && value >= minimum, `must be at least ${minimum}`);
+
 /** The environment checked against `schema`; throws naming each variable that is wrong. */
 export function checkedEnvironment<T>(schema: z.ZodType<T>, env: Environment): T {
   const parsed = schema.safeParse(env);

@@ -22,7 +22,7 @@ import {
 
 export const COLUMNS_FORMAT = 'splitfield-columns';
 export const COLUMNS_VERSION = 1;
-const MANIFEST_FILE = 'manifest.json';
+export const MANIFEST_FILE = 'manifest.json';
 
 export type ColumnType = 'float64' | 'int32';
 type ColumnArray<T extends ColumnType> = T extends 'int32' ? Int32Array : Float64Array;
@@ -105,10 +105,10 @@ export interface RecordKey {
 }
 
 const BYTES_PER_VALUE: Record<ColumnType, number> = { float64: 8, int32: 4 };
-const RECORD_OFFSETS_FILE = 'records.offsets.i32';
-const RECORD_IDS_FILE = 'records.ids.utf8';
+export const RECORD_OFFSETS_FILE = 'records.offsets.i32';
+export const RECORD_IDS_FILE = 'records.ids.utf8';
 
-function columnFile(table: TableName, name: string, type: ColumnType): string {
+export function columnFile(table: TableName, name: string, type: ColumnType): string {
   return `${table}.${name}.${type === 'int32' ? 'i32' : 'f64'}`;
 }
 
@@ -168,7 +168,7 @@ export class ColumnWriter {
   private recordIds!: OpenColumn;
   /** Every column whose file is open, in opening order. */
   private readonly opened: OpenColumn[] = [];
-  private rows = { records: 0, recordBytes: 0, jets: 0, splittings: 0 };
+  private rows: ColumnRows = { records: 0, recordBytes: 0, jets: 0, splittings: 0 };
   private readonly encoder = new TextEncoder();
 
   private constructor(
@@ -309,17 +309,10 @@ export class ColumnWriter {
   /** Writes the manifest and renames the staging directory into place; on failure nothing is left behind. */
   async commit(): Promise<ColumnManifest> {
     this.requireOpen('commit');
-    const manifest: ColumnManifest = {
-      format: COLUMNS_FORMAT,
-      version: COLUMNS_VERSION,
-      tree: this.tree,
-      records: { rows: this.rows.records, bytes: this.rows.recordBytes },
-      jets: { rows: this.rows.jets, columns: describe(JET_COLUMNS) },
-      splittings: { rows: this.rows.splittings, columns: describe(SPLITTING_COLUMNS) },
-    };
+    const manifest = columnManifest(this.tree, this.rows);
     try {
       await this.closeFiles(true);
-      await writeFile(path.join(this.staging, MANIFEST_FILE), JSON.stringify(manifest, null, 1));
+      await writeFile(path.join(this.staging, MANIFEST_FILE), manifestText(manifest));
       if (await exists(this.target)) throw new Error(`column store ${this.target} appeared while writing; not replacing it`);
       await rename(this.staging, this.target);
     } catch (error) {
@@ -341,6 +334,31 @@ export class ColumnWriter {
       await rm(this.staging, { recursive: true, force: true });
     }
   }
+}
+
+/** Row counts of a column set. */
+export interface ColumnRows {
+  records: number;
+  recordBytes: number;
+  jets: number;
+  splittings: number;
+}
+
+/** The manifest of a column set of the current version. */
+export function columnManifest(tree: StoredTree, rows: ColumnRows): ColumnManifest {
+  return {
+    format: COLUMNS_FORMAT,
+    version: COLUMNS_VERSION,
+    tree,
+    records: { rows: rows.records, bytes: rows.recordBytes },
+    jets: { rows: rows.jets, columns: describe(JET_COLUMNS) },
+    splittings: { rows: rows.splittings, columns: describe(SPLITTING_COLUMNS) },
+  };
+}
+
+/** The manifest file's text (byte for byte what every writer writes). */
+export function manifestText(manifest: ColumnManifest): string {
+  return JSON.stringify(manifest, null, 1);
 }
 
 /** A jet's energy and polar angle: the e+e- engine's, or from pt, y and m. */

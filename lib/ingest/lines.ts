@@ -86,6 +86,12 @@ export class LineSource {
     return undefined;
   }
 
+  /** Numbers the lines from here on as if the text so far had `line` − 1 lines (a shard's part of a longer file). */
+  continueAtLine(line: number): void {
+    this.produced += line - 1 - this.lineNo;
+    this.lineNo = line - 1;
+  }
+
   /** Puts the last taken line back. */
   untake(): void {
     this.pos--;

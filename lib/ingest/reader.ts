@@ -14,7 +14,8 @@ import type { ParticleReader, ReaderOptions } from './types';
 
 export type { ParticleReader, ParticleRecord, ReaderOptions } from './types';
 
-async function openFromSource(src: LineSource, opts: ReaderOptions): Promise<ParticleReader> {
+/** Opens the reader of a line source's format (its first lines: the header). */
+export async function openFromSource(src: LineSource, opts: ReaderOptions): Promise<ParticleReader> {
   try {
     let first: string | null;
     do {

@@ -1,5 +1,6 @@
 // A failed job's first error as the sample keeps it: the engine's message (which names the line), and what it
 // means for the person who uploaded the file, in plain words.
+import { IngestError } from '@/lib/ingest/errors';
 import type { SampleError } from '@/models/sample-fields';
 
 /** What crosses from the job's worker thread: an IngestError's code, message and line, or any other error's text. */
@@ -7,6 +8,12 @@ export interface JobErrorReport {
   code: string;
   message: string;
   line: number | null;
+}
+
+/** An error of a processing run as it crosses to the server. */
+export function jobErrorReport(error: unknown): JobErrorReport {
+  if (error instanceof IngestError) return { code: error.code, message: error.message, line: error.line };
+  return { code: 'internal', message: error instanceof Error ? error.message : String(error), line: null };
 }
 
 const EXPLANATIONS: Record<string, string> = {

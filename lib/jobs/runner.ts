@@ -9,7 +9,9 @@ import { Worker } from 'node:worker_threads';
 import { db } from '@/lib/db/connection';
 import type { PipelineProgress } from '@/lib/ingest/pipeline/sink';
 import { readSampleConfig, type SampleConfig } from '@/lib/samples/config';
+import { publishColumnFolder } from '@/lib/samples/column-files';
 import {
+  cachedSampleDir,
   removeSampleFiles,
   removeUpload,
   sampleDir,
@@ -18,12 +20,18 @@ import {
   uploadPath,
   type SampleStorage,
 } from '@/lib/samples/storage';
+import { fetchUpload, storedUploadNames } from '@/lib/samples/upload-files';
+import { samplePrefix } from '@/lib/objects/keys';
 import { tablesFolderOf } from '@/lib/samples/sharing';
+import { readQueueSettings } from '@/lib/scale/config';
+import type { ProcessingOverview } from '@/lib/scale/overview';
+import { QueueRunner } from '@/lib/scale/queue-runner';
 import type { Sample } from '@/models/sample';
 import { sampleError, type JobErrorReport } from './failure';
 import type { JobControlMessage, JobWorkerInput, JobWorkerMessage } from './messages';
 import { progressView } from './progress';
-import { claimNextQueued, recordDone, recordEnded, recordInput, recordProgress, requeueInterrupted } from './sample-states';
+import { logStartUp, recordDone, recordEnded, recordInput, recordProgress, requeueInterrupted } from './sample-states';
+import { claimWhileRoom, WakeLoop } from './wake-loop';
 
 /** Progress reaches the database at most this often per job. */
 const PROGRESS_WRITE_MS = 1000;
@@ -52,10 +60,12 @@ function logFailure(what: string, error: unknown): void {
   console.error(`[jobs] ${what}:`, error);
 }
 
-export class JobRunner {
+export class JobRunner implements ProcessingRunner {
   private readonly running = new Map<number, RunningJob>();
-  private filling: Promise<void> | null = null;
-  private fillAgain = false;
+  private readonly filling = new WakeLoop(
+    () => this.fill(),
+    (error) => logFailure('cannot start queued jobs', error),
+  );
 
   constructor(
     private readonly config: SampleConfig,
@@ -67,39 +77,21 @@ export class JobRunner {
   async start(): Promise<void> {
     await mkdir(this.storage.uploadsDir, { recursive: true });
     await mkdir(this.storage.samplesDir, { recursive: true });
-    const unfinished = await requeueInterrupted((name) => existsSync(uploadPath(this.storage, name)));
+    const uploads = await storedUploadNames(this.storage);
+    const unfinished = await requeueInterrupted((name) => uploads.has(name));
     const done = await db().models.Sample.findAll({ where: { state: 'done' }, attributes: ['id', 'tablesId'] });
     const removed = await sweepUnowned(this.storage, unfinished.waitingUploads, new Set(done.map(tablesFolderOf)));
-    if (unfinished.requeued.length > 0) console.log(`[jobs] requeued interrupted samples ${unfinished.requeued.join(', ')}`);
-    if (unfinished.abandoned.length > 0) console.log(`[jobs] marked failed: samples ${unfinished.abandoned.join(', ')}`);
-    if (removed.length > 0) console.log(`[jobs] removed ${removed.length} unowned file(s) from storage: ${removed.join(', ')}`);
-    setInterval(() => this.wake(), POLL_MS).unref();
-    this.wake();
+    logStartUp('jobs', unfinished, removed);
+    this.filling.start(POLL_MS);
   }
 
   /** Looks for queued samples now (after an upload). */
   wake(): void {
-    if (this.filling) {
-      this.fillAgain = true;
-      return;
-    }
-    this.filling = this.fill()
-      .catch((error) => logFailure('cannot start queued jobs', error))
-      .finally(() => {
-        this.filling = null;
-        if (this.fillAgain) {
-          this.fillAgain = false;
-          this.wake();
-        }
-      });
+    this.filling.wake();
   }
 
-  private async fill(): Promise<void> {
-    while (this.running.size < this.config.maxJobs) {
-      const sample = await claimNextQueued();
-      if (!sample) return;
-      this.launch(sample);
-    }
+  private fill(): Promise<void> {
+    return claimWhileRoom(() => this.running.size < this.config.maxJobs, (sample) => this.launch(sample));
   }
 
   /**
@@ -115,6 +107,22 @@ export class JobRunner {
     if (late) await this.stop(late);
   }
 
+  async overview(): Promise<ProcessingOverview> {
+    const waiting = await db().models.Sample.count({ where: { state: 'queued' } });
+    const running = [...this.running.values()].map(({ sample }) => ({
+      id: `sample-${sample.id}`,
+      kind: 'sample',
+      sampleId: sample.id,
+      shard: null,
+      attempts: sample.attempts,
+      startedAt: sample.startedAt?.toISOString() ?? null,
+      worker: 'this server',
+      fraction: null,
+    }));
+    const store = this.storage.remote?.description ?? path.dirname(this.storage.uploadsDir);
+    return { mode: 'embedded', store, counts: { waiting, running: running.length, delayed: 0, failed: 0 }, running, failed: [] };
+  }
+
   private async stop(job: RunningJob): Promise<void> {
     job.cancelRequested = true;
     job.worker.postMessage({ type: 'cancel' } satisfies JobControlMessage);
@@ -123,14 +131,31 @@ export class JobRunner {
     clearTimeout(force);
   }
 
-  private launch(sample: Sample): void {
+  /**
+   * Starts the sample's worker. With a bucket, the upload is fetched first and the columns are committed into the
+   * cache folder, from which conclude() publishes them.
+   */
+  private async launch(sample: Sample): Promise<void> {
+    const remote = this.storage.remote;
     const input: JobWorkerInput = {
       uploadPath: uploadPath(this.storage, sample.uploadFile ?? ''),
-      sampleDir: sampleDir(this.storage, sample.id),
+      sampleDir: remote ? cachedSampleDir(this.storage, sample.id) : sampleDir(this.storage, sample.id),
       settings: sample.settings,
       threads: this.config.jobThreads,
       limits: { maxRecords: this.config.maxRecords, maxTextBytes: this.config.maxDecompressedBytes },
     };
+    if (remote) {
+      const unreadable = await fetchUpload(this.storage, sample.uploadFile ?? '').then(
+        () => null,
+        (error: Error) => error,
+      );
+      if (unreadable) {
+        const message = `the uploaded file cannot be read from ${remote.description}: ${unreadable.message}`;
+        const ending: Ending = { type: 'failed', error: { code: 'internal', message, line: null } };
+        await this.conclude(sample, performance.now(), ending).catch((error) => logFailure(`sample ${sample.id}: recording the outcome`, error));
+        return;
+      }
+    }
     const worker = new Worker(this.workerFile, { workerData: input });
     const job: RunningJob = { sample, launchedAt: performance.now(), worker, cancelRequested: false, finished: Promise.resolve() };
     let ending: Ending | null = null;
@@ -154,7 +179,7 @@ export class JobRunner {
     });
     job.finished = new Promise<void>((resolve) => {
       worker.once('exit', (exitCode) => {
-        this.conclude(job, ending ?? this.unexplainedEnd(job, crash, exitCode))
+        this.conclude(sample, job.launchedAt, ending ?? this.unexplainedEnd(job, crash, exitCode))
           .catch((error) => logFailure(`sample ${sample.id}: recording the outcome`, error))
           .finally(() => {
             this.running.delete(sample.id);
@@ -180,13 +205,13 @@ export class JobRunner {
     return { type: 'failed', error: { code: 'internal', message, line: null } satisfies JobErrorReport };
   }
 
-  private async conclude(job: RunningJob, ending: Ending): Promise<void> {
-    const { sample } = job;
-    const processingMs = Math.round(performance.now() - job.launchedAt);
+  private async conclude(sample: Sample, launchedAt: number, ending: Ending): Promise<void> {
+    const processingMs = Math.round(performance.now() - launchedAt);
     try {
       if (ending.type === 'done') {
         const { counts, planes } = ending;
         const progress = this.progressOf(sample, ending.progress);
+        if (this.storage.remote) await publishColumnFolder(this.storage.remote, cachedSampleDir(this.storage, sample.id), samplePrefix(sample.id));
         if (!(await recordDone(sample.id, { counts, planes, progress, processingMs }))) {
           await removeSampleFiles(this.storage, sample.id);
         }
@@ -206,17 +231,28 @@ export class JobRunner {
   }
 }
 
+/** What the rest of the server asks of the runner, in either mode. */
+export interface ProcessingRunner {
+  /** Looks for queued samples now (after an upload). */
+  wake(): void;
+  /** Stops the sample's job or takes it out of the queue; resolves once it is recorded and cleaned up. */
+  cancel(sample: Sample): Promise<void>;
+  /** The admin page's view of the processing. */
+  overview(): Promise<ProcessingOverview>;
+}
+
 const processWideKey = Symbol.for('splitfield.jobRunner');
-type ProcessWide = typeof globalThis & { [processWideKey]?: Promise<JobRunner> };
+type ProcessWide = typeof globalThis & { [processWideKey]?: Promise<ProcessingRunner> };
 
 /**
- * The process's job runner, started on first use (instrumentation.ts uses it at server start). Kept on globalThis
+ * The process's job runner (the queue's with SPLITFIELD_REDIS_URL, else worker threads here), started on first use (instrumentation.ts uses it at server start). Kept on globalThis
  * because the bundler may load this module once per route bundle.
  */
-export function jobRunner(): Promise<JobRunner> {
+export function jobRunner(): Promise<ProcessingRunner> {
   const holder = globalThis as ProcessWide;
   holder[processWideKey] ??= (async () => {
-    const runner = new JobRunner(readSampleConfig(), sampleStorage(), jobWorkerFile());
+    const queue = readQueueSettings();
+    const runner = queue ? new QueueRunner(readSampleConfig(), sampleStorage(), queue) : new JobRunner(readSampleConfig(), sampleStorage(), jobWorkerFile());
     await runner.start();
     return runner;
   })().catch((error: unknown) => {

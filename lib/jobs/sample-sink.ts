@@ -8,6 +8,14 @@ import { defaultGrid, PlaneHistogram } from '@/lib/physics/density';
 import type { ProcessSettings, RecordResult } from '@/lib/physics/types';
 import type { FinishedPlane } from './messages';
 
+/** The fine primary-plane histograms a sample keeps, in both horizontal coordinates. */
+export function samplePlanes(R: number): Array<[FinishedPlane['horizontal'], PlaneHistogram]> {
+  return [
+    ['lnInvDelta', new PlaneHistogram(defaultGrid('lnInvDelta'))],
+    ['lnRoverDelta', new PlaneHistogram(defaultGrid('lnRoverDelta', R))],
+  ];
+}
+
 export class SampleSink implements ResultSink {
   private columns: ColumnWriter | null = null;
   private planes: Array<[FinishedPlane['horizontal'], PlaneHistogram]> = [];
@@ -22,10 +30,7 @@ export class SampleSink implements ResultSink {
 
   async begin(header: IngestHeader, settings: ProcessSettings): Promise<void> {
     this.onBegin(header);
-    this.planes = [
-      ['lnInvDelta', new PlaneHistogram(defaultGrid('lnInvDelta'))],
-      ['lnRoverDelta', new PlaneHistogram(defaultGrid('lnRoverDelta', settings.jet.R))],
-    ];
+    this.planes = samplePlanes(settings.jet.R);
     this.columns = await ColumnWriter.create(this.sampleDir, { tree: settings.fullTree ? 'full' : 'primary' });
   }
 

@@ -136,16 +136,31 @@ export interface UnfinishedAtStart {
   waitingUploads: Set<string>;
 }
 
+/** What a runner's start changed, in the server's log (`tag`: the runner's). */
+export function logStartUp(tag: string, unfinished: UnfinishedAtStart, removed: string[]): void {
+  if (unfinished.requeued.length > 0) console.log(`[${tag}] requeued interrupted samples ${unfinished.requeued.join(', ')}`);
+  if (unfinished.abandoned.length > 0) console.log(`[${tag}] marked failed: samples ${unfinished.abandoned.join(', ')}`);
+  if (removed.length > 0) console.log(`[${tag}] removed ${removed.length} unowned file(s) from storage: ${removed.join(', ')}`);
+}
+
 /**
  * At start no job runs, so a sample marked running was cut short by a stop of the server: it goes back to the
  * queue (from the start of its file), unless that happened MAX_ATTEMPTS times or its upload is missing.
  */
-export async function requeueInterrupted(uploadExists: (fileName: string) => boolean): Promise<UnfinishedAtStart> {
+export async function requeueInterrupted(
+  uploadExists: (fileName: string) => boolean,
+  /** Running samples whose job carries on elsewhere (the scaled mode's queue): left running. */
+  carryOn: ReadonlySet<number> = new Set(),
+): Promise<UnfinishedAtStart> {
   const { models, write } = db();
   return write(async (transaction) => {
     const unfinished = await models.Sample.findAll({ where: { state: ['queued', 'running'] }, transaction });
     const result: UnfinishedAtStart = { requeued: [], abandoned: [], waitingUploads: new Set() };
     for (const sample of unfinished) {
+      if (carryOn.has(sample.id) && sample.state === 'running' && sample.uploadFile) {
+        result.waitingUploads.add(sample.uploadFile);
+        continue;
+      }
       const uploadKept = sample.uploadFile !== null && uploadExists(sample.uploadFile);
       const triesLeft = sample.state === 'queued' || sample.attempts < MAX_ATTEMPTS;
       if (!uploadKept || !triesLeft) {

@@ -1,9 +1,10 @@
 // A done sample's columns in memory for recomputed maps: each column is read from storage/samples/<id>/ on first
 // use and kept in a process-wide cache with a memory budget (SPLITFIELD_MAP_CACHE_MB, default 1536 MB), least
 // recently used first out. Coordinates other than the stored ln(1/Δ) and ln kt are derived once and kept too.
-import { ColumnReader, type JetColumnName, type SplittingColumnName } from '@/lib/ingest/columns';
+import { type ColumnReader, type JetColumnName, type SplittingColumnName } from '@/lib/ingest/columns';
 import { type AxisChoice, coordinate, inTree, type TreeChoice } from '@/lib/physics/plane/axes';
-import { sampleDir, sampleStorage } from '@/lib/samples/storage';
+import { openColumnFolder } from '@/lib/samples/column-files';
+import { sampleStorage } from '@/lib/samples/storage';
 import { Lru, processWide } from './lru';
 
 export type Column = Float64Array | Int32Array | Uint8Array;
@@ -49,7 +50,7 @@ export class SampleColumns {
   ) {}
 
   private reader(): Promise<ColumnReader> {
-    return ColumnReader.open(sampleDir(sampleStorage(), this.sampleId));
+    return openColumnFolder(sampleStorage(), this.sampleId);
   }
 
   /** Every record's id, in record order (read each time: only exports of per-jet values need them). */

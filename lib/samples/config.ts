@@ -1,7 +1,7 @@
 // Limits of uploads and processing jobs, read from the environment (README "Configuration").
 import { availableParallelism } from 'node:os';
 import { z } from 'zod';
-import { checkedEnvironment, type Environment } from '@/lib/config/environment';
+import { checkedEnvironment, type Environment, wholeNumberVariable } from '@/lib/config/environment';
 
 export interface SampleConfig {
   /** Largest upload accepted, bytes (SPLITFIELD_UPLOAD_MAX_BYTES, default 2 GiB). */
@@ -18,21 +18,13 @@ export interface SampleConfig {
   maxDecompressedBytes: number;
 }
 
-const wholeNumber = (minimum: number) =>
-  z
-    .string()
-    .trim()
-    .regex(/^\d+$/, 'must be a whole number')
-    .transform(Number)
-    .refine((value) => Number.isSafeInteger(value) && value >= minimum, `must be at least ${minimum}`);
-
 const environmentSchema = z.object({
-  SPLITFIELD_UPLOAD_MAX_BYTES: wholeNumber(1).optional(),
-  SPLITFIELD_MAX_JOBS: wholeNumber(1).optional(),
-  SPLITFIELD_JOB_THREADS: wholeNumber(1).optional(),
-  SPLITFIELD_MAX_JOBS_PER_USER: wholeNumber(1).optional(),
-  SPLITFIELD_MAX_RECORDS: wholeNumber(1).optional(),
-  SPLITFIELD_MAX_DECOMPRESSED_BYTES: wholeNumber(1).optional(),
+  SPLITFIELD_UPLOAD_MAX_BYTES: wholeNumberVariable(1).optional(),
+  SPLITFIELD_MAX_JOBS: wholeNumberVariable(1).optional(),
+  SPLITFIELD_JOB_THREADS: wholeNumberVariable(1).optional(),
+  SPLITFIELD_MAX_JOBS_PER_USER: wholeNumberVariable(1).optional(),
+  SPLITFIELD_MAX_RECORDS: wholeNumberVariable(1).optional(),
+  SPLITFIELD_MAX_DECOMPRESSED_BYTES: wholeNumberVariable(1).optional(),
 });
 
 export function readSampleConfig(env: Environment = process.env): SampleConfig {

@@ -1,9 +1,10 @@
-// What only a processed sample has: its columns on disk and its cached planes.
+// What only a processed sample has: its columns in the store and its cached planes.
 import { ApiError } from '@/lib/api/errors';
-import { ColumnReader } from '@/lib/ingest/columns';
+import type { ColumnReader } from '@/lib/ingest/columns';
 import type { Sample } from '@/models/sample';
 import { tablesFolderOf } from './sharing';
-import { sampleDir, sampleStorage } from './storage';
+import { openColumnFolder } from './column-files';
+import { sampleStorage } from './storage';
 
 /** 409 unless the sample is done. */
 export function requireDone(sample: Sample): void {
@@ -14,5 +15,5 @@ export function requireDone(sample: Sample): void {
 
 export async function openSampleColumns(sample: Sample): Promise<ColumnReader> {
   requireDone(sample);
-  return ColumnReader.open(sampleDir(sampleStorage(), tablesFolderOf(sample)));
+  return openColumnFolder(sampleStorage(), tablesFolderOf(sample));
 }

@@ -1,19 +1,20 @@
-// A multer storage engine that streams an uploaded file to storage/uploads/ under a generated name and computes
-// its SHA-256 and size on the way, so the file is never held in memory and never read twice.
+// A multer storage engine that streams an uploaded file to the store's uploads/ under a generated name (the local
+// folder, or the bucket) and computes its SHA-256 and size on the way, so the file is never held in memory and
+// never read twice.
 import { createHash } from 'node:crypto';
 import { createWriteStream } from 'node:fs';
-import { rm } from 'node:fs/promises';
-import path from 'node:path';
 import { Transform } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
 import type { Request } from 'express';
 import type { StorageEngine } from 'multer';
-import { newUploadFileName } from './storage';
+import { uploadKey } from '@/lib/objects/keys';
+import { newUploadFileName, removeUpload, type SampleStorage, uploadPath } from './storage';
 
 /** What the engine adds to multer's file object. */
 export interface StoredUploadInfo {
-  /** The generated name under the uploads folder. */
+  /** The generated name under uploads/. */
   storedName: string;
+  /** The file, or the object's key in the bucket. */
   path: string;
   size: number;
   sha256: string;
@@ -24,11 +25,11 @@ export class StorageWriteError extends Error {
   override name = 'StorageWriteError';
 }
 
-export class HashingDiskStorage implements StorageEngine {
-  /** Files this engine created for the request, kept until the caller takes them over. */
+export class HashingUploadStorage implements StorageEngine {
+  /** Upload names this engine created for the request, kept until the caller takes them over. */
   readonly created = new Set<string>();
 
-  constructor(private readonly dir: string) {}
+  constructor(private readonly storage: SampleStorage) {}
 
   _handleFile(
     _request: Request,
@@ -36,8 +37,7 @@ export class HashingDiskStorage implements StorageEngine {
     callback: (error?: unknown, info?: Partial<Express.Multer.File>) => void,
   ): void {
     const storedName = newUploadFileName();
-    const target = path.join(this.dir, storedName);
-    this.created.add(target);
+    this.created.add(storedName);
     const hash = createHash('sha256');
     let size = 0;
     const measure = new Transform({
@@ -47,24 +47,38 @@ export class HashingDiskStorage implements StorageEngine {
         done(null, chunk);
       },
     });
-    const out = createWriteStream(target, { flags: 'wx' });
-    let writeFailure: Error | null = null;
-    out.once('error', (error) => (writeFailure = new StorageWriteError(error.message, { cause: error })));
-    pipeline(file.stream, measure, out).then(
-      () => callback(null, { storedName, path: target, size, sha256: hash.digest('hex') } as StoredUploadInfo),
+    let clientFailure: unknown = null;
+    file.stream.once('error', (error) => (clientFailure = error));
+    this.store(file, measure, storedName).then(
+      (where) => callback(null, { storedName, path: where, size, sha256: hash.digest('hex') } as StoredUploadInfo),
       (error: unknown) => {
-        rm(target, { force: true }).finally(() => callback(writeFailure ?? error));
+        const failure = clientFailure ?? new StorageWriteError((error as Error).message, { cause: error });
+        removeUpload(this.storage, storedName).finally(() => callback(failure));
       },
     );
   }
 
-  _removeFile(_request: Request, file: Express.Multer.File, callback: (error: Error | null) => void): void {
-    rm(file.path, { force: true }).then(() => callback(null), callback);
+  /** Streams the file through `measure` to its place; resolves with the file or the object's key. */
+  private async store(file: Express.Multer.File, measure: Transform, storedName: string): Promise<string> {
+    const remote = this.storage.remote;
+    if (remote) {
+      const key = uploadKey(storedName);
+      file.stream.once('error', (error) => measure.destroy(error));
+      await remote.put(key, file.stream.pipe(measure));
+      return key;
+    }
+    const target = uploadPath(this.storage, storedName);
+    await pipeline(file.stream, measure, createWriteStream(target, { flags: 'wx' }));
+    return target;
+  }
+
+  _removeFile(_request: Request, file: Express.Multer.File & Partial<StoredUploadInfo>, callback: (error: Error | null) => void): void {
+    removeUpload(this.storage, file.storedName ?? null).then(() => callback(null), callback);
   }
 
   /** Removes every file this engine created (after a refused or broken upload). */
   async removeAll(): Promise<void> {
-    await Promise.all([...this.created].map((file) => rm(file, { force: true })));
+    await Promise.all([...this.created].map((name) => removeUpload(this.storage, name)));
     this.created.clear();
   }
 }

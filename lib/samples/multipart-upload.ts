@@ -1,12 +1,13 @@
 // Receives a multipart/form-data upload inside a route handler with multer: the Web request's body becomes a Node
-// stream, the one file streams to disk (HashingDiskStorage), text fields are collected. Whatever goes wrong, the
+// stream, the one file streams to the store (HashingUploadStorage), text fields are collected. Whatever goes wrong, the
 // partial file is removed before the error reaches the caller.
 import { Readable } from 'node:stream';
 import type { ReadableStream as NodeWebReadableStream } from 'node:stream/web';
 import multer from 'multer';
 import { ApiError, badRequest } from '@/lib/api/errors';
 import { sizeText } from '@/lib/ingest/lines';
-import { HashingDiskStorage, StorageWriteError, type StoredUploadInfo } from './hashing-storage';
+import { HashingUploadStorage, StorageWriteError, type StoredUploadInfo } from './hashing-storage';
+import type { SampleStorage } from './storage';
 
 export interface ReceivedFile extends StoredUploadInfo {
   /** The name the client gave the file. */
@@ -23,7 +24,7 @@ export interface ReceivedUpload {
 }
 
 export interface ReceiveOptions {
-  uploadsDir: string;
+  storage: SampleStorage;
   maxBytes: number;
   /** Name of the file field. */
   fileField: string;
@@ -97,12 +98,12 @@ function uploadError(error: unknown, options: ReceiveOptions): ApiError {
   return badRequest(`The multipart/form-data body is malformed: ${message}.`);
 }
 
-/** Streams the request's multipart body: the file to `uploadsDir`, the fields into memory (small, limited). */
+/** Streams the request's multipart body: the file to the store's uploads/, the fields into memory (small, limited). */
 export async function receiveUpload(request: Request, options: ReceiveOptions): Promise<ReceivedUpload> {
   if (!/^multipart\/form-data\b/i.test(request.headers.get('content-type') ?? '') || !request.body) {
     throw badRequest(`Send the upload as multipart/form-data, with the file in the "${options.fileField}" field.`);
   }
-  const storage = new HashingDiskStorage(options.uploadsDir);
+  const storage = new HashingUploadStorage(options.storage);
   const middleware = multer({
     storage,
     // Keep the name as sent, so that a name with path separators is refused rather than silently shortened.

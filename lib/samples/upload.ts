@@ -90,7 +90,7 @@ export async function acceptUpload(user: User, request: Request): Promise<Upload
   const storage = sampleStorage();
   await mkdir(storage.uploadsDir, { recursive: true });
   const upload = await receiveUpload(request, {
-    uploadsDir: storage.uploadsDir,
+    storage,
     maxBytes: config.uploadMaxBytes,
     fileField: UPLOAD_FILE_FIELD,
     beforeFile: (fieldsSoFar, fileName) => checkEarly(user, fieldsSoFar, fileName, config.maxJobsPerUser),

@@ -252,6 +252,12 @@ const ROWS: Row[] = [
     expected: statuses(401, 403, 403, 403, 403, 403, 200),
   },
   {
+    method: 'GET',
+    route: '/api/admin/processing',
+    call: async () => ({ path: '/api/admin/processing' }),
+    expected: statuses(401, 403, 403, 403, 403, 403, 200),
+  },
+  {
     method: 'PATCH',
     route: '/api/admin/settings',
     // Keeps sign-up open: the other rows need it.
