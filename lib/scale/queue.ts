@@ -6,6 +6,7 @@ import { type ConnectionOptions, Queue } from 'bullmq';
 import IORedis from 'ioredis';
 import type { FinishedPlane } from '@/lib/jobs/messages';
 import type { SampleCounts, SampleInput, SampleSettings } from '@/models/sample-fields';
+import type { RowGroupShard } from './row-group-plan';
 import type { LineShard, ShardPlan } from './shard-plan';
 
 export const QUEUE_NAME = 'splitfield-processing';
@@ -23,8 +24,11 @@ export interface PlanJobData extends RunRef {
   limits: { maxRecords: number; maxTextBytes: number };
 }
 
-/** What a shard reads: the whole upload, or a byte range of it after the header. */
-export type ShardSource = { kind: 'whole' } | { kind: 'lines'; headerEnd: number; footer: string; shard: LineShard };
+/** What a shard reads: the whole upload, a byte range of it after the header, or some row groups of a Parquet file. */
+export type ShardSource =
+  | { kind: 'whole' }
+  | { kind: 'lines'; headerEnd: number; footer: string; shard: LineShard }
+  | { kind: 'rowGroups'; footerStart: number; shard: RowGroupShard };
 
 export interface ShardJobData extends PlanJobData {
   index: number;
@@ -74,6 +78,7 @@ export function cancelKey(ref: RunRef): string {
 /** The shards of a plan as the shard jobs read them. */
 export function shardSources(plan: ShardPlan): ShardSource[] {
   if (plan.kind === 'whole') return [{ kind: 'whole' }];
+  if (plan.kind === 'rowGroups') return plan.shards.map((shard) => ({ kind: 'rowGroups', footerStart: plan.footerStart, shard }));
   return plan.shards.map((shard) => ({ kind: 'lines', headerEnd: plan.headerEnd, footer: plan.footer, shard }));
 }
 

@@ -11,6 +11,7 @@ import { pipeline } from 'node:stream/promises';
 import { FlowProducer, type Job, type Queue, UnrecoverableError } from 'bullmq';
 import type IORedis from 'ioredis';
 import { mergeColumnFolders } from '@/lib/ingest/column-merge';
+import { openParquetFile } from '@/lib/ingest/columnar/parquet-reader';
 import { ColumnReader } from '@/lib/ingest/columns';
 import { IngestAbortError, IngestError } from '@/lib/ingest/errors';
 import { LineSource } from '@/lib/ingest/lines';
@@ -96,14 +97,29 @@ async function plan(job: Job<PlanJobData>, context: WorkerContext): Promise<{ sh
   return { shards: sources.length };
 }
 
-/** The shard's bytes as the readers take them: the whole file, or the header, the shard's range and the footer. */
+/** Writes bytes [start, end) of the upload at the same place of `file` (a sparse copy: the rest reads as zeros). */
+async function copyRange(context: WorkerContext, data: ShardJobData, file: string, start: number, end: number, flags: 'w' | 'r+'): Promise<void> {
+  await pipeline(await context.store.read(data.uploadKey, { start, end }), createWriteStream(file, { flags, start }));
+}
+
+/**
+ * The shard's bytes as the readers take them: the whole file; the header, the shard's range and the footer; or a
+ * Parquet file's footer and the shard's row groups, at their places in a sparse copy, so rows and row groups keep
+ * the whole file's numbers.
+ */
 async function openShard(data: ShardJobData, context: WorkerContext, dir: string): Promise<ParticleReader> {
   const options = { maxDocumentLength: MAX_DOCUMENT_CHARS, maxTextBytes: data.limits.maxTextBytes };
   const { source } = data;
+  const file = path.join(dir, 'upload');
   if (source.kind === 'whole') {
-    const file = path.join(dir, 'upload');
     await pipeline(await context.store.read(data.uploadKey), createWriteStream(file));
     return openParticleFile(file, options);
+  }
+  if (source.kind === 'rowGroups') {
+    const { shard } = source;
+    await copyRange(context, data, file, source.footerStart, data.fileSize, 'w');
+    await copyRange(context, data, file, shard.start, shard.end, 'r+');
+    return openParquetFile(file, options, { first: shard.firstGroup, end: shard.endGroup });
   }
   const { store } = context;
   const parts = async function* () {

@@ -1,8 +1,11 @@
 // Where an upload is cut into shards: plain-text JSON Lines between records, plain-text HepMC3 before an event's
 // E line. One pass over the object counts lines, so every shard knows the number of its first line (error
-// messages and the default record ids are line numbers). Other inputs (gzip, the one-document form, Parquet,
-// Arrow) and small files are one shard read whole, exactly as the embedded mode reads them.
+// messages and the default record ids are line numbers). Parquet is cut between row groups (row-group-plan.ts).
+// Other inputs (gzip, the one-document form, Arrow) and small files are one shard read whole, exactly as the
+// embedded mode reads them.
+import { PARQUET_MAGIC } from '@/lib/ingest/columnar/parquet-reader';
 import type { ObjectStore } from '@/lib/objects/object-store';
+import { planRowGroups, type RowGroupPlan } from './row-group-plan';
 
 export interface LineShard {
   /** Bytes [start, end) of the upload. */
@@ -22,7 +25,8 @@ export type ShardPlan =
       /** Text that ends every shard but the last (HepMC3's end-of-listing line). */
       footer: string;
       shards: LineShard[];
-    };
+    }
+  | RowGroupPlan;
 
 const HEPMC3_END = 'HepMC::Asciiv3-END_EVENT_LISTING\n';
 const NEWLINE = 10;
@@ -79,6 +83,7 @@ function hepmcHeader(head: Buffer, from: number, linesBefore: number) {
 export async function planShards(store: ObjectStore, key: string, size: number, shardBytes: number): Promise<ShardPlan> {
   if (size <= shardBytes) return { kind: 'whole' };
   const head = Buffer.concat(await chunks(await store.read(key, { start: 0, end: Math.min(size, HEAD_BYTES) })));
+  if (head.subarray(0, 4).toString('latin1') === PARQUET_MAGIC) return (await planRowGroups(store, key, size, shardBytes)) ?? { kind: 'whole' };
   const header = headerOf(head);
   if (!header) return { kind: 'whole' };
   const { format, headerEnd } = header;

@@ -17,6 +17,8 @@ export interface ColumnarOptions {
   batchRows?: number;
   /** Leave out the "splitfield" metadata. */
   noMetadata?: boolean;
+  /** Leave out the id column (records are then numbered by the reader). */
+  noIds?: boolean;
 }
 
 const NAMES = ['px', 'py', 'pz', 'E'] as const;
@@ -74,7 +76,7 @@ function columnsOf(records: ColumnarRecord[], layout: 'lists' | 'flat'): Array<{
 
 /** Writes a Parquet file (snappy-compressed, hyparquet-writer's default). */
 export function writeParquet(path: string, header: object, records: ColumnarRecord[], o: ColumnarOptions): void {
-  const cols = columnsOf(records, o.layout);
+  const cols = columnsOf(records, o.layout).filter((c) => !(o.noIds && c.name === 'id'));
   const schema: Record<string, unknown>[] = [{ name: 'root', num_children: cols.length }];
   for (const c of cols) {
     const leaf = c.type === 'STRING' ? { type: 'BYTE_ARRAY', converted_type: 'UTF8' } : { type: c.type };

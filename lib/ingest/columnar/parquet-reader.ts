@@ -1,10 +1,12 @@
 // Apache Parquet input in Splitfield's columnar schema (layout.ts), read with hyparquet (pure JavaScript) and its
-// decompressors, one row group at a time from the file on disk: memory holds one row group, not the file.
+// decompressors, one row group at a time from the file on disk: memory holds one row group, not the file. A shard
+// of the scaled mode reads only some row groups (lib/scale/row-group-plan.ts), numbered as in the whole file.
 
 import { open, type FileHandle } from 'node:fs/promises';
 import { parquetMetadataAsync, parquetRead, parquetSchema, type FileMetaData } from 'hyparquet';
 import { compressors } from 'hyparquet-compressors';
 import { IngestError } from '../errors';
+import type { IngestHeader } from '../header';
 import type { ParticleReader, ReaderOptions } from '../types';
 import { ColumnarReader, type ChunkSource } from './columnar-reader';
 import { columnarHeader, METADATA_KEY, planColumns, type Chunk, type ColumnPlan, type ColumnShape, type NumberColumn } from './layout';
@@ -87,12 +89,19 @@ function listColumn(data: ArrayLike<unknown>, rows: number, name: string, group:
   return { values, offsets };
 }
 
+/** Row groups [first, end) of a file. */
+export interface RowGroupRange {
+  first: number;
+  end: number;
+}
+
 class ParquetSource implements ChunkSource {
   private readonly counter = { read: 0 };
   constructor(
     private readonly handle: FileHandle,
     private readonly size: number,
     private readonly metadata: FileMetaData,
+    private readonly groups: RowGroupRange,
   ) {}
 
   get bytesRead(): number {
@@ -107,9 +116,11 @@ class ParquetSource implements ChunkSource {
 
   async *chunks(plan: ColumnPlan): AsyncGenerator<Chunk> {
     const file = asyncBuffer(this.handle, this.size, this.counter);
+    const rowsOf = (group: number) => Number(this.metadata.row_groups[group].num_rows);
     let firstRow = 0;
-    for (let group = 0; group < this.metadata.row_groups.length; group++) {
-      const rows = Number(this.metadata.row_groups[group].num_rows);
+    for (let group = 0; group < this.groups.first; group++) firstRow += rowsOf(group);
+    for (let group = this.groups.first; group < this.groups.end; group++) {
+      const rows = rowsOf(group);
       const parts = new Map<string, Array<{ start: number; data: ArrayLike<unknown> }>>();
       try {
         await parquetRead({
@@ -149,8 +160,17 @@ class ParquetSource implements ChunkSource {
   }
 }
 
-/** Opens a Parquet file in Splitfield's columnar schema. */
-export async function openParquetFile(path: string, opts: ReaderOptions = {}): Promise<ParticleReader> {
+/** The file's header (its "splitfield" metadata) and the columns its layout reads; throws for a file not in the schema. */
+export function parquetColumns(metadata: FileMetaData): { header: IngestHeader; plan: ColumnPlan } {
+  const meta = metadata.key_value_metadata?.find((kv) => kv.key === METADATA_KEY)?.value;
+  const header = columnarHeader(meta, 'parquet-lists');
+  const plan = planColumns(shapesOf(metadata), header);
+  header.layout = plan.layout === 'lists' ? 'parquet-lists' : 'parquet-flat';
+  return { header, plan };
+}
+
+/** Opens a Parquet file in Splitfield's columnar schema; `groups` limits the read to some row groups (all by default). */
+export async function openParquetFile(path: string, opts: ReaderOptions = {}, groups?: RowGroupRange): Promise<ParticleReader> {
   const handle = await open(path, 'r');
   try {
     const size = (await handle.stat()).size;
@@ -160,12 +180,9 @@ export async function openParquetFile(path: string, opts: ReaderOptions = {}): P
     } catch (e) {
       throw new IngestError(`not a complete Parquet file (it may be truncated): ${(e as Error).message}`, { code: 'columnar' });
     }
-    const shapes = shapesOf(metadata);
-    const meta = metadata.key_value_metadata?.find((kv) => kv.key === METADATA_KEY)?.value;
-    const header = columnarHeader(meta, 'parquet-lists');
-    const plan = planColumns(shapes, header);
-    header.layout = plan.layout === 'lists' ? 'parquet-lists' : 'parquet-flat';
-    return new ColumnarReader(header, new ParquetSource(handle, size, metadata), opts, plan);
+    const { header, plan } = parquetColumns(metadata);
+    const range = groups ?? { first: 0, end: metadata.row_groups.length };
+    return new ColumnarReader(header, new ParquetSource(handle, size, metadata, range), opts, plan);
   } catch (e) {
     await handle.close();
     throw e;
