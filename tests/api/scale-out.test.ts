@@ -1,16 +1,20 @@
 // The scaled mode end to end: redis-server, the fake S3 server and two `splitfield worker` processes started by
 // the project's scripts, a web server in queue mode on that bucket, and a web server in the embedded mode as the
 // reference. A file cut into several shards must give the embedded mode's sample byte for byte.
-import { readdirSync, readFileSync } from 'node:fs';
+import { mkdtempSync, readdirSync, readFileSync } from 'node:fs';
+import os from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { readS3Settings } from '@/lib/objects/config';
+import { LocalObjectStore } from '@/lib/objects/local-store';
 import { readObjectBytes } from '@/lib/objects/object-store';
 import { S3ObjectStore } from '@/lib/objects/s3-store';
+import { planShards } from '@/lib/scale/shard-plan';
+import { type ColumnarRecord, writeParquet } from '@/tests/support/columnar-files';
 import { generateEvents } from '@/tests/support/test-events';
 import { type FakeS3, type Redis, scaledEnv, type Service, startFakeS3, startRedis, startWorker } from '../support/scale-services';
 import type { Client, TestServer } from '../support/server';
-import { hepmc3Text } from '../unit/ingest/helpers';
+import { HEADER, hepmc3Text } from '../unit/ingest/helpers';
 import { newPerson, newStudy, serverWithAdmin } from './fixtures';
 import { isFinished, jetsFileText, storedFiles, upload, uploadDone, waitForSample } from './sample-fixtures';
 
@@ -75,7 +79,17 @@ function folderFiles(dir: string): Map<string, Buffer> {
   return new Map(readdirSync(dir).map((name) => [name, readFileSync(path.join(dir, name))]));
 }
 
-async function both(file: string, fileName: string, settings?: object) {
+/** A Parquet file (lists layout, no id column: ids are rows) of `events` in row groups of 4, and its shard count. */
+async function parquetEvents(events: Float64Array[], name: string): Promise<{ file: Blob; shards: number }> {
+  const dir = mkdtempSync(path.join(os.tmpdir(), 'sf-scale-parquet-'));
+  const records: ColumnarRecord[] = events.map((particles, k) => ({ id: `e${k}`, weight: 1 + k / 8, particles }));
+  writeParquet(path.join(dir, name), { ...HEADER, content: 'events' }, records, { layout: 'lists', rowGroupSize: 4, noIds: true });
+  const bytes = readFileSync(path.join(dir, name));
+  const plan = await planShards(new LocalObjectStore(dir), name, bytes.length, SHARD_BYTES);
+  return { file: new Blob([bytes]), shards: plan.kind === 'rowGroups' ? plan.shards.length : 1 };
+}
+
+async function both(file: string | Blob, fileName: string, settings?: object) {
   const fields = settings ? { settings: JSON.stringify(settings) } : undefined;
   const [inQueue, here] = await Promise.all(
     (['scaled', 'embedded'] as const).map((mode) => uploadDone(people[mode].client, { studyId: people[mode].studyId, file, fileName, fields })),
@@ -127,6 +141,33 @@ describe('scaled mode: queue, shards, bucket', () => {
     const events = generateEvents(15, 60, { nParticles: 300 });
     const { inQueue, here } = await both(hepmc3Text(events), 'events.hepmc', { fullTree: true });
     await expectSameSample(inQueue, here);
+  });
+
+  it('cuts a Parquet file between row groups and stores the embedded mode\'s sample byte for byte', async () => {
+    const { file, shards } = await parquetEvents(generateEvents(41, 40, { nParticles: 300 }), 'events.parquet');
+    expect(shards).toBeGreaterThan(2);
+    const { inQueue, here } = await both(file, 'events.parquet');
+    await expectSameSample(inQueue, here);
+    expect(await store.list('work/')).toEqual([]);
+  });
+
+  it('names the same row group, row and column as the embedded mode for a bad value in a later Parquet shard', async () => {
+    const events = generateEvents(43, 40, { nParticles: 300 });
+    events[33][4 * 2 + 1] = Number.POSITIVE_INFINITY;
+    const { file, shards } = await parquetEvents(events, 'bad.parquet');
+    expect(shards).toBeGreaterThan(2);
+    const ended = await Promise.all(
+      (['scaled', 'embedded'] as const).map(async (mode) => {
+        const response = await upload(people[mode].client, { studyId: people[mode].studyId, file, fileName: 'bad.parquet', name: 'Bad columns' });
+        expect(response.status, response.text).toBe(202);
+        return waitForSample(people[mode].client, response.body.sample.id, isFinished, 'the end of its job');
+      }),
+    );
+    expect(ended[0].state).toBe('failed');
+    expect(ended[0].error).toEqual(ended[1].error);
+    expect(ended[0].error.message).toContain('row group 8, row 33, column py, particle 2: py is not a finite number: Infinity');
+    expect(await store.list(`samples/${ended[0].id}/`)).toEqual([]);
+    await expectEventually(async () => expect(await store.list('work/')).toEqual([]));
   });
 
   it('names the same line as the embedded mode for a bad record in a later shard, and keeps nothing', async () => {
