@@ -1,7 +1,8 @@
 // Where a Parquet upload is cut into shards: between row groups, read from the file's footer alone (one or two
-// ranged reads of the object's end). A shard is consecutive row groups of about SPLITFIELD_SHARD_BYTES (compressed), and knows the bytes
-// of its column chunks, so its job fetches only those and the footer. In the flat layout a record's rows may run on
-// into the next row group: a cut goes only where the "record" column's statistics show the groups' records apart.
+// ranged reads of the object's end). A shard is consecutive row groups of about SPLITFIELD_SHARD_BYTES (compressed)
+// and knows the bytes of its column chunks, so its job fetches only those and the footer. In the flat layout a
+// record's rows may run on into the next row group: a cut goes only where the "record" column's statistics show the
+// groups' records apart.
 import { type FileMetaData, parquetMetadataAsync, type RowGroup } from 'hyparquet';
 import { parquetColumns } from '@/lib/ingest/columnar/parquet-reader';
 import { type ObjectStore, readObjectBytes } from '@/lib/objects/object-store';
