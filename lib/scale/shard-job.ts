@@ -175,7 +175,10 @@ async function shard(job: Job<ShardJobData>, context: WorkerContext): Promise<Sh
       await dropIfEnded(context, data, prefix);
       return { index: data.index, prefix, counts, input: input! };
     } catch (error) {
-      if (error instanceof IngestAbortError || cancel.signal.aborted) throw final({ code: 'cancelled', message: 'cancelled', line: null });
+      // A shard whose run ended meanwhile (another shard failed, or a cancel) may fail because the run's objects are
+      // gone: that is the end's doing, not a failure of its own.
+      const ended = cancel.signal.aborted || (await context.connection.exists(cancelKey(data)).catch(() => 0)) > 0;
+      if (error instanceof IngestAbortError || ended) throw final({ code: 'cancelled', message: 'cancelled', line: null });
       if (error instanceof IngestError) throw final(jobErrorReport(error));
       throw error;
     }
