@@ -89,6 +89,10 @@ export function SeparationView({ settings, onChange, onSaveRegion = null, region
     };
   }, [data]);
 
+  // Kept stable between renders: a new array would make the figure redraw itself each time.
+  const studyRegions = regions?.figure.regions;
+  const figureRegions = useMemo(() => [...(drawn?.proposals ?? []), ...(studyRegions ?? [])], [drawn, studyRegions]);
+
   const title = data ? `ln(ρ_S/ρ_B): ${data.signal.sample.name} (signal) over ${data.background.sample.name} (background)` : '';
   return (
     <div className="space-y-4">
@@ -119,7 +123,7 @@ export function SeparationView({ settings, onChange, onSaveRegion = null, region
                 compact={compact}
                 title={title}
                 {...regions?.figure}
-                regions={[...drawn.proposals, ...(regions?.figure.regions ?? [])]}
+                regions={figureRegions}
               />
               <p className="text-xs text-ink-soft">
                 Grey: fewer than {data.minEntries} splittings in either training half (left out of the score). Red: signal-like, blue: background-like. Dark outlines: region proposals by rank; coloured: the study’s regions.
