@@ -8,13 +8,14 @@
 //     and wall seconds per pass: {"records","particles","jets","splittings","rounds","cpuSeconds","wallSeconds"}.
 //   node bench/out/engine-timing.cjs json INPUT [--rounds 3]
 //     JSON reading against its floor, on the same bytes: the engine's reading of a JSON Lines file (the
-//     pipeline's own line source, record parsing and validation into typed arrays) against reading the same file
-//     with the same line source and only JSON.parse of each line. Prints the fastest round's CPU seconds of each:
+//     pipeline's own byte batches, record parsing and validation into typed arrays) against reading the same file
+//     as string lines (the line source's string mode) and only JSON.parse of each line. Prints the fastest round's CPU seconds of each:
 //     {"records","bytes","engineSeconds","jsonParseSeconds"}.
 import { parseCli } from '../lib/ingest/cli-options';
 import { openLineSource } from '../lib/ingest/lines';
 import { openParticleFile } from '../lib/ingest/reader';
-import { ParticleScratch, parseRecordLineInto } from '../lib/ingest/record';
+import { ParticleScratch } from '../lib/ingest/particle-scratch';
+import { parseRecordBytesInto } from '../lib/ingest/record';
 import { processParticles } from '../lib/physics/process';
 import { SPLIT_STRIDE, type ProcessSettings } from '../lib/physics/types';
 
@@ -70,10 +71,9 @@ async function physics(argv: string[]): Promise<void> {
   process.stdout.write(JSON.stringify({ records: records.length, particles, jets, splittings, rounds, cpuSeconds: bestCpu, wallSeconds: bestWall }) + '\n');
 }
 
-/** One pass over a JSON Lines file: every record line (after the header) handed to `each`; returns the count. */
-async function eachRecordLine(file: string, each: (line: string, no: number) => void): Promise<number> {
+/** One pass over a JSON Lines file: every record line (after the header) handed to `each`. */
+async function eachRecordLine(file: string, each: (line: string) => void): Promise<void> {
   const src = await openLineSource(file);
-  let n = 0;
   let header = true;
   for (;;) {
     const line = src.take();
@@ -84,12 +84,10 @@ async function eachRecordLine(file: string, each: (line: string, no: number) => 
     if (line.length === 0) continue;
     if (header) header = false;
     else {
-      each(line, src.lineNo);
-      n++;
+      each(line);
     }
   }
   src.close();
-  return n;
 }
 
 async function json(argv: string[]): Promise<void> {
@@ -106,9 +104,15 @@ async function json(argv: string[]): Promise<void> {
   let sink = 0;
   for (let round = 0; round < rounds; round++) {
     let c0 = cpuSeconds();
-    records = await eachRecordLine(file, (line, no) => {
-      sink += parseRecordLineInto(line, no, context, scratch).n;
-    });
+    // The pipeline's own reading: byte batches from the reader, each record parsed and checked.
+    const r = await openParticleFile(file);
+    records = 0;
+    for await (const b of r.raw!.rawBatches()) {
+      if (b.form !== 'bytes') throw new Error('json: byte batches expected');
+      for (let i = 0; i < b.lineNos.length; i++) sink += parseRecordBytesInto(b.bytes, b.starts[i], b.ends[i], b.lineNos[i], context, scratch).n;
+      records += b.lineNos.length;
+    }
+    r.close();
     engine = Math.min(engine, cpuSeconds() - c0);
     c0 = cpuSeconds();
     await eachRecordLine(file, (line) => {

@@ -12,6 +12,9 @@ import { runPipeline } from './pipeline/run';
 import { ProgressLine, fmtInt } from './progress';
 import { openParticleFile, openParticleStream } from './reader';
 
+/** Output file buffer: batches queue here while the file system writes (memory stays bounded by it). */
+const OUT_BUFFER_BYTES = 8 << 20;
+
 function rate(n: number, secs: number): string {
   return secs > 0 ? fmtInt(n / secs) : '-';
 }
@@ -50,7 +53,9 @@ export async function main(argv: string[]): Promise<number> {
   let outError: Error | null = null;
   if (cfg.out && cfg.out !== '-') {
     tmpPath = `${cfg.out}.partial-${process.pid}`;
-    out = createWriteStream(tmpPath);
+    // A deep buffer lets the file system write one batch while the next is computed (the default 16 KiB made
+    // every batch wait for its own write: a sixth of a one-thread run).
+    out = createWriteStream(tmpPath, { highWaterMark: OUT_BUFFER_BYTES });
   } else {
     out = process.stdout;
   }

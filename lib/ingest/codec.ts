@@ -4,7 +4,7 @@
 import type { JetResult, ProcessSettings, RecordResult, RemovedParticles } from '../physics/types';
 import { REMOVED_RULES } from '../physics/types';
 import type { PlainIngestError } from './errors';
-import type { RecordContext } from './types';
+import type { RawLineBatch, RecordContext } from './types';
 import type { BatchCounts, RecordMeta, StageTimes, WorkerFormat } from './pipeline/sink';
 import type { ParticleRecord } from './types';
 
@@ -30,8 +30,7 @@ export interface LinesTask {
   kind: 'lines';
   format: 'jsonl' | 'hepmc3';
   settings: ProcessSettings;
-  lines: string[];
-  lineNos: Float64Array;
+  batch: RawLineBatch;
   context: RecordContext;
   /** Go on after a bad record (report it in `problems`), else stop at the first. */
   skipBad: boolean;
@@ -110,6 +109,12 @@ export function packTask(records: ParticleRecord[], settings: ProcessSettings): 
   offsets[records.length] = at;
   if (tagOffsets) tagOffsets[records.length] = tagAt;
   return { kind: 'packed', settings, particles, offsets, pid, charge, tags, tagOffsets, tagPid };
+}
+
+/** The transferable buffers of a lines task's batch. */
+export function lineBuffers(b: RawLineBatch): ArrayBuffer[] {
+  const arrays = b.form === 'bytes' ? [b.bytes, b.starts, b.ends, b.lineNos] : [b.lineNos];
+  return arrays.map((a) => a.buffer as ArrayBuffer);
 }
 
 /** The transferable buffers of a packed task. */

@@ -14,7 +14,7 @@ import type { IngestHeader } from './header';
 import type { LineSource } from './lines';
 import { heavyFlavour } from '../physics/particle-id';
 import { particleProblem } from '../physics/fourvector';
-import { ParticleScratch, quickParticleProblem, type ParsedRecord } from './record';
+import { ParticleScratch, quickParticleProblem, type ParsedRecord } from './particle-scratch';
 import { BaseReader } from './reader-base';
 import type { ParticleReader, ParticleRecord, RawLineBatch, RawLineSource, ReaderOptions } from './types';
 
@@ -235,13 +235,13 @@ export class HepMC3Reader extends BaseReader implements RawLineSource {
       nos.push(b.line);
       chars += b.text.length;
       if (chars >= maxChars || texts.length >= maxRecords) {
-        yield { lines: texts, lineNos: Float64Array.from(nos) };
+        yield { form: 'text', lines: texts, lineNos: Float64Array.from(nos) };
         texts = [];
         nos = [];
         chars = 0;
       }
     }
-    if (texts.length) yield { lines: texts, lineNos: Float64Array.from(nos) };
+    if (texts.length) yield { form: 'text', lines: texts, lineNos: Float64Array.from(nos) };
   }
 
   accepted(n: number): void {

@@ -4,7 +4,6 @@
 
 import { createReadStream, promises as fsp } from 'node:fs';
 import { Readable, pipeline } from 'node:stream';
-import { StringDecoder } from 'node:string_decoder';
 import zlib from 'node:zlib';
 import { IngestError } from './errors';
 import { gzipExtent } from './gzip-extent';
@@ -47,20 +46,26 @@ export class LineSource {
   readonly name: string;
   private readonly file: string | null;
 
+  /** String mode: the lines of the current region, decoded, and the next one to hand out. */
   private buf: string[] = [];
   private pos = 0;
-  private restParts: string[] = [];
+  /** Byte mode: the current region (complete lines) and the position of its next line. */
+  private region: Buffer | null = null;
+  private rpos = 0;
+  /** Byte mode: the last line taken is lineBytes[lineStart, lineEnd) (its CR LF or LF removed). */
+  lineBytes: Buffer = Buffer.alloc(0);
+  lineStart = 0;
+  lineEnd = 0;
+  /** Bytes of a line not yet complete (after the last LF read). */
+  private restParts: Buffer[] = [];
   private restLen = 0;
   private ended = false;
   private started = false;
   private iter: AsyncIterator<Buffer> | null = null;
-  private decoder = new StringDecoder('utf8');
   private readonly maxLine: number;
   private readonly maxText: number;
   /** Bytes of text (decompressed) read so far. */
   private textBytes = 0;
-  /** Lines produced so far by the splitter (>= lineNo). */
-  private produced = 0;
   private sawAnyByte = false;
   private bomChecked = false;
 
@@ -88,7 +93,6 @@ export class LineSource {
 
   /** Numbers the lines from here on as if the text so far had `line` − 1 lines (a shard's part of a longer file). */
   continueAtLine(line: number): void {
-    this.produced += line - 1 - this.lineNo;
     this.lineNo = line - 1;
   }
 
@@ -112,70 +116,100 @@ export class LineSource {
     if (this.pos < this.buf.length) return true;
     this.buf = [];
     this.pos = 0;
-    while (!this.ended) {
-      const chunk = await this.nextChunk();
-      if (chunk === null) {
-        const last = this.restParts.join('') + this.decoder.end();
-        this.restParts = [];
-        this.restLen = 0;
-        this.ended = true;
-        if (last.length > 0) {
-          this.buf.push(last.charCodeAt(last.length - 1) === 13 ? last.slice(0, -1) : last);
-          this.produced++;
-        }
-        break;
-      }
-      let d = this.decoder.write(chunk);
-      if (!this.bomChecked && d.length > 0) {
-        this.bomChecked = true;
-        if (d.charCodeAt(0) === 0xfeff) d = d.slice(1);
-      }
-      this.split(d);
-      if (this.buf.length > 0) break;
+    const region = await this.nextRegion();
+    if (region === null) return false;
+    const d = region.toString('utf8');
+    // Every line of a region ends with LF but the input's last when it has none.
+    const lines = d.split('\n');
+    if (region[region.length - 1] === 10) lines.pop();
+    for (let i = 0; i < lines.length; i++) {
+      const l = lines[i];
+      if (l.charCodeAt(l.length - 1) === 13) lines[i] = l.slice(0, -1);
     }
-    return this.buf.length > 0;
+    this.buf = lines;
+    return true;
   }
 
-  private split(d: string): void {
-    let i = d.indexOf('\n');
-    if (i === -1) {
-      if (d.length) {
-        this.restParts.push(d);
-        this.restLen += d.length;
-        if (this.restLen > this.maxLine) {
-          const size = sizeText(this.maxLine);
-          throw new IngestError(
-            `the line is longer than ${size}: the one-document form (a single JSON object with "records") is accepted only up to ${size}; ` +
-              'write larger samples as JSON Lines (the header on line 1, then one record a line)',
-            { line: this.produced + 1, code: 'size' },
-          );
-        }
+  /**
+   * Byte mode (after the string lines wanted, e.g. a header, were taken with take()): takes the next buffered line
+   * as bytes, left in lineBytes[lineStart, lineEnd); false when the buffer is empty: then call fillBytes().
+   */
+  takeBytes(): boolean {
+    if (this.pos < this.buf.length) {
+      // Lines already decoded go back to bytes once, when the reader turns to byte mode.
+      this.region = Buffer.from(this.buf.slice(this.pos).join('\n') + '\n', 'utf8');
+      this.rpos = 0;
+      this.buf = [];
+      this.pos = 0;
+    }
+    const r = this.region;
+    if (r === null || this.rpos >= r.length) return false;
+    const at = this.rpos;
+    const nl = r.indexOf(10, at);
+    const end = nl < 0 ? r.length : nl;
+    this.lineBytes = r;
+    this.lineStart = at;
+    this.lineEnd = end > at && r[end - 1] === 13 ? end - 1 : end;
+    this.rpos = end + 1;
+    this.lineNo++;
+    return true;
+  }
+
+  /** Byte mode: loads more lines. Returns false at the end of the input. */
+  async fillBytes(): Promise<boolean> {
+    if (this.pos < this.buf.length || (this.region !== null && this.rpos < this.region.length)) return true;
+    this.region = await this.nextRegion();
+    this.rpos = 0;
+    return this.region !== null;
+  }
+
+  /**
+   * The next run of complete lines as bytes (ending with LF, or the input's last line without it), null at the
+   * end. A line never spans two regions, so a region decodes on its own (no character is cut).
+   */
+  private async nextRegion(): Promise<Buffer | null> {
+    while (!this.ended) {
+      let chunk = await this.nextChunk();
+      if (chunk === null) {
+        this.ended = true;
+        if (this.restLen === 0) return null;
+        const last = this.restParts.length === 1 ? this.restParts[0] : Buffer.concat(this.restParts);
+        this.restParts = [];
+        this.restLen = 0;
+        return last;
       }
-      return;
+      if (!this.bomChecked && this.restLen + chunk.length >= 3) {
+        this.bomChecked = true;
+        if (this.restLen > 0) {
+          chunk = Buffer.concat([...this.restParts, chunk]);
+          this.restParts = [];
+          this.restLen = 0;
+        }
+        if (chunk[0] === 0xef && chunk[1] === 0xbb && chunk[2] === 0xbf) chunk = chunk.subarray(3);
+      }
+      const nl = chunk.lastIndexOf(10);
+      if (nl < 0) {
+        if (chunk.length) {
+          this.restParts.push(chunk);
+          this.restLen += chunk.length;
+          if (this.restLen > this.maxLine) {
+            const size = sizeText(this.maxLine);
+            throw new IngestError(
+              `the line is longer than ${size}: the one-document form (a single JSON object with "records") is accepted only up to ${size}; ` +
+                'write larger samples as JSON Lines (the header on line 1, then one record a line)',
+              { line: this.lineNo + 1, code: 'size' },
+            );
+          }
+        }
+        continue;
+      }
+      let region = chunk.subarray(0, nl + 1);
+      if (this.restLen > 0) region = Buffer.concat([...this.restParts, region]);
+      this.restParts = nl + 1 < chunk.length ? [chunk.subarray(nl + 1)] : [];
+      this.restLen = chunk.length - nl - 1;
+      return region;
     }
-    const out = this.buf;
-    let start = 0;
-    if (this.restLen > 0 || this.restParts.length) {
-      this.restParts.push(d.slice(0, i));
-      let line = this.restParts.join('');
-      this.restParts = [];
-      this.restLen = 0;
-      if (line.charCodeAt(line.length - 1) === 13) line = line.slice(0, -1);
-      out.push(line);
-      start = i + 1;
-      i = d.indexOf('\n', start);
-    }
-    while (i !== -1) {
-      const end = i > start && d.charCodeAt(i - 1) === 13 ? i - 1 : i;
-      out.push(d.slice(start, end));
-      start = i + 1;
-      i = d.indexOf('\n', start);
-    }
-    this.produced += out.length;
-    if (start < d.length) {
-      this.restParts.push(d.slice(start));
-      this.restLen = d.length - start;
-    }
+    return null;
   }
 
   private async start(): Promise<void> {
@@ -233,7 +267,7 @@ export class LineSource {
     if (e instanceof IngestError) return e;
     const err = e as NodeJS.ErrnoException;
     const kind = this.gzip ? describeZlibError(err) : null;
-    const last = this.produced;
+    const last = this.lineNo;
     if (kind === 'truncated') {
       const tail = last > 0 ? `the last complete line is line ${last}` : 'not even line 1 is complete';
       return new IngestError(`the file ends inside the gzip stream (truncated file); ${tail}`, { line: last + 1, code: 'gzip', cause: e });
@@ -258,8 +292,8 @@ export class LineSource {
       if (this.textBytes > this.maxText) {
         const what = this.gzip ? 'once decompressed, the file holds' : 'the file holds';
         throw new IngestError(
-          `${what} more than ${sizeText(this.maxText)} of text, the most this server reads; it was stopped after line ${this.produced}`,
-          { line: this.produced + 1, code: 'limit' },
+          `${what} more than ${sizeText(this.maxText)} of text, the most this server reads; it was stopped after line ${this.lineNo}`,
+          { line: this.lineNo + 1, code: 'limit' },
         );
       }
       return r.value;

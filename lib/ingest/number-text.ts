@@ -12,7 +12,7 @@
 // text is always String(x)'s.
 
 /** 10^k for k = 0..22: every one is an exact double (5^22 < 2^53). */
-const POW10 = Float64Array.from({ length: 23 }, (_, k) => Number(`1e${k}`));
+export const POW10 = Float64Array.from({ length: 23 }, (_, k) => Number(`1e${k}`));
 /** 2^(e − POW2_OFFSET) for e = 0..2099: POW2[k + POW2_OFFSET] = 2^k for every normal exponent k. */
 const POW2_OFFSET = 1100;
 const POW2 = Float64Array.from({ length: 2100 }, (_, e) => Math.pow(2, e - POW2_OFFSET));
@@ -95,13 +95,13 @@ function writeScaled(buf: Uint8Array, at: number, q: number, r: number, scale: n
 }
 
 const TWO_53 = 9007199254740992;
-const SPLITTER = 134217729; // 2^27 + 1: Veltkamp's splitting (twoProduct, written out below)
+export const SPLITTER = 134217729; // 2^27 + 1: Veltkamp's splitting (twoProduct, written out below)
 /** 10^k split into a high part of 26 bits and the rest, for the exact products below. */
-const POW10_HI = POW10.map((p) => {
+export const POW10_HI = POW10.map((p) => {
   const t = SPLITTER * p;
   return t - (t - p);
 });
-const POW10_LO = POW10.map((p, k) => p - POW10_HI[k]);
+export const POW10_LO = POW10.map((p, k) => p - POW10_HI[k]);
 
 
 function fallback(buf: Uint8Array, at: number, v: number): number {

@@ -17,6 +17,16 @@ function isBlank(s: string): boolean {
   return s.trim().length === 0;
 }
 
+/** isBlank for the line bytes[start, end) (UTF-8). */
+function isBlankBytes(bytes: Uint8Array, start: number, end: number): boolean {
+  for (let i = start; i < end; i++) {
+    const c = bytes[i];
+    if (c >= 128) return isBlank(Buffer.from(bytes.buffer, bytes.byteOffset + start, end - start).toString('utf8'));
+    if (c !== 32 && c !== 9 && c !== 13 && c !== 11 && c !== 12) return false;
+  }
+  return true;
+}
+
 function jsonErrorPosition(msg: string): number | null {
   const m = /at position (\d+)/.exec(msg);
   return m ? Number(m[1]) : null;
@@ -39,29 +49,38 @@ class JsonLinesReader extends BaseReader implements RawLineSource {
 
   async *rawBatches(maxChars = 1 << 20, maxRecords = 2048): AsyncGenerator<RawLineBatch> {
     const src = this.src;
-    let lines: string[] = [];
-    let nos: number[] = [];
-    let chars = 0;
+    // Each batch gets its own buffers (they may be handed to a worker thread); a line longer than the batch size
+    // grows the buffer.
+    let bytes = new Uint8Array(maxChars);
+    let starts = new Int32Array(maxRecords), ends = new Int32Array(maxRecords);
+    let nos = new Float64Array(maxRecords);
+    let n = 0, used = 0;
     const flush = (): RawLineBatch => {
-      const b = { lines, lineNos: Float64Array.from(nos) };
-      lines = [];
-      nos = [];
-      chars = 0;
+      const b: RawLineBatch = { form: 'bytes', bytes: bytes.subarray(0, used), starts: starts.slice(0, n), ends: ends.slice(0, n), lineNos: nos.slice(0, n) };
+      bytes = new Uint8Array(maxChars);
+      n = used = 0;
       return b;
     };
     for (;;) {
-      const line = src.take();
-      if (line === undefined) {
-        if (!(await src.fill())) break;
+      if (!src.takeBytes()) {
+        if (!(await src.fillBytes())) break;
         continue;
       }
-      if (isBlank(line)) continue;
-      lines.push(line);
-      nos.push(src.lineNo);
-      chars += line.length;
-      if (chars >= maxChars || lines.length >= maxRecords) yield flush();
+      const lb = src.lineBytes, s = src.lineStart, e = src.lineEnd;
+      if (isBlankBytes(lb, s, e)) continue;
+      if (used + e - s > bytes.length) {
+        const grown = new Uint8Array(Math.max(2 * bytes.length, used + e - s));
+        grown.set(bytes.subarray(0, used));
+        bytes = grown;
+      }
+      bytes.set(lb.subarray(s, e), used);
+      starts[n] = used;
+      used += e - s;
+      ends[n] = used;
+      nos[n++] = src.lineNo;
+      if (used >= maxChars || n >= maxRecords) yield flush();
     }
-    if (lines.length) yield flush();
+    if (n) yield flush();
   }
   accepted(n: number): void {
     this.count += n;

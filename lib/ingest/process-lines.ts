@@ -6,8 +6,9 @@ import { processRecord } from '../physics/process-record';
 import type { ProcessSettings, RecordResult } from '../physics/types';
 import { IngestError } from './errors';
 import { parseHepMCEventInto } from './hepmc3-reader';
-import { ParticleScratch, parseRecordLineInto } from './record';
-import type { RecordContext } from './types';
+import { ParticleScratch } from './particle-scratch';
+import { parseRecordBytesInto, parseRecordLineInto } from './record';
+import type { RawLineBatch, RecordContext } from './types';
 import type { RecordMeta, StageTimes } from './pipeline/sink';
 
 export interface LineBatchOutcome {
@@ -22,8 +23,7 @@ export interface LineBatchOutcome {
 
 export function processLineBatch(
   kind: 'jsonl' | 'hepmc3',
-  lines: string[],
-  lineNos: ArrayLike<number>,
+  batch: RawLineBatch,
   context: RecordContext,
   settings: ProcessSettings,
   skipBad: boolean,
@@ -36,10 +36,13 @@ export function processLineBatch(
   const problems: LineBatchOutcome['problems'] = [];
   let error: LineBatchOutcome['error'] = null;
   let t = times ? performance.now() : 0;
-  for (let i = 0; i < lines.length; i++) {
+  const lineNos = batch.lineNos;
+  for (let i = 0; i < lineNos.length; i++) {
     let rec;
     try {
-      rec = kind === 'hepmc3' ? parseHepMCEventInto(lines[i], lineNos[i], scratch) : parseRecordLineInto(lines[i], lineNos[i], context, scratch);
+      if (batch.form === 'bytes') rec = parseRecordBytesInto(batch.bytes, batch.starts[i], batch.ends[i], lineNos[i], context, scratch);
+      else if (kind === 'hepmc3') rec = parseHepMCEventInto(batch.lines[i], lineNos[i], scratch);
+      else rec = parseRecordLineInto(batch.lines[i], lineNos[i], context, scratch);
     } catch (e) {
       if (!(e instanceof IngestError)) throw e;
       problems.push({ before: results.length, error: e });

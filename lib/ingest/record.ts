@@ -1,8 +1,11 @@
-// Fast validation of one splitfield-particles record (the hot path): JSON.parse has already run;
-// plain loops check every number, and particleProblem (fourvector.ts) checks the physics.
+// One splitfield-particles record line: from bytes, the usual line is read by record-scan.ts in one pass; any
+// other line, and lines given as strings, go through JSON.parse and the full checks here (plain loops check every
+// number, particleProblem in fourvector.ts the physics), which name the problem with its line, particle and field.
 
-import { fromPtYPhiM, particleProblem, toGeV } from '../physics/fourvector';
+import { fromPtYPhiM, toGeV } from '../physics/fourvector';
 import { IngestError, type IngestWhere } from './errors';
+import { ParticleScratch, quickParticleProblem, type ParsedRecord } from './particle-scratch';
+import { scanRecordLine } from './record-scan';
 import { parseRecordTags } from './record-tags';
 import type { ParticleRecord, RecordContext } from './types';
 
@@ -25,39 +28,6 @@ function show(v: unknown): string {
 
 function recErr(msg: string, line: number, where: IngestWhere, particle?: number, field?: string): IngestError {
   return new IngestError(msg, { line, particle, field, where, recordLevel: true, code: particle != null ? 'particle' : 'record' });
-}
-
-/** A growable scratch buffer of particles (px, py, pz, E), reused from record to record. */
-export class ParticleScratch {
-  buf = new Float64Array(4 * 1024);
-  ensure(doubles: number): Float64Array {
-    if (this.buf.length < doubles) this.buf = new Float64Array(Math.max(doubles, 2 * this.buf.length));
-    return this.buf;
-  }
-}
-
-/** A record whose particles were written into a ParticleScratch (the first 4·n doubles). */
-export interface ParsedRecord {
-  line: number;
-  id: string | number;
-  weight: number;
-  n: number;
-  pid?: Int32Array;
-  charge?: Float64Array;
-  /** Tag particles (px, py, pz, E in GeV) and their pids (record-tags.ts). */
-  tags?: Float64Array;
-  tagPid?: Int32Array;
-}
-
-// Fast acceptance of a particle: finite, E > |pz| and E² ≥ p²·(1 − 1e-6) (a margin inside particleProblem's
-// E ≥ |p|·(1 − 1e-6), so that anything near the edge gets particleProblem's exact verdict and message).
-const FAST_OK = 1 - 1e-6;
-
-/** Why a particle is not acceptable input (particleProblem's message), or null; fast for the usual good particle. */
-export function quickParticleProblem(px: number, py: number, pz: number, E: number): string | null {
-  // (x − x === 0 is false for NaN and ±Infinity.)
-  const fine = px - px === 0 && py - py === 0 && pz - pz === 0 && E - E === 0 && E > (pz < 0 ? -pz : pz) && E * E >= (px * px + py * py + pz * pz) * FAST_OK;
-  return fine ? null : particleProblem(px, py, pz, E);
 }
 
 /**
@@ -218,4 +188,12 @@ function explainJsonError(text: string, line: number, ctx: RecordContext, e: Err
   const t = text.trim();
   const hint = t.length === 0 ? '' : t[0] !== '{' ? ' (each record line must be one JSON object)' : '';
   throw recErr(`not valid JSON: ${e.message}${hint}`, line, ctx.where, undefined, undefined);
+}
+
+/** Decodes record lines that the one-pass reading leaves (invalid UTF-8 becomes U+FFFD, as for string lines). */
+const utf8 = new TextDecoder('utf-8', { ignoreBOM: true });
+
+/** As parseRecordLineInto, for the line bytes[start, end) (UTF-8): the usual line in one pass (record-scan.ts). */
+export function parseRecordBytesInto(bytes: Uint8Array, start: number, end: number, line: number, ctx: RecordContext, scratch: ParticleScratch): ParsedRecord {
+  return scanRecordLine(bytes, start, end, line, ctx, scratch) ?? parseRecordLineInto(utf8.decode(bytes.subarray(start, end)), line, ctx, scratch);
 }

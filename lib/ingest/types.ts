@@ -63,11 +63,14 @@ export interface ParticleReader {
   readonly raw?: RawLineSource;
 }
 
-/** Consecutive records as unparsed text (see RawLineSource.kind) with their 1-based (first) line numbers. */
-export interface RawLineBatch {
-  lines: string[];
-  lineNos: Float64Array;
-}
+/**
+ * Consecutive records, unparsed (see RawLineSource.kind), with their 1-based (first) line numbers: JSON Lines
+ * records as UTF-8 bytes (record i is bytes[starts[i], ends[i]); the buffers can be handed to a worker thread),
+ * HepMC3 event blocks as strings.
+ */
+export type RawLineBatch =
+  | { form: 'bytes'; bytes: Uint8Array; starts: Int32Array; ends: Int32Array; lineNos: Float64Array }
+  | { form: 'text'; lines: string[]; lineNos: Float64Array };
 
 export interface RawLineSource {
   /** 'jsonl': each text is one JSON Lines record; 'hepmc3': each text is one HepMC3 event block (E line first). */

@@ -9,7 +9,7 @@ import { packResults, resultBuffers, type LinesTask, type PackedTask, type Worke
 import { formatForSink } from './export';
 import { countBatch } from './pipeline/delivery';
 import { processLineBatch } from './process-lines';
-import { ParticleScratch } from './record';
+import { ParticleScratch } from './particle-scratch';
 
 const scratch = new ParticleScratch();
 
@@ -36,7 +36,7 @@ function processPacked(task: PackedTask): WorkerResult {
 
 function processLines(task: LinesTask): WorkerResult {
   const times = task.timings ? { parse: 0, physics: 0, format: 0 } : null;
-  const o = processLineBatch(task.format, task.lines, task.lineNos, task.context, task.settings, task.skipBad, scratch, times);
+  const o = processLineBatch(task.format, task.batch, task.context, task.settings, task.skipBad, scratch, times);
   const m = o.metas;
   let r: WorkerResult;
   if (task.sinkFormat) {

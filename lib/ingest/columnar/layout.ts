@@ -13,7 +13,7 @@
 import { fromPtYPhiM, toGeV } from '../../physics/fourvector';
 import { IngestError } from '../errors';
 import { validateParticlesHeader, type IngestHeader } from '../header';
-import { quickParticleProblem } from '../record';
+import { quickParticleProblem } from '../particle-scratch';
 import type { ParticleRecord } from '../types';
 
 /** What a reader found out about one column of the file. */

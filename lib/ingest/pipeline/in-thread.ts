@@ -5,7 +5,7 @@ import { processRecord } from '../../physics/process-record';
 import type { RecordResult } from '../../physics/types';
 import { formatForSink } from '../export';
 import { processLineBatch } from '../process-lines';
-import { ParticleScratch } from '../record';
+import { ParticleScratch } from '../particle-scratch';
 import { addStage, checkAbort, processingError, recordMeta, type BatchRun } from './batches';
 import { countBatch } from './delivery';
 import type { WorkerFormat } from './sink';
@@ -25,7 +25,7 @@ export async function processInThisThread(run: BatchRun, sinkFormat: WorkerForma
       if (next.done) break;
       const b = next.value;
       checkAbort(run);
-      const o = processLineBatch(raw.kind, b.lines, b.lineNos, raw.context, settings, raw.skipBad, scratch, run.stages);
+      const o = processLineBatch(raw.kind, b, raw.context, settings, raw.skipBad, scratch, run.stages);
       t = performance.now();
       for (const pr of o.problems) raw.rejected(pr.error);
       if (o.error) throw processingError(o.metas[o.error.index].line, where, o.error.message);

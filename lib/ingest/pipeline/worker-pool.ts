@@ -5,7 +5,7 @@
 import { existsSync } from 'node:fs';
 import path from 'node:path';
 import type { Piscina } from 'piscina';
-import { packTask, resultRecords, taskBuffers, unpackMeta, unpackResults, type LinesTask, type WorkerResult, type WorkerTask } from '../codec';
+import { packTask, resultRecords, lineBuffers, taskBuffers, unpackMeta, unpackResults, type LinesTask, type WorkerResult, type WorkerTask } from '../codec';
 import { IngestError } from '../errors';
 import type { ParticleRecord } from '../types';
 import { addStage, checkAbort, processingError, recordMeta, type BatchRun } from './batches';
@@ -92,8 +92,7 @@ export class WorkerPoolProcessing {
           kind: 'lines',
           format: raw.kind,
           settings,
-          lines: b.lines,
-          lineNos: b.lineNos,
+          batch: b,
           context: raw.context,
           skipBad: raw.skipBad,
           sinkFormat,
@@ -122,7 +121,7 @@ export class WorkerPoolProcessing {
   }
 
   private submit(task: WorkerTask, records: ParticleRecord[] | null): InFlight {
-    const transferList = task.kind === 'packed' ? taskBuffers(task) : [task.lineNos.buffer as ArrayBuffer];
+    const transferList = task.kind === 'packed' ? taskBuffers(task) : lineBuffers(task.batch);
     const item: InFlight = { records, settled: false, promise: null as unknown as InFlight['promise'] };
     item.promise = (this.pool.run(task, { transferList }) as Promise<WorkerResult>).then(
       (w) => {
