@@ -151,6 +151,24 @@ describe('mentions and replies', () => {
     expect(rows.map((r) => [r.user_id, r.kind])).toEqual([[commenter.id, 'reply']]);
   });
 
+  it('tells the members an edit newly mentions, once, and not those the comment already mentioned', async () => {
+    const before = (await notifications()).length;
+    const made = await owner.client.post(regions(), { title: 'Edited mention', comment: 'Started.', geometry: rectangle });
+    const path = regions(`/${made.body.region.id}/comments`);
+    const ownerMention = `@[${owner.name}](user:${owner.id})`;
+    const posted = await commenter.client.post(path, { body: `Thanks ${ownerMention}` });
+    expect((await notifications()).slice(before).map((r) => [r.user_id, r.kind])).toEqual([[owner.id, 'mention']]);
+    const commentPath = `${path}/${posted.body.comment.id}`;
+    const added = `Thanks ${ownerMention}, and @[${viewer.name}](user:${viewer.id}) should see this too`;
+    expect((await commenter.client.patch(commentPath, { body: added })).status).toBe(200);
+    const rows = (await notifications()).slice(before + 1);
+    expect(rows.map((r) => [r.user_id, r.kind, r.actor_id])).toEqual([[viewer.id, 'mention', commenter.id]]);
+    expect(rows[0].summary).toBe(`${commenter.name} mentioned you on region “Edited mention”`);
+    // Editing again with the same mentions tells nobody.
+    expect((await commenter.client.patch(commentPath, { body: `${added}.` })).status).toBe(200);
+    expect((await notifications()).length).toBe(before + 2);
+  });
+
   it('does not tell whether an address or id outside the study exists: the answer is the same', async () => {
     const made = await commenter.client.post(regions(), { title: 'Probe', comment: 'x', geometry: rectangle });
     const path = regions(`/${made.body.region.id}/comments`);

@@ -6,6 +6,7 @@ import { idParam } from '@/lib/api/schemas';
 import { readJsonBody } from '@/lib/api/validation';
 import { studyAccess } from '@/lib/auth/study-access';
 import { db } from '@/lib/db/connection';
+import { editComment } from '@/lib/regions/comments';
 import { commentChangeSchema } from '@/lib/regions/input';
 import { regionComment, studyRegion } from '@/lib/regions/queries';
 import { mayDeleteComment, mayEditComment } from '@/lib/regions/rules';
@@ -16,7 +17,7 @@ export const runtime = 'nodejs';
 
 const params = z.object({ studyId: idParam, regionId: idParam, commentId: idParam });
 
-/** Changes one's own comment; the change is marked. Mentions added by an edit tell nobody (only new comments do). */
+/** Changes one's own comment; the change is marked, and the members it newly mentions are told. */
 export const PATCH = signedInRoute({ params }, async ({ request, params, user }) => {
   const { study, myRole } = await studyAccess(user, params.studyId, 'commenter');
   const { body } = await readJsonBody(request, commentChangeSchema, BODY_LIMITS.standard);
@@ -25,7 +26,7 @@ export const PATCH = signedInRoute({ params }, async ({ request, params, user })
     const found = await regionComment(region.id, params.commentId, transaction);
     if (!mayEditComment({ id: user.id, siteRole: user.siteRole, myRole }, found.authorId)) throw forbidden('Only its author may edit a comment.');
     if (found.deletedAt) throw conflict('deleted', 'This comment was deleted.');
-    await found.update({ body, editedAt: new Date() }, { transaction });
+    await editComment(region, user, found, body, transaction);
     return commentView(await regionComment(region.id, found.id, transaction));
   });
   return json({ comment });
