@@ -5,9 +5,10 @@
 //
 // With p = 0 all momentum factors are 1, so diJ = ΔR² to the NN and the clustering merges, at each step, the
 // geometrically closest pair. The jet's constituents occupy a compact (y, φ) region, tiled here by a grid in
-// (y, u = φ − φ_ref folded into (−π, π]) (valid because the region is narrower than π/2 in φ, so |Δu| is the
-// folded Δφ); tiles hold GRID_OCC jets on average and the grid is rebuilt, coarser, each time the number of jets
-// has fallen by GRID_REBUILD. NN searches go ring by ring and stop when the ring's distance lower bound exceeds
+// (y, u = φ − φ_ref folded into (−π, π]) (valid while the region is narrower than π in φ: |Δu| is then the
+// folded Δφ; GRID_MAX_SPREAD keeps a margin below π, and a merged jet's azimuth stays between its parents'); tiles
+// hold GRID_OCC jets on average and the grid is rebuilt, coarser, each time the number of jets has fallen by
+// GRID_REBUILD. NN searches go ring by ring and stop when the ring's distance lower bound exceeds
 // the best distance. A jet is "near" when its NN is closer than GRID_NEAR tile sides; the tiles keep an upper
 // bound of their near jets' NN distances, and the other ("far") jets are kept in a list, so that the jets for
 // which a new jet becomes the NN are found among the near tiles around it and in the far list.
@@ -24,6 +25,8 @@ import type { ClusterWorkspace } from './workspace';
 const PI = Math.PI;
 
 const GRID_OCC = 2;
+/** Widest spread in φ the grid takes (wide jets, such as R = 1.2 ones, up to 2.8 rad); wider ones use the plain loop. */
+const GRID_MAX_SPREAD = 0.9 * PI;
 const GRID_NEAR = 1;
 const GRID_REBUILD = 4;
 
@@ -207,7 +210,7 @@ function gridSearch(ws: ClusterWorkspace, i: number, reverse: boolean): void {
 
 /**
  * C/A with an infinite radius on the particles loaded in ws, grid strategy. Returns false (having done nothing)
- * when the particles are spread over π/2 or more in φ (the plain strategy must then be used).
+ * when the particles are spread over GRID_MAX_SPREAD or more in φ (the plain strategy must then be used).
  */
 export function clusterGridCA(ws: ClusterWorkspace, track: boolean): boolean {
   const n = ws.n;
@@ -220,7 +223,7 @@ export function clusterGridCA(ws: ClusterWorkspace, track: boolean): boolean {
     if (u > uMax) uMax = u;
     sU[i] = u;
   }
-  if (!(uMax - uMin < PI / 2)) return false;
+  if (!(uMax - uMin < GRID_MAX_SPREAD)) return false;
   loadSlots(ws, n);
   for (let i = 0; i < n; i++) {
     sNN[i] = -1;

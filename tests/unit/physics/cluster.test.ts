@@ -179,6 +179,34 @@ describe('strategies agree', () => {
     }
   });
 
+  it('the C/A grid takes wide jets (R = 1.2, across φ = 0) and gives the plain loop\'s tree, its bookkeeping checked', () => {
+    // Constituents of a wide jet: a core and a flat spray over a disk of radius 1.2 centred at φ = 0.1, so the jet
+    // spans about 2.4 rad in φ and crosses φ = 0 (the folding of φ must hold across it).
+    const rng = new Rng(2026);
+    for (const n of [300, 600]) {
+      const p = new Float64Array(4 * n);
+      for (let i = 0; i < n; i++) {
+        const r = i < n / 3 ? 0.05 * Math.abs(rng.normal()) : 1.2 * Math.sqrt(rng.next());
+        const a = rng.uniform(0, TWO_PI);
+        fromPtYPhiM(Math.exp(rng.uniform(-1, 4)), 0.3 + r * Math.cos(a), (0.1 + r * Math.sin(a) + TWO_PI) % TWO_PI, 0, p, 4 * i);
+      }
+      const [A, B] = runBoth(p, 0, Infinity);
+      // The grid ran (the plain loop evaluates at least n(n−1)/2 pair distances at its start).
+      expect(B.ops).toBeLessThan((n * (n - 1)) / 4);
+      expect(B.nNodes).toBe(A.nNodes);
+      for (let k = n; k < A.nNodes; k++) {
+        expect(B.E[k]).toBe(A.E[k]);
+        expect(B.pz[k]).toBe(A.pz[k]);
+        expect(Math.min(B.parent1[k], B.parent2[k])).toBe(Math.min(A.parent1[k], A.parent2[k]));
+      }
+      const ws = new ClusterWorkspace();
+      ws.verify = true;
+      loadParticles(ws, p, n);
+      cluster(ws, { p: 0, R: Infinity, strategy: 'tiled' });
+      expect(ws.nJets).toBe(1);
+    }
+  });
+
   it('NN bookkeeping checked by brute force after every step, on many irregular configurations', () => {
     // Clumps of random size, isolated particles, wide pt range: exercises NN searches across tiles, the
     // reverse-NN lists, the tile bounds and the far list of the grid (a missed update fails the check).
