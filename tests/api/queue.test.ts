@@ -33,7 +33,8 @@ describe('fair order and the per-person limit', () => {
   afterAll(() => server?.stop());
 
   it('starts a newcomer’s first job before the rest of a long queue, and limits each person’s queue', async () => {
-    const long = await upload(busy.client, { studyId, name: 'Long', file: slowEventsFile(3000) });
+    // Long enough that the uploads below all arrive while it runs (the engine reads about 2 000 such events a second).
+    const long = await upload(busy.client, { studyId, name: 'Long', file: slowEventsFile(6000) });
     expect(long.status, long.text).toBe(202);
     await waitForSample(busy.client, long.body.sample.id, (sample) => sample.state === 'running', 'running');
     const queued = [];

@@ -42,10 +42,11 @@ describe('one server', () => {
   afterAll(() => server?.stop());
 
   it('runs one job at a time, reports progress, and cancels a running and a queued job without a trace', async () => {
-    const first = await upload(owner, { studyId, name: 'First', file: slowEventsFile(SLOW_EVENTS, 'a') });
-    const second = await upload(owner, { studyId, name: 'Second', file: slowEventsFile(SLOW_EVENTS, 'b') });
-    expect([first.status, second.status]).toEqual([202, 202]);
-    const [a, b] = [first.body.sample.id, second.body.sample.id];
+    // The second upload is made once the first job is seen running (a long file), so that the first cannot have
+    // finished before it arrives however fast the engine is; it is small, and must wait in the queue.
+    const first = await upload(owner, { studyId, name: 'First', file: slowEventsFile(2 * SLOW_EVENTS, 'a') });
+    expect(first.status).toBe(202);
+    const a = first.body.sample.id;
 
     const running = await waitForSample(owner, a, isRunningWithProgress, 'running with progress');
     expect(running.progress).toMatchObject({
@@ -58,6 +59,9 @@ describe('one server', () => {
     });
     expect(running.progress.fraction).toBeGreaterThan(0);
     expect(running.progress.fraction).toBeLessThan(1);
+    const second = await upload(owner, { studyId, name: 'Second', file: slowEventsFile(100, 'b') });
+    expect(second.status).toBe(202);
+    const b = second.body.sample.id;
     expect((await owner.get(`/api/samples/${b}`)).body.sample.state).toBe('queued');
 
     const cancelledQueued = await owner.post(`/api/samples/${b}/cancel`);
