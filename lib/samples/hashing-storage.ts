@@ -10,6 +10,9 @@ import type { StorageEngine } from 'multer';
 import { uploadKey } from '@/lib/objects/keys';
 import { newUploadFileName, removeUpload, type SampleStorage, uploadPath } from './storage';
 
+/** Bytes of the upload queued for the disk at most (the memory this costs a running upload). */
+const WRITE_BUFFER_BYTES = 4 << 20;
+
 /** What the engine adds to multer's file object. */
 export interface StoredUploadInfo {
   /** The generated name under uploads/. */
@@ -68,7 +71,8 @@ export class HashingUploadStorage implements StorageEngine {
       return key;
     }
     const target = uploadPath(this.storage, storedName);
-    await pipeline(file.stream, measure, createWriteStream(target, { flags: 'wx' }));
+    // A deep buffer lets the disk write while more of the body arrives (the default 16 KiB made each piece wait).
+    await pipeline(file.stream, measure, createWriteStream(target, { flags: 'wx', highWaterMark: WRITE_BUFFER_BYTES }));
     return target;
   }
 
