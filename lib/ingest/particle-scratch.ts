@@ -6,8 +6,13 @@ import { particleProblem } from '../physics/fourvector';
 /** A growable scratch buffer of particles (px, py, pz, E), reused from record to record. */
 export class ParticleScratch {
   buf = new Float64Array(4 * 1024);
+  /** Room for `doubles` values; what the buffer holds is kept (a reader may grow it while it fills it). */
   ensure(doubles: number): Float64Array {
-    if (this.buf.length < doubles) this.buf = new Float64Array(Math.max(doubles, 2 * this.buf.length));
+    if (this.buf.length < doubles) {
+      const bigger = new Float64Array(Math.max(doubles, 2 * this.buf.length));
+      bigger.set(this.buf);
+      this.buf = bigger;
+    }
     return this.buf;
   }
 }

@@ -29,6 +29,14 @@ describe('HepMC3 ASCII reader', () => {
     g.records.forEach((r, i) => expect(Array.from(r.particles)).toEqual(Array.from(events[i])));
   });
 
+  it('reads an event larger than the particle buffer whole (the buffer grows while the event is read)', async () => {
+    // 3 000 final-state particles: more than the reused buffer's first size (1 024 particles), so it grows
+    // mid-event and must keep the particles already read.
+    const [big] = generateEvents(12, 1, { nParticles: 3000, nJets: 4 });
+    const { records } = await readAll(t.file('big.hepmc', hepmc3Text([big])));
+    expect(Array.from(records[0].particles)).toEqual(Array.from(big));
+  });
+
   it('converts MeV to GeV', async () => {
     const { records } = await readAll(t.file('mev.hepmc', hepmc3Text(events.slice(0, 1), { unit: 'MEV' })));
     Array.from(records[0].particles).forEach((v, i) => expect(v).toBeCloseTo(events[0][i], 9));
