@@ -108,7 +108,7 @@ async function json(argv: string[]): Promise<void> {
     const r = await openParticleFile(file);
     records = 0;
     for await (const b of r.raw!.rawBatches()) {
-      if (b.form !== 'bytes') throw new Error('json: byte batches expected');
+      if (b.kind !== 'jsonl') throw new Error('json: JSON Lines batches expected');
       for (let i = 0; i < b.lineNos.length; i++) sink += parseRecordBytesInto(b.bytes, b.starts[i], b.ends[i], b.lineNos[i], context, scratch).n;
       records += b.lineNos.length;
     }

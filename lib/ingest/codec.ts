@@ -28,7 +28,6 @@ export interface PackedTask {
 /** Unparsed records (JSON Lines records or HepMC3 event blocks): the worker parses, validates and processes them. */
 export interface LinesTask {
   kind: 'lines';
-  format: 'jsonl' | 'hepmc3';
   settings: ProcessSettings;
   batch: RawLineBatch;
   context: RecordContext;
@@ -113,7 +112,7 @@ export function packTask(records: ParticleRecord[], settings: ProcessSettings): 
 
 /** The transferable buffers of a lines task's batch. */
 export function lineBuffers(b: RawLineBatch): ArrayBuffer[] {
-  const arrays = b.form === 'bytes' ? [b.bytes, b.starts, b.ends, b.lineNos] : [b.lineNos];
+  const arrays = b.kind === 'jsonl' ? [b.bytes, b.starts, b.ends, b.lineNos] : [b.lineNos];
   return arrays.map((a) => a.buffer as ArrayBuffer);
 }
 

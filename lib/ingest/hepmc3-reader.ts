@@ -235,13 +235,13 @@ export class HepMC3Reader extends BaseReader implements RawLineSource {
       nos.push(b.line);
       chars += b.text.length;
       if (chars >= maxChars || texts.length >= maxRecords) {
-        yield { form: 'text', lines: texts, lineNos: Float64Array.from(nos) };
+        yield { kind: 'hepmc3', lines: texts, lineNos: Float64Array.from(nos) };
         texts = [];
         nos = [];
         chars = 0;
       }
     }
-    if (texts.length) yield { form: 'text', lines: texts, lineNos: Float64Array.from(nos) };
+    if (texts.length) yield { kind: 'hepmc3', lines: texts, lineNos: Float64Array.from(nos) };
   }
 
   accepted(n: number): void {

@@ -56,7 +56,7 @@ class JsonLinesReader extends BaseReader implements RawLineSource {
     let nos = new Float64Array(maxRecords);
     let n = 0, used = 0;
     const flush = (): RawLineBatch => {
-      const b: RawLineBatch = { form: 'bytes', bytes: bytes.subarray(0, used), starts: starts.slice(0, n), ends: ends.slice(0, n), lineNos: nos.slice(0, n) };
+      const b: RawLineBatch = { kind: 'jsonl', bytes: bytes.subarray(0, used), starts: starts.slice(0, n), ends: ends.slice(0, n), lineNos: nos.slice(0, n) };
       bytes = new Uint8Array(maxChars);
       n = used = 0;
       return b;

@@ -7,7 +7,7 @@ import type { ProcessSettings, RecordResult } from '../physics/types';
 import { IngestError } from './errors';
 import { parseHepMCEventInto } from './hepmc3-reader';
 import { ParticleScratch } from './particle-scratch';
-import { parseRecordBytesInto, parseRecordLineInto } from './record';
+import { parseRecordBytesInto } from './record';
 import type { RawLineBatch, RecordContext } from './types';
 import type { RecordMeta, StageTimes } from './pipeline/sink';
 
@@ -22,7 +22,6 @@ export interface LineBatchOutcome {
 }
 
 export function processLineBatch(
-  kind: 'jsonl' | 'hepmc3',
   batch: RawLineBatch,
   context: RecordContext,
   settings: ProcessSettings,
@@ -40,9 +39,9 @@ export function processLineBatch(
   for (let i = 0; i < lineNos.length; i++) {
     let rec;
     try {
-      if (batch.form === 'bytes') rec = parseRecordBytesInto(batch.bytes, batch.starts[i], batch.ends[i], lineNos[i], context, scratch);
-      else if (kind === 'hepmc3') rec = parseHepMCEventInto(batch.lines[i], lineNos[i], scratch);
-      else rec = parseRecordLineInto(batch.lines[i], lineNos[i], context, scratch);
+      rec = batch.kind === 'jsonl'
+        ? parseRecordBytesInto(batch.bytes, batch.starts[i], batch.ends[i], lineNos[i], context, scratch)
+        : parseHepMCEventInto(batch.lines[i], lineNos[i], scratch);
     } catch (e) {
       if (!(e instanceof IngestError)) throw e;
       problems.push({ before: results.length, error: e });

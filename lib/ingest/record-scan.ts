@@ -46,7 +46,7 @@ function stringEnd(b: Uint8Array, i: number, end: number): number {
 /** Which of the three keys the string b[from, to) is (0 for none). */
 function keyOf(b: Uint8Array, from: number, to: number): number {
   const n = to - from;
-  if (n === 2 && b[from] === 105 && b[from + 1] === 100) return KEY_ID;
+  if (n === 2 && asciiIs(b, from, 'id')) return KEY_ID;
   if (n === 6 && asciiIs(b, from, 'weight')) return KEY_WEIGHT;
   if (n === 9 && asciiIs(b, from, 'particles')) return KEY_PARTICLES;
   return 0;
@@ -62,7 +62,7 @@ function asciiIs(b: Uint8Array, at: number, word: string): boolean {
  * the position after it, or −1 when it is not an array of 4-number arrays. The count is left in scanned.n.
  */
 function readParticles(b: Uint8Array, i: number, end: number, scratch: ParticleScratch, k: number): number {
-  let buf = scratch.buf;
+  let buf: Float64Array = scratch.buf;
   let n = 0;
   i = skipSpace(b, i + 1, end);
   if (byteAt(b, i, end) === 93) {
@@ -72,11 +72,7 @@ function readParticles(b: Uint8Array, i: number, end: number, scratch: ParticleS
   for (;;) {
     if (byteAt(b, i, end) !== 91) return -1;
     const at = 4 * n;
-    if (buf.length < at + 4) {
-      const grown = new Float64Array(2 * buf.length);
-      grown.set(buf);
-      buf = scratch.buf = grown;
-    }
+    if (buf.length < at + 4) buf = scratch.ensure(at + 4);
     for (let q = 0; q < 4; q++) {
       i = readJsonNumber(b, skipSpace(b, i + 1, end), end, buf, at + q);
       if (i < 0) return -1;

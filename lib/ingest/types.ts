@@ -64,13 +64,13 @@ export interface ParticleReader {
 }
 
 /**
- * Consecutive records, unparsed (see RawLineSource.kind), with their 1-based (first) line numbers: JSON Lines
- * records as UTF-8 bytes (record i is bytes[starts[i], ends[i]); the buffers can be handed to a worker thread),
- * HepMC3 event blocks as strings.
+ * Consecutive records, unparsed, with their 1-based (first) line numbers: JSON Lines records as UTF-8 bytes
+ * (record i is bytes[starts[i], ends[i]); the buffers can be handed to a worker thread), HepMC3 event blocks as
+ * strings.
  */
 export type RawLineBatch =
-  | { form: 'bytes'; bytes: Uint8Array; starts: Int32Array; ends: Int32Array; lineNos: Float64Array }
-  | { form: 'text'; lines: string[]; lineNos: Float64Array };
+  | { kind: 'jsonl'; bytes: Uint8Array; starts: Int32Array; ends: Int32Array; lineNos: Float64Array }
+  | { kind: 'hepmc3'; lines: string[]; lineNos: Float64Array };
 
 export interface RawLineSource {
   /** 'jsonl': each text is one JSON Lines record; 'hepmc3': each text is one HepMC3 event block (E line first). */

@@ -36,7 +36,7 @@ function processPacked(task: PackedTask): WorkerResult {
 
 function processLines(task: LinesTask): WorkerResult {
   const times = task.timings ? { parse: 0, physics: 0, format: 0 } : null;
-  const o = processLineBatch(task.format, task.batch, task.context, task.settings, task.skipBad, scratch, times);
+  const o = processLineBatch(task.batch, task.context, task.settings, task.skipBad, scratch, times);
   const m = o.metas;
   let r: WorkerResult;
   if (task.sinkFormat) {

@@ -25,7 +25,7 @@ export async function processInThisThread(run: BatchRun, sinkFormat: WorkerForma
       if (next.done) break;
       const b = next.value;
       checkAbort(run);
-      const o = processLineBatch(raw.kind, b, raw.context, settings, raw.skipBad, scratch, run.stages);
+      const o = processLineBatch(b, raw.context, settings, raw.skipBad, scratch, run.stages);
       t = performance.now();
       for (const pr of o.problems) raw.rejected(pr.error);
       if (o.error) throw processingError(o.metas[o.error.index].line, where, o.error.message);

@@ -90,7 +90,6 @@ export class WorkerPoolProcessing {
         const b = next.value;
         const task: LinesTask = {
           kind: 'lines',
-          format: raw.kind,
           settings,
           batch: b,
           context: raw.context,
