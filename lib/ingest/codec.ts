@@ -67,6 +67,8 @@ export interface WorkerResult {
    */
   bytes: Uint8Array | null;
   counts: BatchCounts | null;
+  /** Lines tasks of JSON Lines: the batch's byte buffer, handed back so that the reader can fill it again. */
+  spent: ArrayBuffer | null;
   /** Lines tasks with timings: the worker's stage times (seconds). */
   times: Pick<StageTimes, 'parse' | 'physics' | 'format'> | null;
 }
@@ -170,7 +172,7 @@ export function packResults(results: RecordResult[], error: WorkerResult['error'
       }
     }
   }
-  return { perRecord, jets, primary, all, meta: null, problems: [], error, bytes: null, counts: null, times: null };
+  return { perRecord, jets, primary, all, meta: null, problems: [], error, bytes: null, counts: null, spent: null, times: null };
 }
 
 /** The number of records a worker result holds. */
@@ -232,5 +234,6 @@ export function resultBuffers(r: WorkerResult): ArrayBuffer[] {
   const b = [r.perRecord.buffer, r.jets.buffer, r.primary.buffer, r.all.buffer] as ArrayBuffer[];
   if (r.meta) b.push(r.meta.weights.buffer as ArrayBuffer, r.meta.lines.buffer as ArrayBuffer, r.meta.nParticles.buffer as ArrayBuffer);
   if (r.bytes) b.push(r.bytes.buffer as ArrayBuffer);
+  if (r.spent) b.push(r.spent);
   return b;
 }

@@ -1,8 +1,14 @@
 // Fast line source over a byte stream: plain or gzip (detected by the magic bytes 1f 8b), any size,
 // bounded memory. Lines are handed out in arrays per decoded chunk so that the hot loop stays synchronous.
 // Line numbers are 1-based and count every line of the (decompressed) text, blank ones included.
+//
+// The text is read into one reused buffer (the window), a plain file straight from its file handle: each read
+// appends to the start of a line left over from the last one, and the complete lines before the last LF are
+// handed out as one region. No buffer is made a read, which kept the main thread's garbage collector busy (each
+// new megabyte counts as external memory, and V8 collects when that grows).
 
 import { createReadStream, promises as fsp } from 'node:fs';
+import type { FileHandle } from 'node:fs/promises';
 import { Readable, pipeline } from 'node:stream';
 import zlib from 'node:zlib';
 import { IngestError } from './errors';
@@ -10,6 +16,9 @@ import { gzipExtent } from './gzip-extent';
 
 /** Longest single line accepted (and the size limit of the one-document form). */
 export const DEFAULT_MAX_LINE_BYTES = 256 * 1024 * 1024;
+
+/** Size of the window the text is read into (it grows for a longer line, and shrinks back after it). */
+const WINDOW_BYTES = 1 << 20;
 
 export interface LineSourceOptions {
   /** Size of the raw input in bytes when known (progress). */
@@ -45,6 +54,7 @@ export class LineSource {
   gzip = false;
   readonly name: string;
   private readonly file: string | null;
+  private readonly input: Readable | null;
 
   /** String mode: the lines of the current region, decoded, and the next one to hand out. */
   private buf: string[] = [];
@@ -56,12 +66,18 @@ export class LineSource {
   lineBytes: Buffer = Buffer.alloc(0);
   lineStart = 0;
   lineEnd = 0;
-  /** Bytes of a line not yet complete (after the last LF read). */
-  private restParts: Buffer[] = [];
-  private restLen = 0;
+  /** Text read and not yet cut into regions: window[0, winLen); the current region is window[0, regionEnd). */
+  private window = Buffer.allocUnsafe(WINDOW_BYTES);
+  private winLen = 0;
+  private regionEnd = 0;
   private ended = false;
   private started = false;
+  /** A plain file is read through its handle; any other input (gzip, a stream) through `iter`. */
+  private readonly handle: FileHandle | null;
   private iter: AsyncIterator<Buffer> | null = null;
+  /** The part of the stream's last chunk that did not fit in the window yet: pending[pendingAt..]. */
+  private pending: Uint8Array | null = null;
+  private pendingAt = 0;
   private readonly maxLine: number;
   private readonly maxText: number;
   /** Bytes of text (decompressed) read so far. */
@@ -69,7 +85,10 @@ export class LineSource {
   private sawAnyByte = false;
   private bomChecked = false;
 
-  constructor(private readonly input: Readable, opts: LineSourceOptions = {}) {
+  /** `input`: a byte stream, or the handle of a plain (not gzip) file opened for reading (closed at its end). */
+  constructor(input: Readable | FileHandle, opts: LineSourceOptions = {}) {
+    this.input = input instanceof Readable ? input : null;
+    this.handle = input instanceof Readable ? null : input;
     this.bytesTotal = opts.bytesTotal ?? null;
     this.maxLine = opts.maxLineLength ?? DEFAULT_MAX_LINE_BYTES;
     this.maxText = opts.maxTextBytes ?? Infinity;
@@ -165,56 +184,113 @@ export class LineSource {
 
   /**
    * The next run of complete lines as bytes (ending with LF, or the input's last line without it), null at the
-   * end. A line never spans two regions, so a region decodes on its own (no character is cut).
+   * end. A line never spans two regions, so a region decodes on its own (no character is cut). The region is a
+   * view of the window, valid until the next call.
    */
   private async nextRegion(): Promise<Buffer | null> {
+    this.keepRest();
     while (!this.ended) {
-      let chunk = await this.nextChunk();
-      if (chunk === null) {
+      if (this.winLen === this.window.length) this.growWindow();
+      let from = this.winLen;
+      if (!(await this.readMore())) {
         this.ended = true;
-        if (this.restLen === 0) return null;
-        const last = this.restParts.length === 1 ? this.restParts[0] : Buffer.concat(this.restParts);
-        this.restParts = [];
-        this.restLen = 0;
-        return last;
+        break;
       }
-      if (!this.bomChecked && this.restLen + chunk.length >= 3) {
+      if (!this.bomChecked && this.winLen >= 3) {
         this.bomChecked = true;
-        if (this.restLen > 0) {
-          chunk = Buffer.concat([...this.restParts, chunk]);
-          this.restParts = [];
-          this.restLen = 0;
+        const w = this.window;
+        if (w[0] === 0xef && w[1] === 0xbb && w[2] === 0xbf) {
+          w.copyWithin(0, 3, this.winLen);
+          this.winLen -= 3;
+          from = 0;
         }
-        if (chunk[0] === 0xef && chunk[1] === 0xbb && chunk[2] === 0xbf) chunk = chunk.subarray(3);
       }
-      const nl = chunk.lastIndexOf(10);
+      // Only the new bytes can hold an LF: the ones before them are the start of a line.
+      const nl = this.window.subarray(from, this.winLen).lastIndexOf(10);
       if (nl < 0) {
-        if (chunk.length) {
-          this.restParts.push(chunk);
-          this.restLen += chunk.length;
-          if (this.restLen > this.maxLine) {
-            const size = sizeText(this.maxLine);
-            throw new IngestError(
-              `the line is longer than ${size}: the one-document form (a single JSON object with "records") is accepted only up to ${size}; ` +
-                'write larger samples as JSON Lines (the header on line 1, then one record a line)',
-              { line: this.lineNo + 1, code: 'size' },
-            );
-          }
+        if (this.winLen > this.maxLine) {
+          const size = sizeText(this.maxLine);
+          throw new IngestError(
+            `the line is longer than ${size}: the one-document form (a single JSON object with "records") is accepted only up to ${size}; ` +
+              'write larger samples as JSON Lines (the header on line 1, then one record a line)',
+            { line: this.lineNo + 1, code: 'size' },
+          );
         }
         continue;
       }
-      let region = chunk.subarray(0, nl + 1);
-      if (this.restLen > 0) region = Buffer.concat([...this.restParts, region]);
-      this.restParts = nl + 1 < chunk.length ? [chunk.subarray(nl + 1)] : [];
-      this.restLen = chunk.length - nl - 1;
-      return region;
+      this.regionEnd = from + nl + 1;
+      return this.window.subarray(0, this.regionEnd);
     }
-    return null;
+    if (this.winLen === 0) return null;
+    this.regionEnd = this.winLen;
+    return this.window.subarray(0, this.winLen);
+  }
+
+  /** Drops the region handed out last: the start of a line after it moves to the front of the window. */
+  private keepRest(): void {
+    if (this.regionEnd === 0) return;
+    const rest = this.winLen - this.regionEnd;
+    if (this.window.length > WINDOW_BYTES && rest < WINDOW_BYTES / 2) {
+      // Back to the usual size after a long line.
+      const w = Buffer.allocUnsafe(WINDOW_BYTES);
+      this.window.copy(w, 0, this.regionEnd, this.winLen);
+      this.window = w;
+    } else this.window.copyWithin(0, this.regionEnd, this.winLen);
+    this.winLen = rest;
+    this.regionEnd = 0;
+  }
+
+  /** A window full of one unfinished line: twice the room. */
+  private growWindow(): void {
+    const w = Buffer.allocUnsafe(2 * this.window.length);
+    this.window.copy(w, 0, 0, this.winLen);
+    this.window = w;
+  }
+
+  /** Reads more text into the window after winLen; false at the end of the input. */
+  private async readMore(): Promise<boolean> {
+    const room = this.window.length - this.winLen;
+    let got: number;
+    if (this.handle) {
+      const h = this.handle;
+      got = (await this.wrapIo(() => h.read(this.window, this.winLen, room, null))).bytesRead;
+      if (got === 0) {
+        await h.close().catch(() => undefined);
+        return false;
+      }
+      this.bytesRead += got;
+      this.countText(got);
+    } else {
+      if (this.pending === null || this.pendingAt === this.pending.length) {
+        const chunk = await this.nextChunk();
+        if (chunk === null) return false;
+        this.pending = chunk;
+        this.pendingAt = 0;
+      }
+      got = Math.min(room, this.pending.length - this.pendingAt);
+      this.window.set(this.pending.subarray(this.pendingAt, this.pendingAt + got), this.winLen);
+      this.pendingAt += got;
+    }
+    this.winLen += got;
+    return true;
+  }
+
+  /** Counts text read, refusing more than maxTextBytes. */
+  private countText(n: number): void {
+    this.sawAnyByte = true;
+    this.textBytes += n;
+    if (this.textBytes > this.maxText) {
+      const what = this.gzip ? 'once decompressed, the file holds' : 'the file holds';
+      throw new IngestError(
+        `${what} more than ${sizeText(this.maxText)} of text, the most this server reads; it was stopped after line ${this.lineNo}`,
+        { line: this.lineNo + 1, code: 'limit' },
+      );
+    }
   }
 
   private async start(): Promise<void> {
     this.started = true;
-    const raw = this.input[Symbol.asyncIterator]() as AsyncIterator<Buffer>;
+    const raw = this.input![Symbol.asyncIterator]() as AsyncIterator<Buffer>;
     // Peek at the first bytes (at least 2) to detect gzip.
     const head: Buffer[] = [];
     let headLen = 0;
@@ -282,20 +358,12 @@ export class LineSource {
     return new IngestError(`cannot read ${this.name}: ${err?.message ?? String(e)}`, { code: 'io', cause: e });
   }
 
-  private async nextChunk(): Promise<Buffer | null> {
+  private async nextChunk(): Promise<Uint8Array | null> {
     if (!this.started) await this.start();
     try {
       const r = await this.iter!.next();
       if (r.done) return null;
-      this.sawAnyByte = true;
-      this.textBytes += r.value.length;
-      if (this.textBytes > this.maxText) {
-        const what = this.gzip ? 'once decompressed, the file holds' : 'the file holds';
-        throw new IngestError(
-          `${what} more than ${sizeText(this.maxText)} of text, the most this server reads; it was stopped after line ${this.lineNo}`,
-          { line: this.lineNo + 1, code: 'limit' },
-        );
-      }
+      this.countText(r.value.length);
       return r.value;
     } catch (e) {
       throw await this.explainGzipEnd(this.translate(e));
@@ -320,23 +388,33 @@ export class LineSource {
   /** Stops reading and releases the file. */
   close(): void {
     this.ended = true;
-    this.input.destroy();
+    this.input?.destroy();
+    this.handle?.close().catch(() => undefined);
   }
 }
 
 /** Opens a file as a LineSource (size known for progress). */
 export async function openLineSource(path: string, opts: Omit<LineSourceOptions, 'bytesTotal' | 'name'> = {}): Promise<LineSource> {
+  let handle: FileHandle | null = null;
   let size: number;
+  let gzip: boolean;
   try {
-    const st = await fsp.stat(path);
+    handle = await fsp.open(path, 'r');
+    const st = await handle.stat();
     if (st.isDirectory()) throw new IngestError(`cannot read ${path}: it is a directory`, { code: 'io' });
     size = st.size;
+    const head = Buffer.alloc(2);
+    const { bytesRead } = await handle.read(head, 0, 2, 0);
+    gzip = bytesRead === 2 && head[0] === 0x1f && head[1] === 0x8b;
   } catch (e) {
+    await handle?.close().catch(() => undefined);
     if (e instanceof IngestError) throw e;
     const err = e as NodeJS.ErrnoException;
-    const why = err.code === 'ENOENT' ? 'no such file' : err.message;
+    const why = err.code === 'ENOENT' ? 'no such file' : err.code === 'EISDIR' ? 'it is a directory' : err.message;
     throw new IngestError(`cannot read ${path}: ${why}`, { code: 'io', cause: e });
   }
-  const stream = createReadStream(path, { highWaterMark: 1024 * 1024 });
-  return new LineSource(stream, { ...opts, bytesTotal: size, name: path, file: path });
+  const named = { ...opts, bytesTotal: size, name: path, file: path };
+  if (!gzip) return new LineSource(handle, named);
+  await handle.close();
+  return new LineSource(createReadStream(path, { highWaterMark: 1024 * 1024 }), named);
 }

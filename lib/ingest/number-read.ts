@@ -3,18 +3,22 @@
 //
 // Exact arithmetic decides every case it answers. The significant digits M (at most 19) and the decimal exponent
 // E give the value M·10^E, with 10^|E| an exact double for |E| ≤ 22:
-//  - M below 10^15 (exact as a double): one correctly rounded product or quotient gives the nearest double
+//  - M below 2^53 (exact as a double): one correctly rounded product or quotient gives the nearest double
 //    (W. D. Clinger, "How to read floating point numbers accurately", PLDI 1990, the fast path);
-//  - 16 to 19 digits: M held exactly as a double-double, scaled by 10^E with Dekker's twoProduct (T. J. Dekker,
-//    Numer. Math. 18 (1971) 224; Veltkamp's splitting, as number-text.ts) to within about 2^-100 of the value;
+//  - larger M (16 to 19 digits): M held exactly as a double-double, scaled by 10^E with Dekker's twoProduct
+//    (T. J. Dekker, Numer. Math. 18 (1971) 224; Veltkamp's splitting, as number-text.ts) to within about 2^-100;
 //    the double nearest to that is the answer unless the value lies within 2^-90 (relative) of a point halfway
 //    between two doubles.
 // Anything else — more than 19 significant digits, |E| > 22, the near-halfway cases — is read by Number() of the
 // number's text, which rounds the same way; so the result is always JSON.parse's. Bytes rather than a string:
-// charCodeAt measured three times slower a character than reading a Uint8Array.
+// charCodeAt measured three times slower a character than reading a Uint8Array. Digits after the point are taken
+// four at a time when four follow (one 32-bit read, checked and combined as a word): 55 → 44 ns a number on the
+// benchmark files.
 
 import { POW10, POW10_HI, POW10_LO, SPLITTER } from './number-text';
 
+/** 2^53: the integers below it are exact doubles. */
+const TWO_53 = 9007199254740992;
 /** 2^-90: the relative margin to a halfway point below which the double-double answer is not trusted. */
 const HALFWAY_MARGIN = Math.pow(2, -90);
 
@@ -57,6 +61,7 @@ export function readJsonNumber(text: Uint8Array, i: number, end: number, out: Fl
   if (c === 46) {
     c = ++i < end ? text[i] : 0;
     if (!(c >= 48 && c <= 57)) return -1;
+    const view = viewOf(text);
     do {
       const d = c - 48;
       if (nHi === 0) {
@@ -64,6 +69,20 @@ export function readJsonNumber(text: Uint8Array, i: number, end: number, out: Fl
         if (d !== 0) {
           hi = d;
           nHi = 1;
+        }
+      } else if (nHi <= 11 && i + 4 <= end) {
+        // Four digits at once when they are four (SWAR, the first digit in the lowest byte).
+        const x = view.getUint32(i, true);
+        if ((x & 0xf0f0f0f0) === 0x30303030 && ((x + 0x06060606) & 0xf0f0f0f0) === 0x30303030) {
+          const t = ((x - 0x30303030) * 10 + ((x - 0x30303030) >>> 8)) & 0x00ff00ff;
+          hi = hi * 1e4 + ((t & 0xff) * 100 + (t >>> 16));
+          nHi += 4;
+          dexp -= 4;
+          i += 3;
+        } else {
+          hi = hi * 10 + d;
+          nHi++;
+          dexp--;
         }
       } else if (nHi < 15) {
         hi = hi * 10 + d;
@@ -101,8 +120,11 @@ export function readJsonNumber(text: Uint8Array, i: number, end: number, out: Fl
     out[k] = numberOf(text, start, i);
     return i;
   }
-  if (nLo === 0) {
-    const v = dexp >= 0 ? hi * POW10[dexp] : hi / POW10[-dexp];
+  // Clinger's fast path whenever M is exact as a double: below 2^53 every step of hi·10^nLo + lo is exact (and a
+  // sum at or above 2^53 means M is too).
+  const m = nLo === 0 ? hi : hi * POW10[nLo] + lo;
+  if (m < TWO_53) {
+    const v = dexp >= 0 ? m * POW10[dexp] : m / POW10[-dexp];
     out[k] = neg ? -v : v;
     return i;
   }
@@ -145,6 +167,18 @@ export function readJsonNumber(text: Uint8Array, i: number, end: number, out: Fl
   const margin = x * HALFWAY_MARGIN;
   out[k] = x + (err + margin) === x && x + (err - margin) === x ? (neg ? -x : x) : numberOf(text, start, i);
   return i;
+}
+
+let viewed: Uint8Array | null = null;
+let view: DataView<ArrayBufferLike> = new DataView(new ArrayBuffer(0));
+
+/** A DataView of the bytes (kept while the same bytes are read). */
+function viewOf(text: Uint8Array): DataView<ArrayBufferLike> {
+  if (text !== viewed) {
+    viewed = text;
+    view = new DataView(text.buffer, text.byteOffset, text.byteLength);
+  }
+  return view;
 }
 
 /** The number written in text[start, end) (ASCII), read by Number(): the rare cases the arithmetic leaves. */

@@ -49,15 +49,20 @@ class JsonLinesReader extends BaseReader implements RawLineSource {
 
   async *rawBatches(maxChars = 1 << 20, maxRecords = 2048): AsyncGenerator<RawLineBatch> {
     const src = this.src;
-    // Each batch gets its own buffers (they may be handed to a worker thread); a line longer than the batch size
-    // grows the buffer.
-    let bytes = new Uint8Array(maxChars);
-    let starts = new Int32Array(maxRecords), ends = new Int32Array(maxRecords);
-    let nos = new Float64Array(maxRecords);
+    // Each batch gets its own byte buffer (it may be handed to a worker thread), a spare one given back by
+    // reuse() when there is one; a line longer than the batch size grows the buffer.
+    this.batchBytes = maxChars;
+    const fresh = (): Uint8Array => {
+      const spare = this.spares.pop();
+      return spare ? new Uint8Array(spare) : new Uint8Array(maxChars);
+    };
+    let bytes = fresh();
+    const starts = new Int32Array(maxRecords), ends = new Int32Array(maxRecords);
+    const nos = new Float64Array(maxRecords);
     let n = 0, used = 0;
     const flush = (): RawLineBatch => {
       const b: RawLineBatch = { kind: 'jsonl', bytes: bytes.subarray(0, used), starts: starts.slice(0, n), ends: ends.slice(0, n), lineNos: nos.slice(0, n) };
-      bytes = new Uint8Array(maxChars);
+      bytes = fresh();
       n = used = 0;
       return b;
     };
@@ -81,6 +86,12 @@ class JsonLinesReader extends BaseReader implements RawLineSource {
       if (used >= maxChars || n >= maxRecords) yield flush();
     }
     if (n) yield flush();
+  }
+  /** Byte buffers of processed batches, to be filled again (only of the usual size: a grown one is let go). */
+  private spares: ArrayBufferLike[] = [];
+  private batchBytes = 0;
+  reuse(buffer: ArrayBufferLike): void {
+    if (buffer.byteLength === this.batchBytes) this.spares.push(buffer);
   }
   accepted(n: number): void {
     this.count += n;

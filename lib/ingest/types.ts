@@ -78,6 +78,11 @@ export interface RawLineSource {
   readonly context: RecordContext;
   readonly skipBad: boolean;
   rawBatches(maxChars?: number, maxRecords?: number): AsyncGenerator<RawLineBatch>;
+  /**
+   * Takes back the byte buffer of a processed JSON Lines batch (its bytes' buffer), to fill it again instead of
+   * making a new one: a new megabyte a batch kept the garbage collector of the reading thread busy.
+   */
+  reuse?(buffer: ArrayBufferLike): void;
   /** Counts records parsed elsewhere (in file order). */
   accepted(n: number): void;
   /** A record parsed elsewhere was bad: counts it when skipping, else throws it. */

@@ -57,6 +57,7 @@ function processLines(task: LinesTask): WorkerResult {
     };
   }
   r.times = times;
+  if (task.batch.kind === 'jsonl') r.spent = task.batch.bytes.buffer as ArrayBuffer;
   r.problems = o.problems.map((p) => ({ before: p.before, error: p.error.toPlain() }));
   return r;
 }

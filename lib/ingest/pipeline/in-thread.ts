@@ -35,6 +35,7 @@ export async function processInThisThread(run: BatchRun, sinkFormat: WorkerForma
         t = addStage(run, 'format', t);
         await delivery.deliverFormatted(bytes, countBatch(o.metas, o.results));
       } else await delivery.deliver(o.metas, o.results);
+      if (b.kind === 'jsonl') raw.reuse?.(b.bytes.buffer);
       t = addStage(run, 'delivery', t);
     }
     raw.finish();

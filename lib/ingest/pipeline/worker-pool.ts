@@ -156,6 +156,7 @@ export class WorkerPoolProcessing {
     } else {
       // Raw text parsed in the worker: bad records come back in order.
       const raw = run.reader.raw!;
+      if (w.spent) raw.reuse?.(w.spent);
       for (const pr of w.problems) raw.rejected(IngestError.fromPlain(pr.error));
       if (w.error) throw processingError(w.meta!.lines[w.error.index], run.where, w.error.message);
       if (w.bytes) {

@@ -1,6 +1,7 @@
 // The splitfield-particles reader: formats (JSON Lines plain and gzip, one document), conversions,
 // and every kind of bad input with the exact line (record) and particle it names.
 import { afterAll, describe, expect, it } from 'vitest';
+import { openParticleFile } from '@/lib/ingest/reader';
 import { HEADER, gz, jsonl, massless, readAll, readError, tempDir } from './helpers';
 
 const t = tempDir();
@@ -65,6 +66,38 @@ describe('splitfield-particles: layouts', () => {
     Array.from(r.particles).forEach((v, i) => expect(v).toBeCloseTo(expected[i], 12));
     const tev = await readAll(t.file('tev.jsonl', jsonl({ ...HEADER, energyUnit: 'TeV' }, [{ particles: [[0.001, 0, 0.002, 0.003]] }])));
     Array.from(tev.records[0].particles).forEach((v, i) => expect(v).toBeCloseTo([1, 0, 2, 3][i], 12));
+  });
+
+  it('reads lines longer than its 1 MiB read window, after a BOM, with CRLF, as strings and as bytes', async () => {
+    // A 60 000-particle record (about 2.6 MB) makes the window grow twice and shrink back after it.
+    const big = Array.from({ length: 60_000 }, (_, i) => [1 + i / 7, 2 - i / 9, 3 + i / 11, 1e4 + i / 3]);
+    const records = [
+      { id: 'a', particles: [[1, 2, 3, 10]] },
+      { id: 'big', particles: big },
+      { id: 'b', particles: [[4, 5, 6, 20]] },
+      { id: 'big2', particles: big.slice(0, 30_000) },
+      { id: 'last', particles: [[1, 1, 1, 5]] },
+    ];
+    const lines = [JSON.stringify(HEADER), ...records.map((r) => JSON.stringify(r))];
+    const text = '\ufeff' + lines.join('\r\n'); // no line break after the last line
+    for (const [name, content] of [['window.jsonl', Buffer.from(text)], ['window.jsonl.gz', gz(text)]] as const) {
+      const file = t.file(name, content);
+      const read = await readAll(file);
+      expect(read.records.map((r) => [r.id, r.line, r.particles.length / 4])).toEqual([
+        ['a', 2, 1], ['big', 3, 60_000], ['b', 4, 1], ['big2', 5, 30_000], ['last', 6, 1],
+      ]);
+      expect(Array.from(read.records[1].particles.subarray(4 * 59_999))).toEqual(big[59_999]);
+      // The byte path (what the pipeline reads): every record line's bytes, CR removed, with its number.
+      const reader = await openParticleFile(file);
+      const seen: [number, string][] = [];
+      const decoder = new TextDecoder();
+      for await (const b of reader.raw!.rawBatches(1 << 16, 2)) {
+        if (b.kind !== 'jsonl') throw new Error('expected JSON Lines batches');
+        for (let i = 0; i < b.starts.length; i++) seen.push([b.lineNos[i], decoder.decode(b.bytes.subarray(b.starts[i], b.ends[i]))]);
+      }
+      reader.close();
+      expect(seen).toEqual(lines.slice(1).map((l, i) => [i + 2, l]));
+    }
   });
 
   it('reads a stream in tiny chunks: gzip magic and multi-byte characters split across chunks', async () => {

@@ -57,6 +57,25 @@ describe('readJsonNumber', () => {
     expectSameAsJson(texts);
   });
 
+  it('stops at the first byte after the number, whatever follows it (the reader takes four digits at once)', () => {
+    // Every byte a number can be followed by in a file, and the ones next to the digits in ASCII; the reader must
+    // stop right before it and read the same value as JSON.parse of the number alone.
+    const after = [',', ']', '}', ' ', '\n', '/', '*', '+', '-', ':', ';', '<', '?', 'x', '\u00e9'];
+    const wrong: string[] = [];
+    for (let t = 0; t < 20000; t++) {
+      const nd = 1 + Math.floor(rng.next() * 18);
+      let d = String(1 + Math.floor(rng.next() * 9));
+      for (let j = 1; j < nd; j++) d += Math.floor(rng.next() * 10);
+      const point = 1 + Math.floor(rng.next() * nd);
+      const s = point === nd ? d : `${d.slice(0, point)}.${d.slice(point)}`;
+      const tail = after[t % after.length] + String(Math.floor(rng.next() * 1e6));
+      const b = bytes(s + tail);
+      const end = readJsonNumber(b, 0, b.length, out, 0);
+      if (end !== bytes(s).length || !Object.is(out[0], JSON.parse(s))) wrong.push(`${s + tail}: end ${end}, ${out[0]}`);
+    }
+    expect(wrong.slice(0, 5)).toEqual([]);
+  });
+
   it('rounds exact halfway cases to even, and reads zeros, extremes and long texts', () => {
     // 2^53 + 1 and 2^53 + 3 lie exactly halfway between two doubles (ties to even: 2^53 and 2^53 + 4).
     expect(read('9007199254740993')).toBe(9007199254740992);
