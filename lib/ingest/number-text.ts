@@ -1,6 +1,6 @@
 // Writes a double as JavaScript's Number::toString writes it (the shortest digits that read back to the same
 // double, the closest to it among those: ECMA-262 Number::toString; JSON.stringify writes numbers so), straight
-// into a byte buffer (measured about 1.3× faster than String(x), and no string or array is made). Exact
+// into a byte buffer (measured about 3× faster than String(x) on the export's numbers, and no string or array is made). Exact
 // arithmetic decides every case it answers: the candidates of 15, 16 and 17 significant digits are the integers
 // nearest to x·10^k, which Dekker's twoProduct gives exactly (T. J. Dekker, "A floating-point technique for
 // extending the available precision", Numer. Math. 18 (1971) 224, with Veltkamp's splitting: no fused multiply-add
@@ -21,8 +21,6 @@ const f64 = new Float64Array(1);
 const u32 = new Uint32Array(f64.buffer);
 const HI = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1 ? 1 : 0;
 const LO = 1 - HI;
-
-const digits = new Uint8Array(24);
 
 /** Writes the decimal digits of a non-negative integer below 2^31; returns the position after them. */
 export function writeInteger(buf: Uint8Array, at: number, n: number): number {
@@ -49,49 +47,63 @@ function writeString(buf: Uint8Array, at: number, s: string): number {
 /** "0000".."9999": four ASCII digits for each n < 10^4, at 4n. */
 const DIGITS4 = Uint8Array.from({ length: 40000 }, (_, i) => 48 + (Math.floor((i >> 2) / [1000, 100, 10, 1][i & 3]) % 10));
 
-/** Puts the 4 digits of n (< 10^4) at digits[at..at+4). */
-function put4(n: number, at: number): void {
+/** Puts the 4 digits of n (< 10^4) at buf[at..at+4). */
+function put4(buf: Uint8Array, at: number, n: number): void {
   const s = n << 2;
-  digits[at] = DIGITS4[s];
-  digits[at + 1] = DIGITS4[s + 1];
-  digits[at + 2] = DIGITS4[s + 2];
-  digits[at + 3] = DIGITS4[s + 3];
+  buf[at] = DIGITS4[s];
+  buf[at + 1] = DIGITS4[s + 1];
+  buf[at + 2] = DIGITS4[s + 2];
+  buf[at + 3] = DIGITS4[s + 3];
 }
 
 /**
  * Writes the integer q·10^8 + r (q in [10^6, 10^9], r below 10^8) scaled by 10^−scale in Number::toString's
  * fixed notation (the value lies in [1e-6, 1e15), where that notation is used). Small integer arguments only:
- * doubles passed to a function that is not inlined would be boxed.
+ * doubles passed to a function that is not inlined would be boxed. The digits are written where they end up
+ * (the integer digits one place to the right, then moved left for the point): copying them from a scratch
+ * array took a third of the time.
  */
 function writeScaled(buf: Uint8Array, at: number, q: number, r: number, scale: number): number {
-  // digits[0..12) holds q on 12 digits (leading zeros), digits[12..20) holds r; the number starts at `first`.
-  const q2 = Math.floor(q * 1e-8); // exact floor(q / 10^8): 1e-8 rounds up, q is small
-  const q1 = q - q2 * 1e8;
-  put4(q2, 0);
-  const qh = Math.floor(q1 * 1e-4);
-  put4(qh, 4);
-  put4(q1 - qh * 1e4, 8);
-  const rh = Math.floor(r * 1e-4);
-  put4(rh, 12);
-  put4(r - rh * 1e4, 16);
-  const first = q >= 1e9 ? 2 : q >= 1e8 ? 3 : q >= 1e7 ? 4 : 5;
-  let end = 20;
-  while (digits[end - 1] === 48) end--;
-  const point = 20 - scale; // index in digits where the decimal point goes
-  if (point >= end) {
-    for (let i = first; i < end; i++) buf[at++] = digits[i];
-    for (let i = end; i < point; i++) buf[at++] = 48;
-  } else if (point > first) {
-    for (let i = first; i < point; i++) buf[at++] = digits[i];
-    buf[at++] = 46;
-    for (let i = point; i < end; i++) buf[at++] = digits[i];
+  const qi = q | 0;
+  const ri = r | 0;
+  // nd digits in all (q's then r's 8), n of them before the trailing zeros, `point` of them before the point.
+  const nq = qi >= 1e9 ? 10 : qi >= 1e8 ? 9 : qi >= 1e7 ? 8 : 7;
+  const nd = nq + 8;
+  let n = nd;
+  if (ri === 0) {
+    n = nq;
+    for (let x = qi; x % 10 === 0; x = (x / 10) | 0) n--;
   } else {
-    buf[at++] = 48;
-    buf[at++] = 46;
-    for (let i = point; i < first; i++) buf[at++] = 48;
-    for (let i = first; i < end; i++) buf[at++] = digits[i];
+    for (let x = ri; x % 10 === 0; x = (x / 10) | 0) n--;
   }
-  return at;
+  const point = nd - scale;
+  let first = at;
+  if (point <= 0) {
+    buf[at] = 48;
+    buf[at + 1] = 46;
+    first = at + 2;
+    for (let i = point; i < 0; i++) buf[first++] = 48;
+  } else if (point < n) first = at + 1;
+  // The nd digits from `first` on: r's 8 last, q's before them.
+  const end = first + nd;
+  const rh = (ri / 10000) | 0;
+  put4(buf, end - 8, rh);
+  put4(buf, end - 4, ri - rh * 10000);
+  let qh = (qi / 10000) | 0;
+  put4(buf, end - 12, qi - qh * 10000);
+  for (let i = end - 13; i >= first; i--) {
+    const next = (qh / 10) | 0;
+    buf[i] = 48 + qh - next * 10;
+    qh = next;
+  }
+  if (point <= 0) return first + n;
+  if (point < n) {
+    for (let i = 0; i < point; i++) buf[at + i] = buf[at + 1 + i];
+    buf[at + point] = 46;
+    return at + n + 1;
+  }
+  // A whole number (below 1e15, so point ≤ nd): its last digits are among the zeros written.
+  return at + point;
 }
 
 const TWO_53 = 9007199254740992;
@@ -110,7 +122,7 @@ function fallback(buf: Uint8Array, at: number, v: number): number {
 
 /**
  * Writes src[i] (a finite double) as String(x) writes it (−0 as "0"); returns the position after it. buf needs
- * room for 25 bytes from `at`. The value is taken from its array (not passed as a double) and the arithmetic is
+ * room for 26 bytes from `at`. The value is taken from its array (not passed as a double) and the arithmetic is
  * written out in this one function: a double crossing a call that V8 does not inline is boxed.
  */
 export function writeDouble(buf: Uint8Array, at: number, src: Float64Array, i: number): number {
