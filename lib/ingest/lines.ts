@@ -2,10 +2,11 @@
 // bounded memory. Lines are handed out in arrays per decoded chunk so that the hot loop stays synchronous.
 // Line numbers are 1-based and count every line of the (decompressed) text, blank ones included.
 //
-// The text is read into one reused buffer (the window), a plain file straight from its file handle: each read
+// The text is read into a reused buffer (the window), a plain file straight from its file handle: each read
 // appends to the start of a line left over from the last one, and the complete lines before the last LF are
 // handed out as one region. No buffer is made a read, which kept the main thread's garbage collector busy (each
-// new megabyte counts as external memory, and V8 collects when that grows).
+// new megabyte counts as external memory, and V8 collects when that grows). A plain file is read one window
+// ahead, into a second buffer, while the lines of the current one are processed.
 
 import { createReadStream, promises as fsp } from 'node:fs';
 import type { FileHandle } from 'node:fs/promises';
@@ -67,7 +68,7 @@ export class LineSource {
   lineStart = 0;
   lineEnd = 0;
   /** Text read and not yet cut into regions: window[0, winLen); the current region is window[0, regionEnd). */
-  private window = Buffer.allocUnsafe(WINDOW_BYTES);
+  private window: Buffer = Buffer.allocUnsafe(WINDOW_BYTES);
   private winLen = 0;
   private regionEnd = 0;
   private ended = false;
@@ -75,6 +76,12 @@ export class LineSource {
   /** A plain file is read through its handle; any other input (gzip, a stream) through `iter`. */
   private readonly handle: FileHandle | null;
   private iter: AsyncIterator<Buffer> | null = null;
+  /**
+   * A plain file is read one window ahead: once a region is handed out, the start of a line after it is copied to
+   * the front of the other window and the file is read after it while the region's lines are processed.
+   */
+  private ahead: { window: Buffer; rest: number; read: Promise<{ bytesRead: number }> } | null = null;
+  private spare: Buffer | null = null;
   /** The part of the stream's last chunk that did not fit in the window yet: pending[pendingAt..]. */
   private pending: Uint8Array | null = null;
   private pendingAt = 0;
@@ -219,6 +226,7 @@ export class LineSource {
         continue;
       }
       this.regionEnd = from + nl + 1;
+      this.readAhead();
       return this.window.subarray(0, this.regionEnd);
     }
     if (this.winLen === 0) return null;
@@ -226,9 +234,29 @@ export class LineSource {
     return this.window.subarray(0, this.winLen);
   }
 
+  /** A plain file with a usual window: starts reading the next window (see `ahead`). */
+  private readAhead(): void {
+    const rest = this.winLen - this.regionEnd;
+    if (!this.handle || this.window.length !== WINDOW_BYTES || rest > WINDOW_BYTES / 2) return;
+    const next = this.spare ?? Buffer.allocUnsafe(WINDOW_BYTES);
+    this.spare = null;
+    this.window.copy(next, 0, this.regionEnd, this.winLen);
+    const read = this.handle.read(next, rest, next.length - rest, null);
+    read.catch(() => undefined); // awaited (and reported) by readMore
+    this.ahead = { window: next, rest, read };
+  }
+
   /** Drops the region handed out last: the start of a line after it moves to the front of the window. */
   private keepRest(): void {
     if (this.regionEnd === 0) return;
+    if (this.ahead) {
+      // The other window already holds it, and the read after it is under way.
+      this.spare = this.window;
+      this.window = this.ahead.window;
+      this.winLen = this.ahead.rest;
+      this.regionEnd = 0;
+      return;
+    }
     const rest = this.winLen - this.regionEnd;
     if (this.window.length > WINDOW_BYTES && rest < WINDOW_BYTES / 2) {
       // Back to the usual size after a long line.
@@ -253,7 +281,9 @@ export class LineSource {
     let got: number;
     if (this.handle) {
       const h = this.handle;
-      got = (await this.wrapIo(() => h.read(this.window, this.winLen, room, null))).bytesRead;
+      const ahead = this.ahead;
+      this.ahead = null;
+      got = (await this.wrapIo(() => ahead?.read ?? h.read(this.window, this.winLen, room, null))).bytesRead;
       if (got === 0) {
         await h.close().catch(() => undefined);
         return false;

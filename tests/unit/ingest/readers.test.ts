@@ -100,6 +100,32 @@ describe('splitfield-particles: layouts', () => {
     }
   });
 
+  it('reads a file of many windows (the next one read ahead) line for line, as strings and as bytes', async () => {
+    // 4 000 records of 1 to 3 kB: about 8 MB, lines cut at every window's end.
+    const records = Array.from({ length: 4000 }, (_, i) => ({
+      id: `r${i}`,
+      particles: Array.from({ length: 20 + (i % 50) }, (_, j) => [i + j / 3, j - i / 7, 1 + j / 11, 1e4 + i + j]),
+    }));
+    const lines = [JSON.stringify(HEADER), ...records.map((r) => JSON.stringify(r))];
+    const file = t.file('windows.jsonl', lines.join('\n') + '\n');
+    const read = await readAll(file);
+    expect(read.records.map((r) => r.id)).toEqual(records.map((r) => r.id));
+    expect(read.records.every((r, i) => r.line === i + 2 && r.particles.length === 4 * records[i].particles.length)).toBe(true);
+    expect(Array.from(read.records[3999].particles.subarray(-4))).toEqual(records[3999].particles.at(-1));
+    const reader = await openParticleFile(file);
+    const decoder = new TextDecoder();
+    let k = 0;
+    const wrong: number[] = [];
+    for await (const b of reader.raw!.rawBatches()) {
+      if (b.kind !== 'jsonl') throw new Error('expected JSON Lines batches');
+      for (let i = 0; i < b.starts.length; i++, k++) {
+        if (b.lineNos[i] !== k + 2 || decoder.decode(b.bytes.subarray(b.starts[i], b.ends[i])) !== lines[k + 1]) wrong.push(k + 2);
+      }
+    }
+    reader.close();
+    expect([k, wrong.slice(0, 5)]).toEqual([4000, []]);
+  });
+
   it('reads a stream in tiny chunks: gzip magic and multi-byte characters split across chunks', async () => {
     const { Readable } = await import('node:stream');
     const { openParticleStream } = await import('@/lib/ingest/reader');
