@@ -78,7 +78,7 @@ class JsonLinesReader extends BaseReader implements RawLineSource {
         grown.set(bytes.subarray(0, used));
         bytes = grown;
       }
-      bytes.set(lb.subarray(s, e), used);
+      lb.copy(bytes, used, s, e);
       starts[n] = used;
       used += e - s;
       ends[n] = used;
