@@ -2,7 +2,9 @@
 // (PHYSICS.md "Jet clustering", "Declustering and the emission plane", "Derived jet observables".)
 //
 // Scratch memory is module-level and only grows, so processing a stream of records allocates nothing but the
-// results themselves (one Float64Array per jet for its splittings, one for the full tree when asked).
+// results themselves. A jet's splittings (and full tree) are views of a shared chunk of results rather than arrays
+// of their own: a typed array of its own costs a separate backing store, counted by V8 as external memory, which
+// drives extra garbage collections. A chunk is freed once no view of it is left.
 
 import { ClusterWorkspace, algorithmExponent, cluster, loadConstituents, loadParticles } from './clustering';
 import { clusterExclusive } from './clustering/exclusive';
@@ -20,6 +22,24 @@ let candNode = new Int32Array(64);
 let candKt2 = new Float64Array(64);
 const primaryEnd: PrimaryEnd = { node: -1 };
 
+/** Doubles in a chunk of results (256 KiB). */
+const RESULT_CHUNK = 1 << 15;
+let results = new Float64Array(RESULT_CHUNK);
+let resultsUsed = 0;
+
+/** A copy of splitBuf[0, n) in the current chunk of results (a new chunk when it is full). */
+function keepSplittings(n: number): Float64Array {
+  if (resultsUsed + n > results.length) {
+    results = new Float64Array(Math.max(RESULT_CHUNK, n));
+    resultsUsed = 0;
+  }
+  const at = resultsUsed;
+  const out = results.subarray(at, at + n);
+  for (let i = 0; i < n; i++) out[i] = splitBuf[i];
+  resultsUsed += n;
+  return out;
+}
+
 function ensureScratch(n: number): void {
   if (splitBuf.length < n * SPLIT_STRIDE) splitBuf = new Float64Array(Math.max(n, 2 * (splitBuf.length / SPLIT_STRIDE)) * SPLIT_STRIDE);
   if (stack.length < 2 * (n + 1)) stack = new Int32Array(Math.max(2 * (n + 1), 2 * stack.length));
@@ -35,11 +55,11 @@ export function jetFromTree(
 ): JetResult {
   ensureScratch(nConst);
   const np = declusterPrimary(tree, root, splitBuf, 0, write, primaryEnd);
-  const primary = splitBuf.slice(0, np * SPLIT_STRIDE);
+  const primary = keepSplittings(np * SPLIT_STRIDE);
   let all: Float64Array | null = null;
   if (s.fullTree) {
     const na = declusterAll(tree, root, splitBuf, 0, stack, write);
-    all = splitBuf.slice(0, na * SPLIT_STRIDE);
+    all = keepSplittings(na * SPLIT_STRIDE);
   }
   return {
     pt, y, phi, m, n: nConst,

@@ -120,8 +120,25 @@ describe('scratch buffers are reused safely', () => {
     processParticles(particles([[30, 0, 1]]), { ...s, content: 'jets' });
     const again = processParticles(big, s);
     expect(again).toEqual(first);
-    // Results own their arrays: later calls do not overwrite earlier results.
-    expect(first.jets[0].primary.buffer).not.toBe(again.jets[0].primary.buffer);
+  });
+
+  it('results keep their splittings while later records fill new ones (they share chunks of memory)', () => {
+    const s = settings({}, { content: 'jets', fullTree: true });
+    const jets = generateJets(7, 400, { nConstituents: 60 });
+    const kept = jets.map((jet) => processParticles(jet, s).jets[0]);
+    // About 600 doubles a jet: the 400 jets fill several chunks of 32 768.
+    const copies = jets.map((jet) => {
+      const j = processParticles(jet, s).jets[0];
+      return { primary: Array.from(j.primary), all: Array.from(j.all!) };
+    });
+    for (const j of kept) {
+      j.primary.fill(-1); // writing into one result's splittings must not touch another's
+      j.all!.fill(-2);
+    }
+    const again = jets.map((jet) => processParticles(jet, s).jets[0]);
+    expect(again.map((j) => ({ primary: Array.from(j.primary), all: Array.from(j.all!) }))).toEqual(copies);
+    expect(kept.every((j) => j.primary.every((x) => x === -1) && j.all!.every((x) => x === -2))).toBe(true);
+    expect(copies.reduce((sum, c) => sum + c.primary.length + c.all.length, 0)).toBeGreaterThan(3 * 32768);
   });
 });
 
