@@ -15,10 +15,8 @@
 // four at a time when four follow (one 32-bit read, checked and combined as a word): 55 → 44 ns a number on the
 // benchmark files.
 
-import { POW10, POW10_HI, POW10_LO, SPLITTER } from './number-text';
+import { POW10, POW10_HI, POW10_LO, SPLITTER, TWO_53 } from './number-text';
 
-/** 2^53: the integers below it are exact doubles. */
-const TWO_53 = 9007199254740992;
 /** 2^-90: the relative margin to a halfway point below which the double-double answer is not trusted. */
 const HALFWAY_MARGIN = Math.pow(2, -90);
 

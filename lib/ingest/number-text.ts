@@ -106,7 +106,8 @@ function writeScaled(buf: Uint8Array, at: number, q: number, r: number, scale: n
   return at + point;
 }
 
-const TWO_53 = 9007199254740992;
+/** 2^53: the integers below it are exact doubles. */
+export const TWO_53 = 9007199254740992;
 export const SPLITTER = 134217729; // 2^27 + 1: Veltkamp's splitting (twoProduct, written out below)
 /** 10^k split into a high part of 26 bits and the rest, for the exact products below. */
 export const POW10_HI = POW10.map((p) => {
