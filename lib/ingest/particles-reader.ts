@@ -50,7 +50,7 @@ class JsonLinesReader extends BaseReader implements RawLineSource {
   async *rawBatches(maxChars = 1 << 20, maxRecords = 2048): AsyncGenerator<RawLineBatch> {
     const src = this.src;
     // Each batch gets its own byte buffer (it may be handed to a worker thread), a spare one given back by
-    // reuse() when there is one; a line longer than the batch size grows the buffer.
+    // reuse() when there is one.
     this.batchBytes = maxChars;
     const fresh = (): Uint8Array => {
       const spare = this.spares.pop();
@@ -73,6 +73,9 @@ class JsonLinesReader extends BaseReader implements RawLineSource {
       }
       const lb = src.lineBytes, s = src.lineStart, e = src.lineEnd;
       if (isBlankBytes(lb, s, e)) continue;
+      // A line that does not fit ends the batch (so that batches keep the size of the buffers given back); only
+      // a line longer than a whole batch grows the buffer.
+      if (n > 0 && used + e - s > bytes.length) yield flush();
       if (used + e - s > bytes.length) {
         const grown = new Uint8Array(Math.max(2 * bytes.length, used + e - s));
         grown.set(bytes.subarray(0, used));

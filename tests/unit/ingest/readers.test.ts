@@ -124,6 +124,22 @@ describe('splitfield-particles: layouts', () => {
     }
     reader.close();
     expect([k, wrong.slice(0, 5)]).toEqual([4000, []]);
+
+    // Batches of 64 KiB: a line that does not fit starts the next batch (no batch grows past the size), and the
+    // buffers given back are filled again: two buffers serve every batch.
+    const again = await openParticleFile(file);
+    const buffers = new Set<ArrayBufferLike>();
+    let lines2 = 0;
+    for await (const b of again.raw!.rawBatches(1 << 16)) {
+      if (b.kind !== 'jsonl') throw new Error('expected JSON Lines batches');
+      expect(b.bytes.buffer.byteLength).toBe(1 << 16);
+      expect(b.ends[b.ends.length - 1]).toBeLessThanOrEqual(1 << 16);
+      lines2 += b.starts.length;
+      buffers.add(b.bytes.buffer);
+      again.raw!.reuse!(b.bytes.buffer);
+    }
+    again.close();
+    expect([lines2, buffers.size]).toEqual([4000, 2]);
   });
 
   it('reads a stream in tiny chunks: gzip magic and multi-byte characters split across chunks', async () => {
