@@ -20,7 +20,8 @@
 //             stage above 1/16 of the work]
 //  memory     peak RSS of the command on the events file and on a file 4 times larger [independent of size]
 // Physics timings are CPU seconds of the fastest of several rounds on each side (steadier than wall time on a
-// shared machine); whole processes are timed 3 times and the fastest wall time kept, with its CPU time.
+// shared machine); whole processes are timed 3 times, the two programs of a comparison alternately, and the fastest
+// wall time kept with its CPU time (the slowest is printed beside it).
 import { execFileSync, spawn } from 'node:child_process';
 import { createReadStream, existsSync, mkdirSync, readFileSync, statSync, unlinkSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
@@ -114,15 +115,29 @@ function measure(cmd: string, cmdArgs: string[]): Promise<Measured> {
   });
 }
 
-/** The fastest of `n` runs (by wall time). */
-async function best(n: number, run: () => Promise<Measured>): Promise<Measured> {
-  let b: Measured | null = null;
-  for (let i = 0; i < n; i++) {
-    const m = await run();
-    if (!b || m.wall < b.wall) b = m;
-  }
-  return b!;
+/** The fastest run of a program (by wall time) and the range of its wall times over the rounds. */
+interface Best extends Measured {
+  slowest: number;
 }
+
+/**
+ * Runs two programs alternately, `n` rounds of A then B, so that a change of the machine's speed during the
+ * benchmark (other load on a shared machine) reaches both alike; the fastest run of each, with its range.
+ */
+async function bestOfPair(n: number, a: () => Promise<Measured>, b: () => Promise<Measured>): Promise<[Best, Best]> {
+  const found: [Best | null, Best | null] = [null, null];
+  for (let i = 0; i < n; i++) {
+    for (const [k, run] of [a, b].entries()) {
+      const m = await run();
+      const f = found[k];
+      found[k] = !f || m.wall < f.wall ? { ...m, slowest: Math.max(m.wall, f?.slowest ?? 0) } : { ...f, slowest: Math.max(f.slowest, m.wall) };
+    }
+  }
+  return found as [Best, Best];
+}
+
+/** A fastest wall time with the range of the rounds: "2.69 (–2.95)". */
+const withRange = (m: Best) => (m.slowest > m.wall + 0.005 ? `${fixed(m.wall)} (–${fixed(m.slowest)})` : fixed(m.wall));
 
 let FJ = '';
 
@@ -282,13 +297,16 @@ async function wholeSection(): Promise<void> {
   for (const [key, c] of Object.entries(WHOLE)) {
     const file = input(c.spec);
     const mine = path.join(OUT, `whole-${key}-splitfield.jsonl`), theirs = path.join(OUT, `whole-${key}-fastjet.jsonl`);
-    const ours = await best(rounds, () => runOurs(file, c.flags, 1, mine));
-    const fj = await best(rounds, () => measure(FJ, [file, '--out', theirs, '--timings', ...c.flags]));
+    const [ours, fj] = await bestOfPair(
+      rounds,
+      () => runOurs(file, c.flags, 1, mine),
+      () => measure(FJ, [file, '--out', theirs, '--timings', ...c.flags]),
+    );
     const agree = await compareExports(mine, theirs);
     const label = `${c.spec.count} ${c.spec.kind} of ~${c.spec.n} (${fixed(statSync(file).size / 1048576, 0)} MB)`;
     const ratio = fj.wall / ours.wall, cpuRatio = fj.cpu / ours.cpu;
     rows.push([
-      label, fixed(ours.wall), fixed(fj.wall), fixed(ratio) + '×', fixed(cpuRatio) + '×', `≥ ${c.goal} ${verdict(ratio >= c.goal)}`,
+      label, withRange(ours), withRange(fj), fixed(ratio) + '×', fixed(cpuRatio) + '×', `≥ ${c.goal} ${verdict(ratio >= c.goal)}`,
       `${fixed(ours.rssMB, 0)} / ${fixed(fj.rssMB, 0)}`,
       agree.mismatch ? `NO: ${agree.mismatch}` : `yes, ${agree.compared} jets, max rel. diff ${agree.maxRel.toExponential(1)}`,
     ]);
@@ -297,7 +315,7 @@ async function wholeSection(): Promise<void> {
     log(`  whole ${key}: ${ours.wall.toFixed(2)} s vs ${fj.wall.toFixed(2)} s (${ratio.toFixed(2)}×, CPU ${cpuRatio.toFixed(2)}×)`);
     for (const f of [mine, theirs]) if (existsSync(f)) unlinkSync(f);
   }
-  table(['input', 'Splitfield s', 'FastJet s', 'ratio', 'ratio (CPU)', 'goal', 'peak RSS MB (ours / FastJet)', 'outputs agree'], rows);
+  table(['input', 'Splitfield s (fastest, –slowest)', 'FastJet s (fastest, –slowest)', 'ratio', 'ratio (CPU)', 'goal', 'peak RSS MB (ours / FastJet)', 'outputs agree'], rows);
   out('Stage times (seconds; Splitfield: read = waiting for input and cutting it into batches, format = export text, delivery = writing it in order; FastJet: write = formatting and fwrite):');
   table(['input', 'Splitfield', 'FastJet'], stages);
   results.whole = all;
@@ -321,8 +339,7 @@ async function threadsSection(): Promise<void> {
   for (const [key, c] of Object.entries(WHOLE)) {
     const file = input(c.spec);
     const o = path.join(OUT, `threads-${key}.jsonl`);
-    const one = await best(rounds, () => runOurs(file, c.flags, 1, o));
-    const two = await best(rounds, () => runOurs(file, c.flags, 2, o));
+    const [one, two] = await bestOfPair(rounds, () => runOurs(file, c.flags, 1, o), () => runOurs(file, c.flags, 2, o));
     const t2 = ourTimings(two);
     // Single-threaded stages (the main thread's own work) against all the work done (CPU of every stage).
     const main = t2 ? { read: t2.read, dispatch: t2.dispatch, delivery: t2.delivery } : null;
@@ -330,7 +347,7 @@ async function threadsSection(): Promise<void> {
     const [worstName, worst] = main ? Object.entries(main).sort((a, b) => b[1] - a[1])[0] : ['-', NaN];
     const speedup = one.wall / two.wall;
     rows.push([
-      key, fixed(one.wall), fixed(two.wall), `${fixed(speedup)}× (${verdict(speedup >= 1.8)})`, `${fixed(one.cpu)} / ${fixed(two.cpu)}`,
+      key, withRange(one), withRange(two), `${fixed(speedup)}× (${verdict(speedup >= 1.8)})`, `${fixed(one.cpu)} / ${fixed(two.cpu)}`,
       stageText(t2, ['read', 'dispatch', 'wait', 'delivery', 'parse', 'physics', 'format']),
       `${worstName} ${fixed((100 * worst) / work, 1)} % (${verdict(worst / work <= 1 / 16)})`,
     ]);
@@ -338,7 +355,7 @@ async function threadsSection(): Promise<void> {
     log(`  threads ${key}: ${one.wall.toFixed(2)} s → ${two.wall.toFixed(2)} s (${speedup.toFixed(2)}×)`);
     if (existsSync(o)) unlinkSync(o);
   }
-  table(['input', '1 thread s', '2 threads s', 'speed-up (goal ≥ 1.8)', 'CPU s (1 / 2)', 'stages with 2 threads (s; parse, physics, format summed over the workers)', 'largest single-threaded stage / all work (goal ≤ 6.25 %)'], rows);
+  table(['input', '1 thread s (fastest, –slowest)', '2 threads s (fastest, –slowest)', 'speed-up (goal ≥ 1.8)', 'CPU s (1 / 2)', 'stages with 2 threads (s; parse, physics, format summed over the workers)', 'largest single-threaded stage / all work (goal ≤ 6.25 %)'], rows);
   results.threads = all;
 }
 
