@@ -74,6 +74,11 @@ function settingsFacts(settings: CompleteSampleSettings, tree: SampleProvenance[
 
 const seconds = (value: number | null) => (value === null ? '–' : `${value.toFixed(1)} s`);
 
+/** Said when processing began before the upload had finished (the server had room: the two overlapped). */
+function overlapNote(timings: SampleProvenance['timings']): string {
+  return timings.startedAt && Date.parse(timings.startedAt) < Date.parse(timings.uploadedAt) ? ', started while the file was arriving' : '';
+}
+
 /** Where the sample came from and how it was made, as the server recorded it, with the JSON download. */
 export function ProvenancePanel({ provenance }: { provenance: SampleProvenance }) {
   const { file, input, timings } = provenance;
@@ -98,7 +103,7 @@ export function ProvenancePanel({ provenance }: { provenance: SampleProvenance }
             ['Software', `${provenance.software.name} ${provenance.software.version ?? ''}`.trim()],
             ['Uploaded by', provenance.uploadedBy?.name ?? 'a removed account'],
             ['Uploaded', `${formatDateTime(timings.uploadedAt)}, sent in ${seconds(timings.uploadSeconds)}`],
-            ['Processed', timings.finishedAt && `${formatDateTime(timings.finishedAt)}, in ${seconds(timings.processingSeconds)}`],
+            ['Processed', timings.finishedAt && `${formatDateTime(timings.finishedAt)}, in ${seconds(timings.processingSeconds)}${overlapNote(timings)}`],
           ]}
         />
         <a href={`/api/samples/${provenance.sample.id}/provenance`} download className={buttonClass('secondary', 'sm')}>

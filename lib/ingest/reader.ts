@@ -50,6 +50,16 @@ async function firstBytes(path: string, n: number): Promise<Uint8Array> {
   }
 }
 
+/**
+ * Whether a file that starts with these bytes (at least 8 of them, or the whole file) can be read as a stream while
+ * it is still being written: plain text can; gzip (read again by path to name a damaged line) and the columnar
+ * files (read from their end) are read once complete.
+ */
+export function readableWhileWritten(start: Uint8Array): boolean {
+  const gzip = start[0] === 0x1f && start[1] === 0x8b;
+  return !gzip && String.fromCharCode(...start.subarray(0, 4)) !== PARQUET_MAGIC && !isArrowStart(start);
+}
+
 /** Opens a file by path: format and compression are detected from the content (columnar files: columnar/). */
 export async function openParticleFile(path: string, opts: ReaderOptions = {}): Promise<ParticleReader> {
   const start = await firstBytes(path, 8);

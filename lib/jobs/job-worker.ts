@@ -1,10 +1,11 @@
 // Worker-thread entry of one processing job (bundled to dist/engine/job-worker.js by scripts/build-engine.mjs):
-// reads the uploaded file, runs the pipeline (with its own pool of worker threads when threads > 1), writes the
+// reads the uploaded file (while it arrives, for an early job: lib/ingest/growing-file.ts), runs the pipeline (with its own pool of worker threads when threads > 1), writes the
 // sample's columns and plane histograms, and reports to the server. It never touches the database: the server
 // records the outcome, so that a job killed at any point leaves nothing the server would take for finished.
 import { parentPort, workerData } from 'node:worker_threads';
 import { IngestAbortError } from '@/lib/ingest/errors';
-import { openParticleFile } from '@/lib/ingest/reader';
+import { GrowingFile } from '@/lib/ingest/growing-file';
+import { openParticleFile, openParticleStream, readableWhileWritten, type ParticleReader } from '@/lib/ingest/reader';
 import { jobErrorReport } from './failure';
 import type { JobControlMessage, JobWorkerInput, JobWorkerMessage } from './messages';
 import { MAX_DOCUMENT_CHARS, processUpload } from './process-upload';
@@ -12,19 +13,31 @@ import { MAX_DOCUMENT_CHARS, processUpload } from './process-upload';
 const input = workerData as JobWorkerInput;
 const port = parentPort!;
 const cancel = new AbortController();
+const growing = input.growing ? new GrowingFile(input.uploadPath) : null;
 port.on('message', (message: JobControlMessage) => {
-  if (message.type === 'cancel') cancel.abort();
+  if (message.type === 'uploaded') growing?.complete(message.size);
+  if (message.type === 'cancel') {
+    cancel.abort();
+    growing?.fail(new IngestAbortError());
+  }
 });
 
 function post(message: JobWorkerMessage, transfer: ArrayBuffer[] = []): void {
   port.postMessage(message, transfer);
 }
 
+/** The upload's reader: a growing upload of plain text is read as it arrives, anything else once it is complete. */
+async function openUpload(): Promise<ParticleReader> {
+  const options = { maxDocumentLength: MAX_DOCUMENT_CHARS, maxTextBytes: input.limits.maxTextBytes };
+  if (growing) {
+    if (readableWhileWritten(await growing.head(8))) return openParticleStream(growing.stream(), { ...options, name: input.uploadPath });
+    await growing.completed();
+  }
+  return openParticleFile(input.uploadPath, options);
+}
+
 async function run(): Promise<void> {
-  const reader = await openParticleFile(input.uploadPath, {
-    maxDocumentLength: MAX_DOCUMENT_CHARS,
-    maxTextBytes: input.limits.maxTextBytes,
-  });
+  const reader = await openUpload();
   const { counts, progress, planes } = await processUpload({
     reader,
     sampleDir: input.sampleDir,

@@ -14,6 +14,11 @@ export interface JobWorkerInput {
   threads: number;
   /** Most records a sample may hold, and most bytes of text its file may hold once decompressed. */
   limits: { maxRecords: number; maxTextBytes: number };
+  /**
+   * The upload is still arriving: its file is read as it grows, until an `uploaded` message gives its size
+   * (an early job, started before its sample exists; see runner.ts).
+   */
+  growing?: boolean;
 }
 
 export interface FinishedPlane {
@@ -30,5 +35,5 @@ export type JobWorkerMessage =
   | { type: 'failed'; error: JobErrorReport }
   | { type: 'cancelled' };
 
-/** Server → worker. */
-export type JobControlMessage = { type: 'cancel' };
+/** Server → worker. `uploaded`: the growing upload is complete, with this many bytes. */
+export type JobControlMessage = { type: 'cancel' } | { type: 'uploaded'; size: number };

@@ -2,8 +2,14 @@
 // each in its own worker thread (dist/engine/job-worker.js), records progress (throttled) and the outcome, and
 // removes every file of a job that did not finish. One runner per process, started by instrumentation.ts; at
 // start it requeues the jobs a stop of the server cut short and sweeps storage of what no sample owns.
+//
+// Early jobs: when there is room and nothing waits in the queue, an upload's job starts while the file is still
+// arriving (startEarly; the worker reads the growing file), into a folder of its own under samples/. Once the
+// upload is accepted as a new sample, the sample is created running and adopts the job (its folder becomes the
+// sample's when the job is done); a refused or duplicate upload drops it. So the processing overlaps the upload.
+import { randomUUID } from 'node:crypto';
 import { existsSync } from 'node:fs';
-import { mkdir } from 'node:fs/promises';
+import { mkdir, rename, rm } from 'node:fs/promises';
 import path from 'node:path';
 import { Worker } from 'node:worker_threads';
 import { db } from '@/lib/db/connection';
@@ -27,6 +33,7 @@ import { readQueueSettings } from '@/lib/scale/config';
 import type { ProcessingOverview } from '@/lib/scale/overview';
 import { QueueRunner } from '@/lib/scale/queue-runner';
 import type { Sample } from '@/models/sample';
+import type { SampleInput, SampleSettings } from '@/models/sample-fields';
 import { sampleError, type JobErrorReport } from './failure';
 import type { JobControlMessage, JobWorkerInput, JobWorkerMessage } from './messages';
 import { progressView } from './progress';
@@ -42,14 +49,43 @@ const CANCEL_GRACE_MS = 10_000;
 
 type Ending = Extract<JobWorkerMessage, { type: 'done' | 'failed' | 'cancelled' }>;
 
-interface RunningJob {
-  sample: Sample;
+/** A job's worker thread and what it has said (before a sample owns it, for an early job). */
+interface JobThread {
+  worker: Worker;
   /** performance.now() when the job was launched: processing time is measured on this monotonic clock. */
   launchedAt: number;
-  worker: Worker;
+  /** When it was launched, for the sample's startedAt. */
+  startedAt: Date;
+  ending: Ending | null;
+  crash: Error | null;
+  /** The input's header, until a sample owns the job. */
+  input: SampleInput | null;
+  /** Settles with the exit code when the thread has stopped. */
+  exited: Promise<number>;
+  /** Set once a sample owns the job: where its messages go. */
+  owner: ((message: JobWorkerMessage) => void) | null;
+}
+
+interface RunningJob {
+  sample: Sample;
+  thread: JobThread;
   cancelRequested: boolean;
   /** Settles once the outcome is recorded and the job's files are cleaned up. */
   finished: Promise<void>;
+}
+
+/** An upload's job started while the upload arrives (see the top of this file). */
+export interface EarlyJob {
+  /** The settings it runs with: the sample adopts it only when its own are the same. */
+  readonly settings: SampleSettings;
+  /** When it started (the sample's startedAt). */
+  readonly startedAt: Date;
+  /** The upload is complete, with this many bytes. */
+  uploaded(size: number): void;
+  /** The upload became this sample, created running: the job is now the sample's. */
+  adopt(sample: Sample): void;
+  /** The upload was refused, failed or is a duplicate: stops the job and removes what it wrote. */
+  drop(): Promise<void>;
 }
 
 function jobWorkerFile(): string {
@@ -62,6 +98,8 @@ function logFailure(what: string, error: unknown): void {
 
 export class JobRunner implements ProcessingRunner {
   private readonly running = new Map<number, RunningJob>();
+  /** Early jobs not yet adopted (they hold a place among the maxJobs). */
+  private early = 0;
   private readonly filling = new WakeLoop(
     () => this.fill(),
     (error) => logFailure('cannot start queued jobs', error),
@@ -90,8 +128,53 @@ export class JobRunner implements ProcessingRunner {
     this.filling.wake();
   }
 
+  private hasRoom(): boolean {
+    return this.running.size + this.early < this.config.maxJobs;
+  }
+
   private fill(): Promise<void> {
-    return claimWhileRoom(() => this.running.size < this.config.maxJobs, (sample) => this.launch(sample));
+    return claimWhileRoom(() => this.hasRoom(), (sample) => this.launch(sample));
+  }
+
+  /**
+   * Starts the job of an upload whose file (`uploadFile` under uploads/) is still arriving, when there is room and
+   * no sample waits in the queue (it would be overtaken); null otherwise, and with a bucket (the upload goes there).
+   */
+  async startEarly(uploadFile: string, settings: SampleSettings): Promise<EarlyJob | null> {
+    if (this.storage.remote || !this.hasRoom()) return null;
+    this.early++; // the place is held from now on, so that two uploads at once cannot both take the last one
+    let thread: JobThread;
+    const folder = path.join(this.storage.samplesDir, `early-${randomUUID()}`);
+    try {
+      if ((await db().models.Sample.count({ where: { state: 'queued' } })) > 0) {
+        this.early--;
+        return null;
+      }
+      thread = this.startThread({ ...this.jobInput(uploadPath(this.storage, uploadFile), folder, settings), growing: true });
+    } catch (error) {
+      this.early--;
+      throw error;
+    }
+    let held = true;
+    const release = () => {
+      if (held) this.early--;
+      held = false;
+    };
+    return {
+      settings,
+      startedAt: thread.startedAt,
+      uploaded: (size) => thread.worker.postMessage({ type: 'uploaded', size } satisfies JobControlMessage),
+      adopt: (sample) => {
+        release();
+        this.attach(thread, sample, folder);
+      },
+      drop: async () => {
+        release();
+        await this.stopThread(thread);
+        await rm(folder, { recursive: true, force: true });
+        this.wake();
+      },
+    };
   }
 
   /**
@@ -125,10 +208,21 @@ export class JobRunner implements ProcessingRunner {
 
   private async stop(job: RunningJob): Promise<void> {
     job.cancelRequested = true;
-    job.worker.postMessage({ type: 'cancel' } satisfies JobControlMessage);
-    const force = setTimeout(() => void job.worker.terminate(), CANCEL_GRACE_MS);
+    await this.stopThread(job.thread);
     await job.finished;
+  }
+
+  /** Asks the job to stop; terminates it when it has not stopped after CANCEL_GRACE_MS. */
+  private async stopThread(thread: JobThread): Promise<void> {
+    thread.worker.postMessage({ type: 'cancel' } satisfies JobControlMessage);
+    const force = setTimeout(() => void thread.worker.terminate(), CANCEL_GRACE_MS);
+    await thread.exited;
     clearTimeout(force);
+  }
+
+  private jobInput(file: string, folder: string, settings: SampleSettings): JobWorkerInput {
+    const limits = { maxRecords: this.config.maxRecords, maxTextBytes: this.config.maxDecompressedBytes };
+    return { uploadPath: file, sampleDir: folder, settings, threads: this.config.jobThreads, limits };
   }
 
   /**
@@ -137,13 +231,8 @@ export class JobRunner implements ProcessingRunner {
    */
   private async launch(sample: Sample): Promise<void> {
     const remote = this.storage.remote;
-    const input: JobWorkerInput = {
-      uploadPath: uploadPath(this.storage, sample.uploadFile ?? ''),
-      sampleDir: remote ? cachedSampleDir(this.storage, sample.id) : sampleDir(this.storage, sample.id),
-      settings: sample.settings,
-      threads: this.config.jobThreads,
-      limits: { maxRecords: this.config.maxRecords, maxTextBytes: this.config.maxDecompressedBytes },
-    };
+    const folder = remote ? cachedSampleDir(this.storage, sample.id) : sampleDir(this.storage, sample.id);
+    const input = this.jobInput(uploadPath(this.storage, sample.uploadFile ?? ''), folder, sample.settings);
     if (remote) {
       const unreadable = await fetchUpload(this.storage, sample.uploadFile ?? '').then(
         () => null,
@@ -152,42 +241,57 @@ export class JobRunner implements ProcessingRunner {
       if (unreadable) {
         const message = `the uploaded file cannot be read from ${remote.description}: ${unreadable.message}`;
         const ending: Ending = { type: 'failed', error: { code: 'internal', message, line: null } };
-        await this.conclude(sample, performance.now(), ending).catch((error) => logFailure(`sample ${sample.id}: recording the outcome`, error));
+        await this.conclude(sample, performance.now(), ending, null).catch((error) => logFailure(`sample ${sample.id}: recording the outcome`, error));
         return;
       }
     }
-    const worker = new Worker(this.workerFile, { workerData: input });
-    const job: RunningJob = { sample, launchedAt: performance.now(), worker, cancelRequested: false, finished: Promise.resolve() };
-    let ending: Ending | null = null;
-    let crash: Error | null = null;
-    let lastWrite = 0;
+    this.attach(this.startThread(input), sample, null);
+  }
 
+  /** Starts a job's worker thread; its messages wait for an owner (attach). */
+  private startThread(input: JobWorkerInput): JobThread {
+    const worker = new Worker(this.workerFile, { workerData: input });
+    const thread: JobThread = {
+      worker, launchedAt: performance.now(), startedAt: new Date(), ending: null, crash: null, input: null, owner: null,
+      exited: new Promise<number>((resolve) => worker.once('exit', resolve)),
+    };
     worker.on('message', (message: JobWorkerMessage) => {
-      const failed = (what: string) => (error: unknown) => logFailure(`sample ${sample.id}: ${what}`, error);
+      if (message.type === 'done' || message.type === 'failed' || message.type === 'cancelled') thread.ending = message;
+      if (thread.owner) thread.owner(message);
+      else if (message.type === 'input') thread.input = message.input;
+    });
+    worker.on('error', (error) => {
+      thread.crash ??= error;
+    });
+    return thread;
+  }
+
+  /**
+   * Makes the thread the sample's running job: records its input and progress, and its outcome when it ends.
+   * `early`: the folder an early job writes instead of the sample's own (moved into place when it is done).
+   */
+  private attach(thread: JobThread, sample: Sample, early: string | null): void {
+    const job: RunningJob = { sample, thread, cancelRequested: false, finished: Promise.resolve() };
+    const failed = (what: string) => (error: unknown) => logFailure(`sample ${sample.id}: ${what}`, error);
+    let lastWrite = 0;
+    thread.owner = (message) => {
       if (message.type === 'input') {
         recordInput(sample.id, message.input).catch(failed('input'));
       } else if (message.type === 'progress') {
         if (Date.now() - lastWrite < PROGRESS_WRITE_MS) return;
         lastWrite = Date.now();
         recordProgress(sample.id, this.progressOf(sample, message.progress)).catch(failed('progress'));
-      } else {
-        ending = message;
       }
-    });
-    worker.on('error', (error) => {
-      crash ??= error;
-    });
-    job.finished = new Promise<void>((resolve) => {
-      worker.once('exit', (exitCode) => {
-        this.conclude(sample, job.launchedAt, ending ?? this.unexplainedEnd(job, crash, exitCode))
-          .catch((error) => logFailure(`sample ${sample.id}: recording the outcome`, error))
-          .finally(() => {
-            this.running.delete(sample.id);
-            resolve();
-            this.wake();
-          });
-      });
-    });
+    };
+    if (thread.input) recordInput(sample.id, thread.input).catch(failed('input'));
+    job.finished = thread.exited.then((exitCode) =>
+      this.conclude(sample, thread.launchedAt, thread.ending ?? this.unexplainedEnd(job, exitCode), early)
+        .catch((error) => logFailure(`sample ${sample.id}: recording the outcome`, error))
+        .finally(() => {
+          this.running.delete(sample.id);
+          this.wake();
+        }),
+    );
     this.running.set(sample.id, job);
   }
 
@@ -196,8 +300,9 @@ export class JobRunner implements ProcessingRunner {
   }
 
   /** The ending of a worker that stopped without saying how (terminated, crashed, or not even started). */
-  private unexplainedEnd(job: RunningJob, crash: Error | null, exitCode: number): Ending {
+  private unexplainedEnd(job: RunningJob, exitCode: number): Ending {
     if (job.cancelRequested) return { type: 'cancelled' };
+    const crash = job.thread.crash;
     const missing = !existsSync(this.workerFile);
     const message = missing
       ? `the processing engine is not built (${this.workerFile} is missing); run: npm run build:engine`
@@ -205,12 +310,14 @@ export class JobRunner implements ProcessingRunner {
     return { type: 'failed', error: { code: 'internal', message, line: null } satisfies JobErrorReport };
   }
 
-  private async conclude(sample: Sample, launchedAt: number, ending: Ending): Promise<void> {
+  /** Records the outcome; `early`: the folder an early job wrote, which becomes the sample's when it is done. */
+  private async conclude(sample: Sample, launchedAt: number, ending: Ending, early: string | null): Promise<void> {
     const processingMs = Math.round(performance.now() - launchedAt);
     try {
       if (ending.type === 'done') {
         const { counts, planes } = ending;
         const progress = this.progressOf(sample, ending.progress);
+        if (early) await rename(early, sampleDir(this.storage, sample.id));
         if (this.storage.remote) await publishColumnFolder(this.storage.remote, cachedSampleDir(this.storage, sample.id), samplePrefix(sample.id));
         if (!(await recordDone(sample.id, { counts, planes, progress, processingMs }))) {
           await removeSampleFiles(this.storage, sample.id);
@@ -219,9 +326,11 @@ export class JobRunner implements ProcessingRunner {
       }
       // Files first: once the sample reads as failed or cancelled, nothing of it is left on disk.
       await removeSampleFiles(this.storage, sample.id);
+      if (early) await rm(early, { recursive: true, force: true });
       await recordEnded(sample.id, ending.type, ending.type === 'failed' ? sampleError(ending.error) : null, processingMs);
     } catch (error) {
       await removeSampleFiles(this.storage, sample.id);
+      if (early) await rm(early, { recursive: true, force: true });
       const internal = sampleError({ code: 'internal', message: String(error), line: null });
       await recordEnded(sample.id, 'failed', internal, processingMs);
       throw error;
@@ -235,6 +344,8 @@ export class JobRunner implements ProcessingRunner {
 export interface ProcessingRunner {
   /** Looks for queued samples now (after an upload). */
   wake(): void;
+  /** Starts the job of an upload still arriving, when this runner can (see JobRunner.startEarly). */
+  startEarly?(uploadFile: string, settings: SampleSettings): Promise<EarlyJob | null>;
   /** Stops the sample's job or takes it out of the queue; resolves once it is recorded and cleaned up. */
   cancel(sample: Sample): Promise<void>;
   /** The admin page's view of the processing. */

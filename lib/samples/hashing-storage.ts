@@ -32,7 +32,11 @@ export class HashingUploadStorage implements StorageEngine {
   /** Upload names this engine created for the request, kept until the caller takes them over. */
   readonly created = new Set<string>();
 
-  constructor(private readonly storage: SampleStorage) {}
+  /** `onFileOpened`: told the generated name once the local file exists (its bytes then follow as they arrive). */
+  constructor(
+    private readonly storage: SampleStorage,
+    private readonly onFileOpened?: (storedName: string) => void,
+  ) {}
 
   _handleFile(
     _request: Request,
@@ -72,7 +76,9 @@ export class HashingUploadStorage implements StorageEngine {
     }
     const target = uploadPath(this.storage, storedName);
     // A deep buffer lets the disk write while more of the body arrives (the default 16 KiB made each piece wait).
-    await pipeline(file.stream, measure, createWriteStream(target, { flags: 'wx', highWaterMark: WRITE_BUFFER_BYTES }));
+    const out = createWriteStream(target, { flags: 'wx', highWaterMark: WRITE_BUFFER_BYTES });
+    out.once('open', () => this.onFileOpened?.(storedName));
+    await pipeline(file.stream, measure, out);
     return target;
   }
 

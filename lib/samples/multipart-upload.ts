@@ -33,6 +33,8 @@ export interface ReceiveOptions {
    * file is stored (clients that send the fields first learn of a mistake without sending the whole file).
    */
   beforeFile(fieldsSoFar: Record<string, unknown>, originalName: string): Promise<void>;
+  /** Called when the file's local copy under uploads/ has been created (not with a bucket); its bytes follow. */
+  onFileOpened?(storedName: string): void;
 }
 
 const MAX_FIELD_BYTES = 1024 * 1024;
@@ -103,7 +105,7 @@ export async function receiveUpload(request: Request, options: ReceiveOptions): 
   if (!/^multipart\/form-data\b/i.test(request.headers.get('content-type') ?? '') || !request.body) {
     throw badRequest(`Send the upload as multipart/form-data, with the file in the "${options.fileField}" field.`);
   }
-  const storage = new HashingUploadStorage(options.storage);
+  const storage = new HashingUploadStorage(options.storage, options.onFileOpened);
   const middleware = multer({
     storage,
     // Keep the name as sent, so that a name with path separators is refused rather than silently shortened.

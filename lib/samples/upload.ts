@@ -1,20 +1,24 @@
 // POST /api/samples/upload: receive the file (streamed to storage/uploads/, hashed on the way), check the fields
 // and the caller's role in the study, then either offer an existing sample of the same file and settings or
-// queue a new one for processing. A refused upload leaves neither a row nor a file.
+// queue a new one for processing. A refused upload leaves neither a row nor a file. When the runner has room, the
+// job starts while the file arrives (an early job, lib/jobs/runner.ts): the new sample adopts it, created running;
+// any other outcome drops it.
 import { mkdir } from 'node:fs/promises';
 import { Op, type Transaction } from 'sequelize';
 import { ApiError, badRequest } from '@/lib/api/errors';
 import { checkedInput } from '@/lib/api/validation';
 import { studyAccess } from '@/lib/auth/study-access';
 import { db } from '@/lib/db/connection';
-import { jobRunner } from '@/lib/jobs/runner';
+import { jobRunner, type EarlyJob } from '@/lib/jobs/runner';
+import type { Sample } from '@/models/sample';
+import type { SampleSettings } from '@/models/sample-fields';
 import type { User } from '@/models/user';
 import { UNFINISHED_SAMPLE_STATES } from '@/models/vocabulary';
 import { sampleIncludes, visibleStudyIds, type LoadedSample } from './access';
 import { readSampleConfig } from './config';
 import { fileNameProblem } from './file-name';
 import { receiveUpload, type ReceivedFile } from './multipart-upload';
-import { settingsKey } from '../ingest/settings';
+import { settingsInputSchema, settingsKey } from '../ingest/settings';
 import { createSharingSample } from './sharing';
 import { sampleStorage } from './storage';
 import { uploadFieldsSchema, type UploadFields } from './upload-fields';
@@ -51,12 +55,16 @@ async function requireQueueRoom(user: User, maxJobs: number, transaction?: Trans
   }
 }
 
-/** The fields sent before the file, checked as far as they go, and the study role when the study is known. */
-async function checkEarly(user: User, fieldsSoFar: Record<string, unknown>, fileName: string, maxJobs: number): Promise<void> {
+/**
+ * The fields sent before the file, checked as far as they go, and the study role when the study is known; returns
+ * the settings these fields give (the defaults when none came), for an early job.
+ */
+async function checkEarly(user: User, fieldsSoFar: Record<string, unknown>, fileName: string, maxJobs: number): Promise<SampleSettings> {
   checkFileName(fileName);
   await requireQueueRoom(user, maxJobs);
   const known = checkedInput(uploadFieldsSchema.partial(), fieldsSoFar, 'upload', '(form)');
   if (known.studyId !== undefined) await studyAccess(user, known.studyId, 'editor');
+  return known.settings ?? settingsInputSchema.parse({});
 }
 
 /** A sample of the same bytes and settings that the user can see and that is not failed or cancelled. */
@@ -89,13 +97,32 @@ export async function acceptUpload(user: User, request: Request): Promise<Upload
   const config = readSampleConfig();
   const storage = sampleStorage();
   await mkdir(storage.uploadsDir, { recursive: true });
+  const runner = await jobRunner();
+  let earlySettings: SampleSettings | null = null;
+  let starting: Promise<EarlyJob | null> = Promise.resolve(null);
   const upload = await receiveUpload(request, {
     storage,
     maxBytes: config.uploadMaxBytes,
     fileField: UPLOAD_FILE_FIELD,
-    beforeFile: (fieldsSoFar, fileName) => checkEarly(user, fieldsSoFar, fileName, config.maxJobsPerUser),
+    beforeFile: async (fieldsSoFar, fileName) => {
+      earlySettings = await checkEarly(user, fieldsSoFar, fileName, config.maxJobsPerUser);
+    },
+    onFileOpened: (storedName) => {
+      if (!earlySettings || !runner.startEarly) return;
+      starting = runner.startEarly(storedName, earlySettings).catch((error: unknown) => {
+        console.error('[upload] cannot start the job early (it will be queued):', error);
+        return null;
+      });
+    },
+  }).catch(async (error: unknown) => {
+    await (await starting)?.drop();
+    throw error;
   });
+  const early = await starting;
+  if (upload.file) early?.uploaded(upload.file.size);
   let kept = false;
+  // The new sample that takes over the early job (set inside the transaction, adopted once it is committed).
+  const adoption: { sample: Sample | null; done: boolean } = { sample: null, done: false };
   try {
     const { file } = upload;
     if (!file) {
@@ -127,10 +154,11 @@ export async function acceptUpload(user: User, request: Request): Promise<Upload
       const processed = fields.force ? null : await findProcessed(file, fields, transaction);
       if (processed) return { shared: await load((await createSharingSample(processed, own, transaction)).id) };
       await requireQueueRoom(user, config.maxJobsPerUser, transaction);
+      const adopting = early !== null && settingsKey(early.settings) === settingsKey(fields.settings);
       const sample = await models.Sample.create(
         {
           ...own,
-          state: 'queued',
+          ...(adopting ? { state: 'running', startedAt: early.startedAt, attempts: 1 } : { state: 'queued' }),
           settings: fields.settings,
           settingsKey: settingsKey(fields.settings),
           fileSize: file.size,
@@ -139,12 +167,19 @@ export async function acceptUpload(user: User, request: Request): Promise<Upload
         },
         { transaction },
       );
+      if (adopting) adoption.sample = sample;
       return { queued: await load(sample.id) };
     });
     kept = 'queued' in outcome;
-    if (kept) (await jobRunner()).wake();
+    if (kept && early && adoption.sample) {
+      early.adopt(adoption.sample);
+      adoption.done = true;
+    }
+    if (kept) runner.wake();
     return outcome;
   } finally {
     if (!kept) await upload.discard();
+    // Not adopted (refused, a duplicate, other settings, or the sample's row failed): stopped and removed.
+    if (early && !adoption.done) await early.drop();
   }
 }

@@ -20,6 +20,29 @@ function slowEventsFile(events: number, tag: string): Blob {
   return new Blob([`${lines.join('\n')}\n`]);
 }
 
+/**
+ * A multipart form sent slowly: the fields, the file in ten pieces a tenth of a second apart, then the fields
+ * after the file; so that the file is still arriving while a job could read it.
+ */
+function slowForm(before: [string, string][], file: string, after: [string, string][] = []): { body: ReadableStream<Uint8Array>; contentType: string } {
+  const boundary = 'splitfield-slow-form';
+  const field = ([name, value]: [string, string]) => `--${boundary}\r\nContent-Disposition: form-data; name="${name}"\r\n\r\n${value}\r\n`;
+  const pieces = [before.map(field).join('') + `--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="early.jsonl"\r\nContent-Type: application/octet-stream\r\n\r\n`];
+  const size = Math.ceil(file.length / 10);
+  for (let at = 0; at < file.length; at += size) pieces.push(file.slice(at, at + size));
+  pieces.push(`\r\n${after.map(field).join('')}--${boundary}--\r\n`);
+  const encoder = new TextEncoder();
+  let next = 0;
+  const body = new ReadableStream<Uint8Array>({
+    async pull(controller) {
+      if (next > 0) await new Promise((resolve) => setTimeout(resolve, 100));
+      if (next === pieces.length) controller.close();
+      else controller.enqueue(encoder.encode(pieces[next++]));
+    },
+  });
+  return { body, contentType: `multipart/form-data; boundary=${boundary}` };
+}
+
 const SLOW_EVENTS = 4000;
 const isRunningWithProgress = (sample: any) => sample.state === 'running' && (sample.progress?.records ?? 0) > 0;
 
@@ -87,6 +110,44 @@ describe('one server', () => {
     expect((await owner.get(`/api/samples/${id}`)).status).toBe(404);
     expect(filesOf(server, id)).toEqual([]);
     expect(storedFiles(server.storageDir).uploads).toEqual([]);
+  });
+
+  it('starts a job while its file arrives; the new sample adopts it, a duplicate drops it without a trace', async () => {
+    const text = await slowEventsFile(400, 'early').text();
+    const settings = JSON.stringify({ jet: { R: 0.8 } });
+    // Fields before the file: the job starts once the file begins to arrive, and the sample is created running.
+    const early = await owner.send('POST', '/api/samples/upload', {
+      stream: slowForm([['studyId', String(studyId)], ['name', 'Early'], ['settings', settings]], text),
+    });
+    expect(early.status, early.text).toBe(202);
+    expect(early.body.sample.state).toBe('running');
+    const adopted = await waitForSample(owner, early.body.sample.id, isFinished, 'the end of its job');
+    expect(adopted.state, JSON.stringify(adopted.error)).toBe('done');
+    const { timings } = (await owner.get(`/api/samples/${adopted.id}/provenance`)).body;
+    expect(Date.parse(timings.startedAt)).toBeLessThan(Date.parse(timings.uploadedAt));
+
+    // The settings after the file: the job started with the defaults is not the sample's; it is dropped and the
+    // sample queued as usual. Same file, same settings: the same counts.
+    const queued = await owner.send('POST', '/api/samples/upload', {
+      stream: slowForm([['studyId', String(studyId)], ['name', 'Queued'], ['force', 'true']], text, [['settings', settings]]),
+    });
+    expect(queued.status, queued.text).toBe(202);
+    expect(queued.body.sample.state).toBe('queued');
+    const usual = await waitForSample(owner, queued.body.sample.id, isFinished, 'the end of its job');
+    expect(usual.state, JSON.stringify(usual.error)).toBe('done');
+    expect(Date.parse(usual.provenance.timings.startedAt)).toBeGreaterThanOrEqual(Date.parse(usual.provenance.timings.uploadedAt));
+    expect(usual.counts).toEqual(adopted.counts);
+    expect(adopted.counts.jets).toBeGreaterThan(0);
+
+    // A duplicate: its early job is stopped and its folder removed before the answer.
+    const duplicate = await owner.send('POST', '/api/samples/upload', {
+      stream: slowForm([['studyId', String(studyId)], ['name', 'Again'], ['settings', settings]], text),
+    });
+    expect(duplicate.status, duplicate.text).toBe(200);
+    expect(duplicate.body.duplicateOf.id).toBe(usual.id); // the latest of the two in the study
+    const left = storedFiles(server.storageDir);
+    expect(left.uploads).toEqual([]);
+    expect(left.samples.filter((name) => !/^\d+$/.test(name))).toEqual([]);
   });
 
   it('takes uploads from several users at once without "database is locked"', async () => {

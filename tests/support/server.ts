@@ -156,8 +156,9 @@ export class Client {
   }
 
   /**
-   * Sends `body` as JSON, `rawBody` as it is (with a JSON content type), `form` URL-encoded, or `multipart` as
-   * multipart/form-data; `headers` are added (e.g. an Authorization header).
+   * Sends `body` as JSON, `rawBody` as it is (with a JSON content type), `form` URL-encoded, `multipart` as
+   * multipart/form-data, or `stream` as it is produced (with its own content type); `headers` are added (e.g. an
+   * Authorization header).
    */
   async send(
     method: string,
@@ -167,14 +168,18 @@ export class Client {
       rawBody?: string;
       form?: Record<string, string>;
       multipart?: FormData;
+      stream?: { body: ReadableStream<Uint8Array>; contentType: string };
       headers?: Record<string, string>;
     } = {},
   ): Promise<ApiResponse> {
     const headers: Record<string, string> = { ...options.headers };
     if (this.cookies.size > 0) headers.cookie = [...this.cookies].map(([name, value]) => `${name}=${value}`).join('; ');
-    let payload: string | FormData | undefined;
+    let payload: string | FormData | ReadableStream<Uint8Array> | undefined;
     if (options.multipart) {
       payload = options.multipart;
+    } else if (options.stream) {
+      headers['content-type'] = options.stream.contentType;
+      payload = options.stream.body;
     } else if (options.form) {
       headers['content-type'] = 'application/x-www-form-urlencoded';
       payload = new URLSearchParams(options.form).toString();
@@ -182,7 +187,9 @@ export class Client {
       headers['content-type'] ??= 'application/json';
       payload = options.rawBody ?? JSON.stringify(options.body);
     }
-    const response = await fetch(new URL(pathname, this.baseUrl), { method, headers, body: payload, redirect: 'manual' });
+    // A streamed body needs half duplex (undici sends it while the response may already start).
+    const duplex = options.stream ? { duplex: 'half' } : {};
+    const response = await fetch(new URL(pathname, this.baseUrl), { method, headers, body: payload, redirect: 'manual', ...duplex } as RequestInit);
     this.keepCookies(response.headers);
     const text = await response.text();
     let body = null;

@@ -1,0 +1,112 @@
+// A file that is still being written (an upload as it arrives), read from its start as a byte stream: what is there
+// is read, then the reader waits for more until it is told the file's final size, or that the writing failed. The
+// server's processing job reads an upload this way while it is received (lib/jobs/runner.ts, "early" jobs).
+import { type FileHandle, open } from 'node:fs/promises';
+import { Readable } from 'node:stream';
+
+/** Bytes read at a time. */
+const CHUNK_BYTES = 1 << 20;
+/** How often the file is looked at again while no new bytes have come (and the writing has not ended). */
+const POLL_MS = 5;
+
+export class GrowingFile {
+  private finalSize: number | null = null;
+  private failure: Error | null = null;
+  private wake: (() => void) | null = null;
+
+  constructor(readonly path: string) {}
+
+  /** The writing ended: the file has `size` bytes. */
+  complete(size: number): void {
+    this.finalSize = size;
+    this.wake?.();
+  }
+
+  /** The writing failed (or the reading is no longer wanted): the reader stops with this error. */
+  fail(error: Error): void {
+    this.failure = error;
+    this.wake?.();
+  }
+
+  /** Waits for the writing to end. */
+  async completed(): Promise<number> {
+    for (;;) {
+      if (this.failure) throw this.failure;
+      if (this.finalSize !== null) return this.finalSize;
+      await this.pause();
+    }
+  }
+
+  /** The first `n` bytes once they have been written (fewer when the whole file is shorter). */
+  async head(n: number): Promise<Uint8Array> {
+    const handle = await this.openWhenThere();
+    try {
+      const b = new Uint8Array(n);
+      let got = 0;
+      for (;;) {
+        if (this.failure) throw this.failure;
+        got += (await handle.read(b, got, n - got, got)).bytesRead;
+        if (got === n || (this.finalSize !== null && got >= this.finalSize)) return b.subarray(0, got);
+        await this.pause();
+      }
+    } finally {
+      await handle.close();
+    }
+  }
+
+  /** The file's bytes from its start, as they are written, until its final size. */
+  stream(): Readable {
+    return Readable.from(this.chunks(), { objectMode: false });
+  }
+
+  private async *chunks(): AsyncGenerator<Buffer> {
+    const handle = await this.openWhenThere();
+    try {
+      let at = 0;
+      for (;;) {
+        if (this.failure) throw this.failure;
+        const end = this.finalSize;
+        if (end !== null && at >= end) return;
+        // A new buffer a chunk: the stream's consumer may still hold the previous one.
+        const buffer = Buffer.allocUnsafe(CHUNK_BYTES);
+        const { bytesRead } = await handle.read(buffer, 0, CHUNK_BYTES, at);
+        if (bytesRead > 0) {
+          at += bytesRead;
+          yield buffer.subarray(0, bytesRead);
+        } else if (end !== null) {
+          throw new Error(`${this.path} ended after ${at} bytes, but ${end} were written`);
+        } else {
+          await this.pause();
+        }
+      }
+    } finally {
+      await handle.close();
+    }
+  }
+
+  /** Opens the file, waiting for it to be created. */
+  private async openWhenThere(): Promise<FileHandle> {
+    for (;;) {
+      if (this.failure) throw this.failure;
+      try {
+        return await open(this.path, 'r');
+      } catch (error) {
+        if ((error as NodeJS.ErrnoException).code !== 'ENOENT' || this.finalSize !== null) throw error;
+      }
+      await this.pause();
+    }
+  }
+
+  /** Resolves after POLL_MS, or at once when the writing ends or fails. */
+  private pause(): Promise<void> {
+    return new Promise((resolve) => {
+      const done = () => {
+        clearTimeout(timer);
+        this.wake = null;
+        resolve();
+      };
+      const timer = setTimeout(done, POLL_MS);
+      this.wake = done;
+    });
+  }
+}
