@@ -7,6 +7,8 @@
 // arriving (startEarly; the worker reads the growing file), into a folder of its own under samples/. Once the
 // upload is accepted as a new sample, the sample is created running and adopts the job (its folder becomes the
 // sample's when the job is done); a refused or duplicate upload drops it. So the processing overlaps the upload.
+// An early job whose file is still arriving gives its place up as soon as a sample waits in the queue (a slow
+// upload must not hold the queue up); its upload then becomes a queued sample like any other.
 import { randomUUID } from 'node:crypto';
 import { existsSync } from 'node:fs';
 import { mkdir, rename, rm } from 'node:fs/promises';
@@ -80,8 +82,11 @@ export interface EarlyJob {
   readonly settings: SampleSettings;
   /** When it started (the sample's startedAt). */
   readonly startedAt: Date;
-  /** The upload is complete, with this many bytes. */
-  uploaded(size: number): void;
+  /**
+   * The upload is complete, with this many bytes: true when the job goes on, false when it gave its place up to a
+   * queued sample while the file arrived (the upload is then queued as usual).
+   */
+  uploaded(size: number): boolean;
   /** The upload became this sample, created running: the job is now the sample's. */
   adopt(sample: Sample): void;
   /** The upload was refused, failed or is a duplicate: stops the job and removes what it wrote. */
@@ -92,6 +97,10 @@ function jobWorkerFile(): string {
   return process.env.SPLITFIELD_JOB_WORKER ?? path.resolve(/*turbopackIgnore: true*/ process.cwd(), 'dist/engine/job-worker.js');
 }
 
+function queuedCount(): Promise<number> {
+  return db().models.Sample.count({ where: { state: 'queued' } });
+}
+
 function logFailure(what: string, error: unknown): void {
   console.error(`[jobs] ${what}:`, error);
 }
@@ -100,6 +109,10 @@ export class JobRunner implements ProcessingRunner {
   private readonly running = new Map<number, RunningJob>();
   /** Early jobs not yet adopted (they hold a place among the maxJobs). */
   private early = 0;
+  /** How to stop each early job whose upload is still arriving (when a queued sample needs its place). */
+  private readonly receiving = new Set<() => Promise<void>>();
+  /** Queued samples being claimed (fill): an early start then waits for the next upload. */
+  private claiming = 0;
   private readonly filling = new WakeLoop(
     () => this.fill(),
     (error) => logFailure('cannot start queued jobs', error),
@@ -132,8 +145,16 @@ export class JobRunner implements ProcessingRunner {
     return this.running.size + this.early < this.config.maxJobs;
   }
 
-  private fill(): Promise<void> {
-    return claimWhileRoom(() => this.hasRoom(), (sample) => this.launch(sample));
+  private async fill(): Promise<void> {
+    this.claiming++;
+    try {
+      if (!this.hasRoom() && this.receiving.size > 0 && (await queuedCount()) > 0) {
+        await Promise.all([...this.receiving].map((giveUp) => giveUp()));
+      }
+      await claimWhileRoom(() => this.hasRoom(), (sample) => this.launch(sample));
+    } finally {
+      this.claiming--;
+    }
   }
 
   /**
@@ -141,12 +162,12 @@ export class JobRunner implements ProcessingRunner {
    * no sample waits in the queue (it would be overtaken); null otherwise, and with a bucket (the upload goes there).
    */
   async startEarly(uploadFile: string, settings: SampleSettings): Promise<EarlyJob | null> {
-    if (this.storage.remote || !this.hasRoom()) return null;
+    if (this.storage.remote || !this.hasRoom() || this.claiming > 0) return null;
     this.early++; // the place is held from now on, so that two uploads at once cannot both take the last one
     let thread: JobThread;
     const folder = path.join(this.storage.samplesDir, `early-${randomUUID()}`);
     try {
-      if ((await db().models.Sample.count({ where: { state: 'queued' } })) > 0) {
+      if ((await queuedCount()) > 0) {
         this.early--;
         return null;
       }
@@ -155,25 +176,38 @@ export class JobRunner implements ProcessingRunner {
       this.early--;
       throw error;
     }
-    let held = true;
-    const release = () => {
-      if (held) this.early--;
-      held = false;
-    };
-    return {
-      settings,
-      startedAt: thread.startedAt,
-      uploaded: (size) => thread.worker.postMessage({ type: 'uploaded', size } satisfies JobControlMessage),
-      adopt: (sample) => {
-        release();
-        this.attach(thread, sample, folder);
-      },
-      drop: async () => {
-        release();
+    let state: 'receiving' | 'received' | 'adopted' | 'ended' = 'receiving';
+    // Stops the job, frees its place and removes its folder (once, whoever asks first).
+    let ending: Promise<void> | null = null;
+    const end = () => {
+      ending ??= (async () => {
+        this.receiving.delete(end);
+        this.early--;
+        state = 'ended';
         await this.stopThread(thread);
         await rm(folder, { recursive: true, force: true });
         this.wake();
+      })();
+      return ending;
+    };
+    this.receiving.add(end);
+    return {
+      settings,
+      startedAt: thread.startedAt,
+      uploaded: (size) => {
+        if (state !== 'receiving') return false;
+        this.receiving.delete(end);
+        state = 'received';
+        thread.worker.postMessage({ type: 'uploaded', size } satisfies JobControlMessage);
+        return true;
       },
+      adopt: (sample) => {
+        if (state !== 'received') throw new Error(`an early job ${state} cannot be adopted`);
+        state = 'adopted';
+        this.early--;
+        this.attach(thread, sample, folder);
+      },
+      drop: () => (state === 'adopted' ? Promise.resolve() : end()),
     };
   }
 

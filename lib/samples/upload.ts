@@ -118,8 +118,9 @@ export async function acceptUpload(user: User, request: Request): Promise<Upload
     await (await starting)?.drop();
     throw error;
   });
-  const early = await starting;
-  if (upload.file) early?.uploaded(upload.file.size);
+  const started = await starting;
+  // Null when the job gave its place up to a queued sample while the file arrived: the upload is queued as usual.
+  const early = started && upload.file && started.uploaded(upload.file.size) ? started : null;
   let kept = false;
   // The new sample that takes over the early job (set inside the transaction, adopted once it is committed).
   const adoption: { sample: Sample | null; done: boolean } = { sample: null, done: false };
@@ -180,6 +181,6 @@ export async function acceptUpload(user: User, request: Request): Promise<Upload
   } finally {
     if (!kept) await upload.discard();
     // Not adopted (refused, a duplicate, other settings, or the sample's row failed): stopped and removed.
-    if (early && !adoption.done) await early.drop();
+    if (started && !adoption.done) await started.drop();
   }
 }

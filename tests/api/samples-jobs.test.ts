@@ -22,9 +22,15 @@ function slowEventsFile(events: number, tag: string): Blob {
 
 /**
  * A multipart form sent slowly: the fields, the file in ten pieces a tenth of a second apart, then the fields
- * after the file; so that the file is still arriving while a job could read it.
+ * after the file; so that the file is still arriving while a job could read it. With `hold`, the second half of
+ * the file waits for it.
  */
-function slowForm(before: [string, string][], file: string, after: [string, string][] = []): { body: ReadableStream<Uint8Array>; contentType: string } {
+function slowForm(
+  before: [string, string][],
+  file: string,
+  after: [string, string][] = [],
+  hold?: Promise<void>,
+): { body: ReadableStream<Uint8Array>; contentType: string } {
   const boundary = 'splitfield-slow-form';
   const field = ([name, value]: [string, string]) => `--${boundary}\r\nContent-Disposition: form-data; name="${name}"\r\n\r\n${value}\r\n`;
   const pieces = [before.map(field).join('') + `--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="early.jsonl"\r\nContent-Type: application/octet-stream\r\n\r\n`];
@@ -36,6 +42,7 @@ function slowForm(before: [string, string][], file: string, after: [string, stri
   const body = new ReadableStream<Uint8Array>({
     async pull(controller) {
       if (next > 0) await new Promise((resolve) => setTimeout(resolve, 100));
+      if (hold && next === Math.ceil(pieces.length / 2)) await hold;
       if (next === pieces.length) controller.close();
       else controller.enqueue(encoder.encode(pieces[next++]));
     },
@@ -148,6 +155,32 @@ describe('one server', () => {
     const left = storedFiles(server.storageDir);
     expect(left.uploads).toEqual([]);
     expect(left.samples.filter((name) => !/^\d+$/.test(name))).toEqual([]);
+  });
+
+  it("gives an early job's place up to a queued sample while its file is still arriving", async () => {
+    const text = await slowEventsFile(200, 'held').text();
+    let release!: () => void;
+    const hold = new Promise<void>((resolve) => (release = resolve));
+    const slow = owner.send('POST', '/api/samples/upload', {
+      stream: slowForm([['studyId', String(studyId)], ['name', 'Slow upload']], text, [], hold),
+    });
+    // Its job has begun writing columns (into its own staging folder) while half the file is still to come.
+    const deadline = Date.now() + 60_000;
+    while (!storedFiles(server.storageDir).samples.some((name) => name.startsWith('.early-'))) {
+      if (Date.now() > deadline) throw new Error('the early job never started');
+      await new Promise((resolve) => setTimeout(resolve, 50));
+    }
+    // Another upload meanwhile is queued; the early job gives its place up, so this one does not wait for the slow one.
+    const other = await uploadDone(owner, { studyId, name: 'Not held up', file: jetsFileText(100, 77) });
+    expect(other.counts.records).toBe(100);
+    release();
+    const response = await slow;
+    expect(response.status, response.text).toBe(202);
+    expect(response.body.sample.state).toBe('queued');
+    const held = await waitForSample(owner, response.body.sample.id, isFinished, 'the end of its job');
+    expect(held.state, JSON.stringify(held.error)).toBe('done');
+    expect(held.counts.records).toBe(200);
+    expect(storedFiles(server.storageDir).samples.filter((name) => name.includes('early-'))).toEqual([]);
   });
 
   it('takes uploads from several users at once without "database is locked"', async () => {
