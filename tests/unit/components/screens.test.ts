@@ -6,10 +6,12 @@ import { renderToStaticMarkup } from 'react-dom/server';
 import { describe, expect, it } from 'vitest';
 import { MarkdownView } from '@/components/markdown-view';
 import { ProcessingPanel } from '@/components/samples/processing-panel';
+import { ProvenancePanel } from '@/components/samples/provenance-panel';
 import { ProgressBar } from '@/components/samples/progress-bar';
 import { Typeset } from '@/components/typeset';
 import { axisAscii, axisLabel } from '@/lib/maps/axis-labels';
-import type { SampleDetail } from '@/lib/samples/shapes';
+import { defaultSettings } from '@/lib/ingest/settings';
+import type { SampleDetail, SampleProvenance } from '@/lib/samples/shapes';
 
 const html = (element: Parameters<typeof renderToStaticMarkup>[0]) => renderToStaticMarkup(element);
 
@@ -64,5 +66,28 @@ describe('the progress bar', () => {
     const markup = html(createElement(ProgressBar, { label: 'Upload progress', fraction: 1 }));
     expect(markup).toContain('width:100%');
     expect(markup).not.toContain('transition');
+  });
+});
+
+describe('the provenance panel', () => {
+  const provenance = (startedAt: string): SampleProvenance => ({
+    sample: { id: 3, name: 'Run 12', label: 'r12', state: 'done' },
+    study: { id: 1, title: 'Study' },
+    file: { name: 'run12.jsonl', size: 1000, sha256: 'ab'.repeat(32) },
+    input: null,
+    settings: defaultSettings(),
+    software: { name: 'splitfield', version: '1.0.0' },
+    uploadedBy: null,
+    timings: { uploadedAt: '2026-12-02T10:00:05.000Z', uploadSeconds: 5, startedAt, finishedAt: '2026-12-02T10:00:09.000Z', processingSeconds: 8.5 },
+    counts: null,
+    tree: 'primary',
+  });
+
+  it('says when processing began while the file was arriving, and only then', () => {
+    const early = html(createElement(ProvenancePanel, { provenance: provenance('2026-12-02T10:00:00.500Z') }));
+    expect(early).toContain('in 8.5 s, started while the file was arriving');
+    const queued = html(createElement(ProvenancePanel, { provenance: provenance('2026-12-02T10:00:06.000Z') }));
+    expect(queued).toContain('in 8.5 s');
+    expect(queued).not.toContain('arriving');
   });
 });
