@@ -1,7 +1,8 @@
 // Worker-thread entry of one processing job (bundled to dist/engine/job-worker.js by scripts/build-engine.mjs):
-// reads the uploaded file (while it arrives, for an early job: lib/ingest/growing-file.ts), runs the pipeline (with its own pool of worker threads when threads > 1), writes the
-// sample's columns and plane histograms, and reports to the server. It never touches the database: the server
-// records the outcome, so that a job killed at any point leaves nothing the server would take for finished.
+// reads the uploaded file (while it arrives, for an early job: lib/ingest/growing-file.ts), runs the pipeline
+// (with its own pool of worker threads when threads > 1), writes the sample's columns and plane histograms, and
+// reports to the server. It never touches the database: the server records the outcome, so that a job killed at
+// any point leaves nothing the server would take for finished.
 import { parentPort, workerData } from 'node:worker_threads';
 import { IngestAbortError } from '@/lib/ingest/errors';
 import { GrowingFile } from '@/lib/ingest/growing-file';
