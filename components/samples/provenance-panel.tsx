@@ -74,9 +74,13 @@ function settingsFacts(settings: CompleteSampleSettings, tree: SampleProvenance[
 
 const seconds = (value: number | null) => (value === null ? '–' : `${value.toFixed(1)} s`);
 
-/** Said when processing began before the upload had finished (the server had room: the two overlapped). */
+/**
+ * How much of the processing went on while the file was still arriving (the server had room and started early);
+ * said from a tenth of a second on, the precision of the times beside it.
+ */
 function overlapNote(timings: SampleProvenance['timings']): string {
-  return timings.startedAt && Date.parse(timings.startedAt) < Date.parse(timings.uploadedAt) ? ', started while the file was arriving' : '';
+  const overlap = timings.startedAt ? (Date.parse(timings.uploadedAt) - Date.parse(timings.startedAt)) / 1000 : 0;
+  return overlap >= 0.05 ? `, ${seconds(overlap)} of it while the file was arriving` : '';
 }
 
 /** Where the sample came from and how it was made, as the server recorded it, with the JSON download. */

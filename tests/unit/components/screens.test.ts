@@ -83,11 +83,13 @@ describe('the provenance panel', () => {
     tree: 'primary',
   });
 
-  it('says when processing began while the file was arriving, and only then', () => {
+  it('says how much of the processing went on while the file was arriving, from a tenth of a second on', () => {
     const early = html(createElement(ProvenancePanel, { provenance: provenance('2026-12-02T10:00:00.500Z') }));
-    expect(early).toContain('in 8.5 s, started while the file was arriving');
+    expect(early).toContain('in 8.5 s, 4.5 s of it while the file was arriving');
     const queued = html(createElement(ProvenancePanel, { provenance: provenance('2026-12-02T10:00:06.000Z') }));
     expect(queued).toContain('in 8.5 s');
     expect(queued).not.toContain('arriving');
+    const small = html(createElement(ProvenancePanel, { provenance: provenance('2026-12-02T10:00:04.980Z') }));
+    expect(small).not.toContain('arriving'); // 0.02 s: less than the times' precision
   });
 });
