@@ -1,31 +1,31 @@
-// A file that is still being written (an upload as it arrives), read from its start as a byte stream: what is there
-// is read, then the reader waits for more until it is told the file's final size, or that the writing failed. The
-// server's processing job reads an upload this way while it is received (lib/jobs/runner.ts, "early" jobs).
+// A file that is still being written (an upload as it arrives), read from its start as the line source reads a file
+// (lines.ts, SequentialFile): each read gives the bytes that are there, or waits for more until it is told the
+// file's final size, or that the writing failed. The server's processing job reads an upload this way while it is
+// received (lib/jobs/runner.ts, "early" jobs).
 import { type FileHandle, open } from 'node:fs/promises';
-import { Readable } from 'node:stream';
+import type { SequentialFile } from './lines';
 
-/** Bytes read at a time. */
-const CHUNK_BYTES = 1 << 20;
 /** How often the file is looked at again while no new bytes have come (and the writing has not ended). */
 const POLL_MS = 5;
 
 export class GrowingFile {
   private finalSize: number | null = null;
   private failure: Error | null = null;
-  private wake: (() => void) | null = null;
+  /** Readers waiting for more bytes (or the end), woken when the writing ends or fails. */
+  private readonly waiting = new Set<() => void>();
 
   constructor(readonly path: string) {}
 
   /** The writing ended: the file has `size` bytes. */
   complete(size: number): void {
     this.finalSize = size;
-    this.wake?.();
+    for (const wake of [...this.waiting]) wake();
   }
 
   /** The writing failed (or the reading is no longer wanted): the reader stops with this error. */
   fail(error: Error): void {
     this.failure = error;
-    this.wake?.();
+    for (const wake of [...this.waiting]) wake();
   }
 
   /** Waits for the writing to end. */
@@ -54,34 +54,25 @@ export class GrowingFile {
     }
   }
 
-  /** The file's bytes from its start, as they are written, until its final size. */
-  stream(): Readable {
-    return Readable.from(this.chunks(), { objectMode: false });
-  }
-
-  private async *chunks(): AsyncGenerator<Buffer> {
+  /** The file from its start, for the line source: each read waits for bytes until the final size is reached. */
+  async open(): Promise<SequentialFile> {
     const handle = await this.openWhenThere();
-    try {
-      let at = 0;
+    let at = 0;
+    const read = async (buffer: Buffer, offset: number, length: number): Promise<{ bytesRead: number }> => {
       for (;;) {
         if (this.failure) throw this.failure;
         const end = this.finalSize;
-        if (end !== null && at >= end) return;
-        // A new buffer a chunk: the stream's consumer may still hold the previous one.
-        const buffer = Buffer.allocUnsafe(CHUNK_BYTES);
-        const { bytesRead } = await handle.read(buffer, 0, CHUNK_BYTES, at);
+        if (end !== null && at >= end) return { bytesRead: 0 };
+        const { bytesRead } = await handle.read(buffer, offset, length, at);
         if (bytesRead > 0) {
           at += bytesRead;
-          yield buffer.subarray(0, bytesRead);
-        } else if (end !== null) {
-          throw new Error(`${this.path} ended after ${at} bytes, but ${end} were written`);
-        } else {
-          await this.pause();
+          return { bytesRead };
         }
+        if (end !== null) throw new Error(`${this.path} ended after ${at} bytes, but ${end} were written`);
+        await this.pause();
       }
-    } finally {
-      await handle.close();
-    }
+    };
+    return { read, close: () => handle.close() };
   }
 
   /** Opens the file, waiting for it to be created. */
@@ -102,11 +93,11 @@ export class GrowingFile {
     return new Promise((resolve) => {
       const done = () => {
         clearTimeout(timer);
-        this.wake = null;
+        this.waiting.delete(done);
         resolve();
       };
       const timer = setTimeout(done, POLL_MS);
-      this.wake = done;
+      this.waiting.add(done);
     });
   }
 }

@@ -15,6 +15,15 @@ import zlib from 'node:zlib';
 import { IngestError } from './errors';
 import { gzipExtent } from './gzip-extent';
 
+/**
+ * A file read in order from where the last read ended (position null), as a FileHandle reads it: each read gives up
+ * to `length` bytes, 0 only at the end.
+ */
+export interface SequentialFile {
+  read(buffer: Buffer, offset: number, length: number, position: null): Promise<{ bytesRead: number }>;
+  close(): Promise<void>;
+}
+
 /** Longest single line accepted (and the size limit of the one-document form). */
 export const DEFAULT_MAX_LINE_BYTES = 256 * 1024 * 1024;
 
@@ -74,7 +83,7 @@ export class LineSource {
   private ended = false;
   private started = false;
   /** A plain file is read through its handle; any other input (gzip, a stream) through `iter`. */
-  private readonly handle: FileHandle | null;
+  private readonly handle: SequentialFile | null;
   private iter: AsyncIterator<Buffer> | null = null;
   /**
    * A plain file is read one window ahead: once a region is handed out, the start of a line after it is copied to
@@ -92,8 +101,11 @@ export class LineSource {
   private sawAnyByte = false;
   private bomChecked = false;
 
-  /** `input`: a byte stream, or the handle of a plain (not gzip) file opened for reading (closed at its end). */
-  constructor(input: Readable | FileHandle, opts: LineSourceOptions = {}) {
+  /**
+   * `input`: a byte stream, or a plain (not gzip) file read from its start to its end (a file handle, or a file
+   * still being written: growing-file.ts), closed at its end.
+   */
+  constructor(input: Readable | SequentialFile, opts: LineSourceOptions = {}) {
     this.input = input instanceof Readable ? input : null;
     this.handle = input instanceof Readable ? null : input;
     this.bytesTotal = opts.bytesTotal ?? null;

@@ -8,7 +8,7 @@ import { isArrowStart, openArrowFile } from './columnar/arrow-reader';
 import { openParquetFile, PARQUET_MAGIC } from './columnar/parquet-reader';
 import { IngestError } from './errors';
 import { openHepMC3FromLines } from './hepmc3-reader';
-import { LineSource, openLineSource, type LineSourceOptions } from './lines';
+import { LineSource, openLineSource, type LineSourceOptions, type SequentialFile } from './lines';
 import { openParticlesFromLines } from './particles-reader';
 import type { ParticleReader, ReaderOptions } from './types';
 
@@ -69,9 +69,12 @@ export async function openParticleFile(path: string, opts: ReaderOptions = {}): 
   return openFromSource(src, opts);
 }
 
-/** Opens a byte stream (e.g. an upload): format and compression are detected from the content. */
+/**
+ * Opens a byte stream (e.g. an upload), or a file read in order (e.g. one still being written: growing-file.ts):
+ * format and compression are detected from the content.
+ */
 export async function openParticleStream(
-  stream: Readable,
+  stream: Readable | SequentialFile,
   opts: ReaderOptions & Pick<LineSourceOptions, 'bytesTotal' | 'name'> = {},
 ): Promise<ParticleReader> {
   const src = new LineSource(stream, { bytesTotal: opts.bytesTotal, name: opts.name, maxLineLength: opts.maxDocumentLength, maxTextBytes: opts.maxTextBytes });

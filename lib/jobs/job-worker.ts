@@ -31,7 +31,7 @@ function post(message: JobWorkerMessage, transfer: ArrayBuffer[] = []): void {
 async function openUpload(): Promise<ParticleReader> {
   const options = { maxDocumentLength: MAX_DOCUMENT_CHARS, maxTextBytes: input.limits.maxTextBytes };
   if (growing) {
-    if (readableWhileWritten(await growing.head(8))) return openParticleStream(growing.stream(), { ...options, name: input.uploadPath });
+    if (readableWhileWritten(await growing.head(8))) return openParticleStream(await growing.open(), { ...options, name: input.uploadPath });
     await growing.completed();
   }
   return openParticleFile(input.uploadPath, options);
