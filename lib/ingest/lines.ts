@@ -24,6 +24,11 @@ export interface SequentialFile {
   close(): Promise<void>;
 }
 
+/** Whether bytes start as gzip data does (its magic bytes 1f 8b). */
+export function isGzipStart(b: Uint8Array): boolean {
+  return b.length >= 2 && b[0] === 0x1f && b[1] === 0x8b;
+}
+
 /** Longest single line accepted (and the size limit of the one-document form). */
 export const DEFAULT_MAX_LINE_BYTES = 256 * 1024 * 1024;
 
@@ -362,7 +367,7 @@ export class LineSource {
         yield b;
       }
     }
-    if (first.length >= 2 && first[0] === 0x1f && first[1] === 0x8b) {
+    if (isGzipStart(first)) {
       this.gzip = true;
       const gz = zlib.createGunzip({ chunkSize: 256 * 1024 });
       pipeline(Readable.from(rawRest(), { objectMode: false }), gz, () => {});
@@ -447,7 +452,7 @@ export async function openLineSource(path: string, opts: Omit<LineSourceOptions,
     size = st.size;
     const head = Buffer.alloc(2);
     const { bytesRead } = await handle.read(head, 0, 2, 0);
-    gzip = bytesRead === 2 && head[0] === 0x1f && head[1] === 0x8b;
+    gzip = isGzipStart(head.subarray(0, bytesRead));
   } catch (e) {
     await handle?.close().catch(() => undefined);
     if (e instanceof IngestError) throw e;

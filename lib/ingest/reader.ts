@@ -5,10 +5,10 @@
 import { open } from 'node:fs/promises';
 import type { Readable } from 'node:stream';
 import { isArrowStart, openArrowFile } from './columnar/arrow-reader';
-import { openParquetFile, PARQUET_MAGIC } from './columnar/parquet-reader';
+import { isParquetStart, openParquetFile } from './columnar/parquet-reader';
 import { IngestError } from './errors';
 import { openHepMC3FromLines } from './hepmc3-reader';
-import { LineSource, openLineSource, type LineSourceOptions, type SequentialFile } from './lines';
+import { isGzipStart, LineSource, openLineSource, type LineSourceOptions, type SequentialFile } from './lines';
 import { openParticlesFromLines } from './particles-reader';
 import type { ParticleReader, ReaderOptions } from './types';
 
@@ -56,14 +56,13 @@ async function firstBytes(path: string, n: number): Promise<Uint8Array> {
  * files (read from their end) are read once complete.
  */
 export function readableWhileWritten(start: Uint8Array): boolean {
-  const gzip = start[0] === 0x1f && start[1] === 0x8b;
-  return !gzip && String.fromCharCode(...start.subarray(0, 4)) !== PARQUET_MAGIC && !isArrowStart(start);
+  return !isGzipStart(start) && !isParquetStart(start) && !isArrowStart(start);
 }
 
 /** Opens a file by path: format and compression are detected from the content (columnar files: columnar/). */
 export async function openParticleFile(path: string, opts: ReaderOptions = {}): Promise<ParticleReader> {
   const start = await firstBytes(path, 8);
-  if (String.fromCharCode(...start.subarray(0, 4)) === PARQUET_MAGIC) return openParquetFile(path, opts);
+  if (isParquetStart(start)) return openParquetFile(path, opts);
   if (isArrowStart(start)) return openArrowFile(path, opts);
   const src = await openLineSource(path, { maxLineLength: opts.maxDocumentLength, maxTextBytes: opts.maxTextBytes });
   return openFromSource(src, opts);

@@ -3,7 +3,8 @@
 // messages and the default record ids are line numbers). Parquet is cut between row groups (row-group-plan.ts).
 // Other inputs (gzip, the one-document form, Arrow) and small files are one shard read whole, exactly as the
 // embedded mode reads them.
-import { PARQUET_MAGIC } from '@/lib/ingest/columnar/parquet-reader';
+import { isParquetStart } from '@/lib/ingest/columnar/parquet-reader';
+import { isGzipStart } from '@/lib/ingest/lines';
 import type { ObjectStore } from '@/lib/objects/object-store';
 import { planRowGroups, type RowGroupPlan } from './row-group-plan';
 
@@ -39,7 +40,7 @@ type Format = 'jsonl' | 'hepmc3';
 
 /** The format of a plain-text head and where its header ends, or null when the file is not cut. */
 function headerOf(head: Buffer): { format: Format; headerEnd: number; headerLines: number } | null {
-  if (head[0] === 0x1f && head[1] === 0x8b) return null;
+  if (isGzipStart(head)) return null;
   let at = 0;
   let lines = 0;
   while (at < head.length) {
@@ -83,7 +84,7 @@ function hepmcHeader(head: Buffer, from: number, linesBefore: number) {
 export async function planShards(store: ObjectStore, key: string, size: number, shardBytes: number): Promise<ShardPlan> {
   if (size <= shardBytes) return { kind: 'whole' };
   const head = Buffer.concat(await chunks(await store.read(key, { start: 0, end: Math.min(size, HEAD_BYTES) })));
-  if (head.subarray(0, 4).toString('latin1') === PARQUET_MAGIC) return (await planRowGroups(store, key, size, shardBytes)) ?? { kind: 'whole' };
+  if (isParquetStart(head)) return (await planRowGroups(store, key, size, shardBytes)) ?? { kind: 'whole' };
   const header = headerOf(head);
   if (!header) return { kind: 'whole' };
   const { format, headerEnd } = header;

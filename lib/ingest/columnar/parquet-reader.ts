@@ -11,7 +11,12 @@ import type { ParticleReader, ReaderOptions } from '../types';
 import { ColumnarReader, type ChunkSource } from './columnar-reader';
 import { columnarHeader, METADATA_KEY, planColumns, type Chunk, type ColumnPlan, type ColumnShape, type NumberColumn } from './layout';
 
-export const PARQUET_MAGIC = 'PAR1';
+const PARQUET_MAGIC = 'PAR1';
+
+/** Whether a file starts as a Parquet file does (its magic bytes). */
+export function isParquetStart(b: Uint8Array): boolean {
+  return String.fromCharCode(...b.subarray(0, 4)) === PARQUET_MAGIC;
+}
 
 type SchemaNode = ReturnType<typeof parquetSchema>;
 
