@@ -344,6 +344,12 @@ export class JobRunner implements ProcessingRunner {
     return { type: 'failed', error: { code: 'internal', message, line: null } satisfies JobErrorReport };
   }
 
+  /** Removes what a job that did not finish wrote: the sample's files, and an early job's own folder. */
+  private async removeJobFiles(sample: Sample, early: string | null): Promise<void> {
+    await removeSampleFiles(this.storage, sample.id);
+    if (early) await rm(early, { recursive: true, force: true });
+  }
+
   /** Records the outcome; `early`: the folder an early job wrote, which becomes the sample's when it is done. */
   private async conclude(sample: Sample, launchedAt: number, ending: Ending, early: string | null): Promise<void> {
     const processingMs = Math.round(performance.now() - launchedAt);
@@ -359,12 +365,10 @@ export class JobRunner implements ProcessingRunner {
         return;
       }
       // Files first: once the sample reads as failed or cancelled, nothing of it is left on disk.
-      await removeSampleFiles(this.storage, sample.id);
-      if (early) await rm(early, { recursive: true, force: true });
+      await this.removeJobFiles(sample, early);
       await recordEnded(sample.id, ending.type, ending.type === 'failed' ? sampleError(ending.error) : null, processingMs);
     } catch (error) {
-      await removeSampleFiles(this.storage, sample.id);
-      if (early) await rm(early, { recursive: true, force: true });
+      await this.removeJobFiles(sample, early);
       const internal = sampleError({ code: 'internal', message: String(error), line: null });
       await recordEnded(sample.id, 'failed', internal, processingMs);
       throw error;
