@@ -39,18 +39,18 @@ export class GrowingFile {
 
   /** The first `n` bytes once they have been written (fewer when the whole file is shorter). */
   async head(n: number): Promise<Uint8Array> {
-    const handle = await this.openWhenThere();
+    const file = await this.open();
     try {
-      const b = new Uint8Array(n);
+      const b = Buffer.alloc(n);
       let got = 0;
-      for (;;) {
-        if (this.failure) throw this.failure;
-        got += (await handle.read(b, got, n - got, got)).bytesRead;
-        if (got === n || (this.finalSize !== null && got >= this.finalSize)) return b.subarray(0, got);
-        await this.pause();
+      while (got < n) {
+        const { bytesRead } = await file.read(b, got, n - got, null);
+        if (bytesRead === 0) break; // the whole file is shorter
+        got += bytesRead;
       }
+      return b.subarray(0, got);
     } finally {
-      await handle.close();
+      await file.close();
     }
   }
 

@@ -164,18 +164,15 @@ export class JobRunner implements ProcessingRunner {
   async startEarly(uploadFile: string, settings: SampleSettings): Promise<EarlyJob | null> {
     if (this.storage.remote || !this.hasRoom() || this.claiming > 0) return null;
     this.early++; // the place is held from now on, so that two uploads at once cannot both take the last one
-    let thread: JobThread;
     const folder = path.join(this.storage.samplesDir, `early-${randomUUID()}`);
+    let started: JobThread | null = null;
     try {
-      if ((await queuedCount()) > 0) {
-        this.early--;
-        return null;
-      }
-      thread = this.startThread({ ...this.jobInput(uploadPath(this.storage, uploadFile), folder, settings), growing: true });
-    } catch (error) {
-      this.early--;
-      throw error;
+      if ((await queuedCount()) === 0) started = this.startThread({ ...this.jobInput(uploadPath(this.storage, uploadFile), folder, settings), growing: true });
+    } finally {
+      if (!started) this.early--;
     }
+    if (!started) return null;
+    const thread = started;
     let state: 'receiving' | 'received' | 'adopted' | 'ended' = 'receiving';
     // Stops the job, frees its place and removes its folder (once, whoever asks first).
     let ending: Promise<void> | null = null;
