@@ -5,7 +5,7 @@
 // (FastJet's time / ours: higher is better), the ratio of CPU times, stage times, peak memory, and for the
 // physics cases the fitted growth exponent of the time per event with N on both sides.
 //
-//   npm run bench [-- --only physics,recluster,whole,json,threads,memory] [-- --quick] [-- --rounds 3]
+//   npm run bench [-- --only physics,recluster,whole,json,threads,memory,language] [-- --quick] [-- --rounds 3]
 //
 // Sections (issue 13's goals in brackets):
 //  physics    the physics alone (records in memory: jet finding, selection, C/A re-clustering, declustering,
@@ -19,6 +19,8 @@
 //  threads    --threads 2 against --threads 1 on both files [≥ 1.8× on an idle machine; no single-threaded
 //             stage above 1/16 of the work]
 //  memory     peak RSS of the command on the events file and on a file 4 times larger [independent of size]
+//  language   not a goal: the engine's C/A re-clustering loop against its line-for-line C++ port
+//             (bench/same-loop/plain-ca.cc, g++ -O2) on the same jets: what the language costs on identical work
 // Physics timings are CPU seconds of the fastest of several rounds on each side (steadier than wall time on a
 // shared machine); whole processes are timed 3 times, the two programs of a comparison alternately, and the fastest
 // wall time kept with its CPU time (the slowest is printed beside it).
@@ -34,7 +36,7 @@ import { ensureReferenceProgram } from '../tests/reference/fastjet';
 const ROOT = path.resolve(__dirname, '..');
 const OUT = path.join(ROOT, 'bench/out');
 const BIN = path.join(ROOT, 'node_modules/.bin/splitfield');
-const SECTIONS = ['physics', 'recluster', 'whole', 'json', 'threads', 'memory'] as const;
+const SECTIONS = ['physics', 'recluster', 'whole', 'json', 'threads', 'memory', 'language'] as const;
 type Section = (typeof SECTIONS)[number];
 
 const { values: args } = parseArgs({
@@ -359,6 +361,48 @@ async function threadsSection(): Promise<void> {
   results.threads = all;
 }
 
+/** The C++ port of the re-clustering loop, built (g++ -O2) when missing or older than its source. */
+function samePortProgram(): string {
+  const source = path.join(ROOT, 'bench/same-loop/plain-ca.cc');
+  const bin = path.join(OUT, 'plain-ca');
+  if (!existsSync(bin) || statSync(bin).mtimeMs < statSync(source).mtimeMs) {
+    execFileSync('g++', ['-O2', '-std=c++17', '-o', bin, source], { stdio: 'pipe' });
+  }
+  return bin;
+}
+
+interface LoopTiming {
+  records: number;
+  ops: number;
+  checksum: number;
+  cpuSeconds: number;
+}
+
+async function languageSection(): Promise<void> {
+  out('\n## Same loop, two languages (not a goal): the C/A re-clustering loop (plain strategy) against its line-for-line C++ port');
+  out('bench/same-loop/plain-ca.cc, g++ -O2: the same operations, order and tie-breaking on the same jets (pair distances counted and trees compared). CPU, fastest round.');
+  const port = samePortProgram();
+  const rows: string[][] = [];
+  const all: Record<string, unknown>[] = [];
+  for (const n of [30, 60, 100, 200]) {
+    const file = input({ kind: 'jets', n, count: countFor(n), vary: 0 });
+    const dump = path.join(OUT, `particles-${n}.bin`);
+    const r = ['--rounds', String(Math.max(3, rounds)), '--min-seconds', quick ? '0.05' : '0.2'];
+    const js = JSON.parse((await measure(process.execPath, [TIMING, 'ca-loop', file, '--dump', dump, ...r])).stdout) as LoopTiming;
+    const cc = JSON.parse((await measure(port, [dump, ...r])).stdout) as LoopTiming;
+    unlinkSync(dump);
+    if (js.ops !== cc.ops || Math.abs(js.checksum - cc.checksum) > 1e-9 * Math.abs(cc.checksum)) {
+      throw new Error(`the C++ port did other work on ${file}: ${cc.ops} distances, trees ${cc.checksum}; TypeScript ${js.ops}, ${js.checksum}`);
+    }
+    const a = (js.cpuSeconds / js.records) * 1e6, b = (cc.cpuSeconds / cc.records) * 1e6;
+    rows.push([String(n), fixed(a), fixed(b), fixed(a / b) + '×', fixed((js.cpuSeconds / js.ops) * 1e9), fixed((cc.cpuSeconds / cc.ops) * 1e9)]);
+    all.push({ n, typescriptUs: a, cppUs: b, ops: js.ops / js.records });
+    log(`  same loop N=${n}: ${a.toFixed(2)} µs vs ${b.toFixed(2)} µs (${(a / b).toFixed(2)}×)`);
+  }
+  table(['constituents', 'TypeScript µs/jet', 'C++ µs/jet', 'TypeScript / C++', 'TypeScript ns/distance', 'C++ ns/distance'], rows);
+  results.language = all;
+}
+
 async function memorySection(): Promise<void> {
   out('\n## Memory: peak RSS of the command (--threads 1, --all) on the events file and on a 4 times larger one');
   const small = input(WHOLE.events.spec);
@@ -394,6 +438,7 @@ async function main(): Promise<void> {
   if (only.has('json')) await jsonSection();
   if (only.has('threads')) await threadsSection();
   if (only.has('memory')) await memorySection();
+  if (only.has('language')) await languageSection();
   out(`\nLoad average at the end: ${os.loadavg()[0].toFixed(2)} on ${cores} cores; the benchmark took ${fixed((performance.now() - t0) / 60000, 1)} min.`);
   writeFileSync(path.join(OUT, 'engine-bench.json'), JSON.stringify({ machine, results }, null, 1));
 }

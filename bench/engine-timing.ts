@@ -11,11 +11,17 @@
 //     pipeline's own byte batches, record parsing and validation into typed arrays) against reading the same file
 //     as string lines (the line source's string mode) and only JSON.parse of each line. Prints the fastest round's CPU seconds of each:
 //     {"records","bytes","engineSeconds","jsonParseSeconds"}.
+//   node bench/out/engine-timing.cjs ca-loop INPUT --dump PARTICLES.bin [--rounds 5] [--min-seconds 0.2]
+//     The C/A re-clustering loop alone (the plain strategy, R = ∞) on every record of INPUT, timed as its C++ port
+//     bench/same-loop/plain-ca.cc times itself; writes the records' particles to PARTICLES.bin for the port and
+//     prints {"records","ops","checksum","cpuSeconds"} with the same checksum of the trees.
+import { closeSync, openSync, writeSync } from 'node:fs';
 import { parseCli } from '../lib/ingest/cli-options';
 import { openLineSource } from '../lib/ingest/lines';
 import { openParticleFile } from '../lib/ingest/reader';
 import { ParticleScratch } from '../lib/ingest/particle-scratch';
 import { parseRecordBytesInto } from '../lib/ingest/record';
+import { ClusterWorkspace, cluster, loadParticles } from '../lib/physics/clustering';
 import { processParticles } from '../lib/physics/process';
 import { SPLIT_STRIDE, type ProcessSettings } from '../lib/physics/types';
 
@@ -124,11 +130,54 @@ async function json(argv: string[]): Promise<void> {
   process.stdout.write(JSON.stringify({ records, bytes, engineSeconds: engine, jsonParseSeconds: floor }) + '\n');
 }
 
+async function caLoop(argv: string[]): Promise<void> {
+  const rounds = takeOption(argv, '--rounds', 5);
+  const minSeconds = takeOption(argv, '--min-seconds', 0.2);
+  const at = argv.indexOf('--dump');
+  if (at < 0 || !argv[at + 1]) throw new Error('ca-loop: --dump PARTICLES.bin is needed');
+  const reader = await openParticleFile(argv[0]);
+  const records: Float64Array[] = [];
+  const fd = openSync(argv[at + 1], 'w');
+  for await (const batch of reader.batches()) {
+    for (const r of batch) {
+      records.push(r.particles);
+      writeSync(fd, new Int32Array([r.particles.length >> 2]));
+      writeSync(fd, r.particles);
+    }
+  }
+  closeSync(fd);
+  reader.close();
+  const ws = new ClusterWorkspace();
+  let best = Infinity, ops = 0, checksum = 0;
+  for (let round = 0; round < rounds; round++) {
+    const c0 = cpuSeconds();
+    let passes = 0;
+    do {
+      ws.ops = 0;
+      checksum = 0;
+      for (const p of records) {
+        const m = p.length >> 2;
+        if (m === 0) continue;
+        loadParticles(ws, p, m);
+        cluster(ws, { p: 0, R: Infinity, strategy: 'plain' });
+        // The tree's shape and the last merged jet's rapidity (as the C++ port sums them).
+        for (let k = m; k < ws.nNodes; k++) checksum += (ws.parent1[k] + 2 * ws.parent2[k]) * 1e-6;
+        checksum += ws.rap[ws.nNodes - 1];
+      }
+      ops = ws.ops;
+      passes++;
+    } while (cpuSeconds() - c0 < minSeconds);
+    best = Math.min(best, (cpuSeconds() - c0) / passes);
+  }
+  process.stdout.write(JSON.stringify({ records: records.length, ops, checksum, cpuSeconds: best }) + '\n');
+}
+
 async function main(): Promise<void> {
   const [mode, ...argv] = process.argv.slice(2);
   if (mode === 'physics') await physics(argv);
   else if (mode === 'json') await json(argv);
-  else throw new Error('usage: engine-timing physics|json INPUT [options]');
+  else if (mode === 'ca-loop') await caLoop(argv);
+  else throw new Error('usage: engine-timing physics|json|ca-loop INPUT [options]');
 }
 
 main().catch((e) => {
