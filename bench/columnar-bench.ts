@@ -13,7 +13,7 @@ import { Rng } from '../lib/physics/random';
 import { writeArrow, writeParquet, type ColumnarRecord } from '../tests/support/columnar-files';
 import { generateEvent, generateJet } from '../tests/support/test-events';
 import { signIn, startTestServer, type TestServer } from '../tests/support/server';
-import { cpuMs, curlUpload, waitForJobs } from './server-tools';
+import { cpuMs, curlUpload, waitForJobs, waitForSampleEnd } from './server-tools';
 
 const ROOT = path.resolve(__dirname, '..');
 const BIN = path.join(ROOT, 'node_modules/.bin/splitfield');
@@ -90,8 +90,7 @@ function runCli(file: string): { ms: number; cpuMs: number; jets: number; output
 /** Uploads a file with curl and waits until its sample ended. */
 async function uploadUntilEnded(server: TestServer, token: string, file: string): Promise<any> {
   const { sample } = await curlUpload(server, token, file, { studyId: 1, name: 'Columnar benchmark', force: true });
-  const ended = await waitForJobs(server, token, (samples) => !['queued', 'running'].includes(samples.find((s) => s.id === sample.id).state));
-  return ended.find((s) => s.id === sample.id);
+  return waitForSampleEnd(server, token, sample.id);
 }
 
 async function main(): Promise<void> {

@@ -14,7 +14,7 @@ import { type Job, Queue } from 'bullmq';
 import { jobIds, QUEUE_NAME, redisConnection, type RunRef } from '../lib/scale/queue';
 import { type Service, startFakeS3, startRedis, startWorker } from '../tests/support/scale-services';
 import { signIn, startTestServer } from '../tests/support/server';
-import { curlUpload, waitForJobs } from './server-tools';
+import { curlUpload, waitForJobs, waitForSampleEnd } from './server-tools';
 
 const ROOT = path.resolve(__dirname, '..');
 const BIN = path.join(ROOT, 'node_modules/.bin/splitfield');
@@ -100,9 +100,7 @@ async function main(): Promise<void> {
       const started = performance.now();
       const body = await curlUpload(server, token, file, { studyId: 1, name: `Scale benchmark, ${count} worker(s)`, force: true });
       const id = body.sample.id as number;
-      const [sample] = (await waitForJobs(server, token, (samples) => !['queued', 'running'].includes(samples.find((s) => s.id === id).state))).filter(
-        (s) => s.id === id,
-      );
+      const sample = await waitForSampleEnd(server, token, id);
       const endToEndMs = performance.now() - started;
       if (sample.state !== 'done') throw new Error(`the sample ended ${sample.state}: ${JSON.stringify(sample.error)}`);
       const ref: RunRef = { sampleId: id, attempt: 1 };

@@ -39,6 +39,20 @@ export function peakKb(pid: number): number {
   return Number(/^VmHWM:\s+(\d+)/m.exec(readFileSync(`/proc/${pid}/status`, 'utf8'))?.[1] ?? 0);
 }
 
+/**
+ * Waits until sample `id`'s job has ended and returns the sample: each request waits on the server (`?wait=`), which
+ * answers as soon as the job ends, as a script would (README, "Scripting with an API token").
+ */
+export async function waitForSampleEnd(server: TestServer, token: string, id: number): Promise<any> {
+  for (;;) {
+    const response = await fetch(`${server.baseUrl}/api/samples/${id}?wait=60`, { headers: { authorization: `Bearer ${token}` } });
+    if (response.status !== 200) throw new Error(`sample ${id} answered ${response.status}: ${await response.text()}`);
+    const { sample } = await response.json();
+    if (!['queued', 'running'].includes(sample.state)) return sample;
+  }
+}
+
+/** Polls the list of samples every 0.1 s until `until` holds (the demo samples' jobs at a first start). */
 export async function waitForJobs(server: TestServer, token: string, until: (samples: any[]) => boolean): Promise<any[]> {
   for (;;) {
     const response = await fetch(`${server.baseUrl}/api/samples`, { headers: { authorization: `Bearer ${token}` } });

@@ -64,6 +64,8 @@ interface JobThread {
   input: SampleInput | null;
   /** Settles with the exit code when the thread has stopped. */
   exited: Promise<number>;
+  /** Settles when the thread says it is done (everything written) or stops, whichever comes first. */
+  settled: Promise<void>;
   /** Set once a sample owns the job: where its messages go. */
   owner: ((message: JobWorkerMessage) => void) | null;
 }
@@ -282,12 +284,18 @@ export class JobRunner implements ProcessingRunner {
   /** Starts a job's worker thread; its messages wait for an owner (attach). */
   private startThread(input: JobWorkerInput): JobThread {
     const worker = new Worker(this.workerFile, { workerData: input });
+    const exited = new Promise<number>((resolve) => worker.once('exit', resolve));
+    let saidDone = () => {};
     const thread: JobThread = {
-      worker, launchedAt: performance.now(), startedAt: new Date(), ending: null, crash: null, input: null, owner: null,
-      exited: new Promise<number>((resolve) => worker.once('exit', resolve)),
+      worker, launchedAt: performance.now(), startedAt: new Date(), ending: null, crash: null, input: null, owner: null, exited,
+      settled: new Promise<void>((resolve) => {
+        saidDone = resolve;
+        void exited.then(() => resolve());
+      }),
     };
     worker.on('message', (message: JobWorkerMessage) => {
       if (message.type === 'done' || message.type === 'failed' || message.type === 'cancelled') thread.ending = message;
+      if (message.type === 'done') saidDone();
       if (thread.owner) thread.owner(message);
       else if (message.type === 'input') thread.input = message.input;
     });
@@ -315,14 +323,19 @@ export class JobRunner implements ProcessingRunner {
       }
     };
     if (thread.input) recordInput(sample.id, thread.input).catch(failed('input'));
-    job.finished = thread.exited.then((exitCode) =>
-      this.conclude(sample, thread.launchedAt, thread.ending ?? this.unexplainedEnd(job, exitCode), early)
-        .catch((error) => logFailure(`sample ${sample.id}: recording the outcome`, error))
-        .finally(() => {
-          this.running.delete(sample.id);
-          this.wake();
-        }),
-    );
+    // A job that is done has written everything: its outcome is recorded while its thread winds down (tens of ms).
+    // Any other ending waits for the thread to stop, so that nothing writes while its files are removed. The job's
+    // place is given back once the thread has stopped.
+    const ending = async (): Promise<Ending> =>
+      thread.ending?.type === 'done' ? thread.ending : thread.exited.then((exitCode) => thread.ending ?? this.unexplainedEnd(job, exitCode));
+    job.finished = thread.settled
+      .then(async () => this.conclude(sample, thread.launchedAt, await ending(), early))
+      .catch((error) => logFailure(`sample ${sample.id}: recording the outcome`, error))
+      .then(() => thread.exited)
+      .then(() => {
+        this.running.delete(sample.id);
+        this.wake();
+      });
     this.running.set(sample.id, job);
   }
 

@@ -3,6 +3,7 @@
 import { col, fn, literal, Op, type Transaction } from 'sequelize';
 import { SOFTWARE_VERSION } from '@/lib/ingest/export';
 import { db } from '@/lib/db/connection';
+import { announceJobEnd } from '@/lib/samples/job-ends';
 import type { SampleCounts, SampleError, SampleInput, SampleProgress } from '@/models/sample-fields';
 import type { Sample } from '@/models/sample';
 import { nextFairJob, type OwnerState } from './fair-order';
@@ -82,7 +83,7 @@ export async function recordDone(
   outcome: { counts: SampleCounts; progress: SampleProgress; planes: FinishedPlane[]; processingMs: number },
 ): Promise<boolean> {
   const { models, write } = db();
-  return write(async (transaction) => {
+  const recorded = await write(async (transaction) => {
     const [updated] = await models.Sample.update(
       {
         state: 'done',
@@ -107,9 +108,10 @@ export async function recordDone(
     await notifySampleOutcome(sampleId, 'finished', transaction);
     return true;
   });
+  if (recorded) announceJobEnd(sampleId);
+  return recorded;
 }
 
-/** Ends an unfinished sample as failed (keeping the row as the record of the failure) or cancelled. */
 /** Marks a queued or running sample failed or cancelled; `processingMs` is null when it never ran. */
 export async function recordEnded(
   sampleId: number,
@@ -118,7 +120,7 @@ export async function recordEnded(
   processingMs: number | null = null,
 ) {
   const { models, write } = db();
-  return write(async (transaction) => {
+  const recorded = await write(async (transaction) => {
     const [updated] = await models.Sample.update(
       { state, error, finishedAt: new Date(), processingMs, softwareVersion: SOFTWARE_VERSION, uploadFile: null },
       { where: { id: sampleId, state: { [Op.in]: ['queued', 'running'] } }, transaction },
@@ -126,6 +128,8 @@ export async function recordEnded(
     if (updated > 0 && state === 'failed') await notifySampleOutcome(sampleId, 'failed', transaction);
     return updated > 0;
   });
+  if (recorded) announceJobEnd(sampleId);
+  return recorded;
 }
 
 export interface UnfinishedAtStart {

@@ -119,6 +119,36 @@ describe('one server', () => {
     expect(storedFiles(server.storageDir).uploads).toEqual([]);
   });
 
+  it('answers a request that waits (?wait=N) when the job ends, or once the wait is over', async () => {
+    const first = await upload(owner, { studyId, name: 'Long', file: slowEventsFile(2 * SLOW_EVENTS, 'w1') });
+    const a = first.body.sample.id;
+    await waitForSample(owner, a, isRunningWithProgress, 'running with progress');
+    const second = await upload(owner, { studyId, name: 'Behind', file: slowEventsFile(100, 'w2') });
+    const b = second.body.sample.id;
+
+    // Still queued behind the long job when the wait is over: answered then, as it is.
+    const asked = Date.now();
+    const waited = await owner.get(`/api/samples/${b}?wait=1`);
+    expect(waited.status, waited.text).toBe(200);
+    expect(waited.body.sample.state).toBe('queued');
+    expect(Date.now() - asked).toBeGreaterThanOrEqual(950);
+
+    // A request waiting on the running job gets its final state when it ends (here by a cancel).
+    const pending = owner.get(`/api/samples/${a}?wait=60`);
+    expect((await owner.post(`/api/samples/${a}/cancel`)).status).toBe(200);
+    expect((await pending).body.sample).toMatchObject({ id: a, state: 'cancelled' });
+
+    // One request is enough to wait for the next job's end.
+    const done = await owner.get(`/api/samples/${b}?wait=60`);
+    expect(done.body.sample).toMatchObject({ id: b, state: 'done', counts: { records: 100 } });
+
+    for (const bad of ['soon', '61', '-1', '1.5']) {
+      const refused = await owner.get(`/api/samples/${b}?wait=${bad}`);
+      expect(refused.status, bad).toBe(400);
+      expect(refused.body.error.details).toEqual([{ path: 'wait', message: expect.stringMatching(/^wait must be/) }]);
+    }
+  });
+
   it('starts a job while its file arrives; the new sample adopts it, a duplicate drops it without a trace', async () => {
     const text = await slowEventsFile(400, 'early').text();
     const settings = JSON.stringify({ jet: { R: 0.8 } });

@@ -1,8 +1,11 @@
 import { z } from 'zod';
 import { json, noContent, signedInRoute } from '@/lib/api/route-handlers';
 import { idParam } from '@/lib/api/schemas';
+import { readQuery } from '@/lib/api/validation';
 import { sampleAccess } from '@/lib/samples/access';
-import { deleteSample } from '@/lib/samples/removal';
+import { jobEndOrTimeout } from '@/lib/samples/job-ends';
+import { wholeNumberParam } from '@/lib/samples/query-params';
+import { deleteSample, isUnfinished } from '@/lib/samples/removal';
 import { sampleDetail } from '@/lib/samples/views';
 
 export const dynamic = 'force-dynamic';
@@ -10,8 +13,26 @@ export const runtime = 'nodejs';
 
 const params = z.object({ sampleId: idParam });
 
-export const GET = signedInRoute({ params }, async ({ params, user }) => {
-  const { sample, myRole } = await sampleAccess(user, params.sampleId, 'viewer');
+/** Longest wait a request may ask for, in seconds (below the usual proxy and client time-outs). */
+const MAX_WAIT_SECONDS = 60;
+/** While waiting, the sample is read again this often (an end recorded by another server process is seen then). */
+const RECHECK_MS = 1000;
+
+const query = z.object({ wait: wholeNumberParam('wait', 0, MAX_WAIT_SECONDS).optional() });
+
+/**
+ * The sample. With `wait=N` (seconds), a queued or running sample is answered when its job ends or after N
+ * seconds, whichever comes first: a script waits with one request instead of polling.
+ */
+export const GET = signedInRoute({ params }, async ({ request, params, user }) => {
+  const { wait = 0 } = readQuery(request, query);
+  const deadline = Date.now() + wait * 1000;
+  let { sample, myRole } = await sampleAccess(user, params.sampleId, 'viewer');
+  while (isUnfinished(sample) && Date.now() < deadline && !request.signal.aborted) {
+    await jobEndOrTimeout(sample.id, Math.min(RECHECK_MS, deadline - Date.now()), request.signal);
+    // Read again with the access check: the sample may be gone, or the user no longer a member.
+    ({ sample, myRole } = await sampleAccess(user, params.sampleId, 'viewer'));
+  }
   return json({ sample: sampleDetail(sample, myRole) });
 });
 

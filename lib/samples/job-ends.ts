@@ -1,0 +1,33 @@
+// Requests that wait for a sample's job to end (GET /api/samples/:id?wait=…) hear of it here: the job runners
+// record every end in this process (sample-states.ts), which announces it, so that a waiting script gets its
+// answer at once instead of at its next poll. Kept on globalThis: route bundles and the runner may each load
+// this module.
+import { EventEmitter } from 'node:events';
+import { processWide } from '@/lib/maps/lru';
+
+function jobEnds(): EventEmitter {
+  return processWide('sampleJobEnds', () => new EventEmitter().setMaxListeners(0));
+}
+
+/** Tells the requests waiting on this sample that its job ended (done, failed or cancelled). */
+export function announceJobEnd(sampleId: number): void {
+  jobEnds().emit(String(sampleId));
+}
+
+/** Resolves when the sample's job end is announced, after `ms`, or when `signal` aborts, whichever comes first. */
+export function jobEndOrTimeout(sampleId: number, ms: number, signal: AbortSignal): Promise<void> {
+  return new Promise((resolve) => {
+    const events = jobEnds();
+    const key = String(sampleId);
+    const done = () => {
+      clearTimeout(timer);
+      events.off(key, done);
+      signal.removeEventListener('abort', done);
+      resolve();
+    };
+    const timer = setTimeout(done, ms);
+    events.on(key, done);
+    signal.addEventListener('abort', done);
+    if (signal.aborted) done();
+  });
+}
