@@ -5,6 +5,9 @@
 import { EventEmitter } from 'node:events';
 import { processWide } from '@/lib/maps/lru';
 
+/** Waiting requests one person may hold at once; more are answered at once, as without `wait`. */
+export const MAX_WAITS_PER_USER = 8;
+
 function jobEnds(): EventEmitter {
   return processWide('sampleJobEnds', () => new EventEmitter().setMaxListeners(0));
 }
@@ -30,4 +33,20 @@ export function jobEndOrTimeout(sampleId: number, ms: number, signal: AbortSigna
     signal.addEventListener('abort', done);
     if (signal.aborted) done();
   });
+}
+
+/**
+ * A place among the person's waiting requests: a function that gives it back, or null when they already hold
+ * MAX_WAITS_PER_USER (each waiting request reads the sample every second: this bounds what one account can ask).
+ */
+export function takeWaitPlace(userId: number): (() => void) | null {
+  const held = processWide('sampleJobWaits', () => new Map<number, number>());
+  const count = held.get(userId) ?? 0;
+  if (count >= MAX_WAITS_PER_USER) return null;
+  held.set(userId, count + 1);
+  return () => {
+    const left = (held.get(userId) ?? 1) - 1;
+    if (left > 0) held.set(userId, left);
+    else held.delete(userId);
+  };
 }
