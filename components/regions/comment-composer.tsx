@@ -2,7 +2,7 @@
 
 // A comment box with @-completion of the study's members: typing "@" and the start of a name lists the members
 // that match; ↑/↓ choose, Enter or Tab (or a click) writes the mention (lib/regions/mentions.ts).
-import { useId, useRef, useState } from 'react';
+import { useId, useLayoutEffect, useRef, useState } from 'react';
 import { mentionText } from '@/lib/regions/mentions';
 import { controlClass } from '../fields';
 
@@ -33,6 +33,15 @@ export function CommentComposer({ value, onChange, members, label, placeholder, 
   const box = useRef<HTMLTextAreaElement>(null);
   const [query, setQuery] = useState<{ start: number; query: string } | null>(null);
   const [active, setActive] = useState(0);
+  /** Where the caret goes once a chosen mention is in the box (set before the render that shows it). */
+  const caretAfterRender = useRef<number | null>(null);
+  // In the same commit as the new text, before the next key is handled: placed later (a frame after), the keys
+  // typed meanwhile went where the browser had put the caret, at the end of the text.
+  useLayoutEffect(() => {
+    if (caretAfterRender.current === null || !box.current) return;
+    box.current.setSelectionRange(caretAfterRender.current, caretAfterRender.current);
+    caretAfterRender.current = null;
+  }, [value]);
   const matches = query ? members.filter((m) => m.name.toLowerCase().includes(query.query)).slice(0, 6) : [];
 
   const update = (text: string, caret: number) => {
@@ -45,10 +54,9 @@ export function CommentComposer({ value, onChange, members, label, placeholder, 
     const caret = box.current.selectionStart;
     const inserted = `${mentionText({ id: member.userId, name: member.name })} `;
     const next = value.slice(0, query.start) + inserted + value.slice(caret);
+    caretAfterRender.current = query.start + inserted.length;
     onChange(next);
     setQuery(null);
-    const at = query.start + inserted.length;
-    requestAnimationFrame(() => box.current?.setSelectionRange(at, at));
   };
 
   return (

@@ -43,9 +43,11 @@ export class SampleSink implements ResultSink {
       });
     }
     this.records += records.length;
+    const planes = this.planes;
     for (let r = 0; r < records.length; r++) {
-      for (const jet of results[r].jets) {
-        for (const [, plane] of this.planes) plane.fillJet(jet.primary, records[r].weight);
+      const jets = results[r].jets, weight = records[r].weight;
+      for (let j = 0; j < jets.length; j++) {
+        for (let p = 0; p < planes.length; p++) planes[p][1].fillJet(jets[j].primary, weight);
       }
     }
     await this.columns!.append(records, results);
