@@ -40,6 +40,25 @@ function takeOption(argv: string[], name: string, def: number): number {
   return v;
 }
 
+/**
+ * Runs `pass` in rounds, each repeated until it has taken `minSeconds` of CPU; the fastest round's CPU and wall
+ * seconds per pass.
+ */
+function fastestPass(rounds: number, minSeconds: number, pass: () => void): { cpu: number; wall: number } {
+  let cpu = Infinity, wall = Infinity;
+  for (let round = 0; round < rounds; round++) {
+    const c0 = cpuSeconds(), w0 = performance.now();
+    let passes = 0;
+    do {
+      pass();
+      passes++;
+    } while (cpuSeconds() - c0 < minSeconds);
+    cpu = Math.min(cpu, (cpuSeconds() - c0) / passes);
+    wall = Math.min(wall, (performance.now() - w0) / 1000 / passes);
+  }
+  return { cpu, wall };
+}
+
 async function physics(argv: string[]): Promise<void> {
   const rounds = takeOption(argv, '--rounds', 5);
   const minSeconds = takeOption(argv, '--min-seconds', 0.2);
@@ -56,25 +75,18 @@ async function physics(argv: string[]): Promise<void> {
   }
   reader.close();
   const settings: ProcessSettings = { ...cfg.settings, content: reader.header.content };
-  let bestCpu = Infinity, bestWall = Infinity, jets = 0, splittings = 0;
-  for (let round = 0; round < rounds; round++) {
-    const c0 = cpuSeconds(), w0 = performance.now();
-    let passes = 0;
-    do {
-      jets = 0;
-      splittings = 0;
-      for (const p of records) {
-        for (const j of processParticles(p, settings).jets) {
-          jets++;
-          splittings += (j.primary.length + (j.all ? j.all.length : 0)) / SPLIT_STRIDE;
-        }
+  let jets = 0, splittings = 0;
+  const best = fastestPass(rounds, minSeconds, () => {
+    jets = 0;
+    splittings = 0;
+    for (const p of records) {
+      for (const j of processParticles(p, settings).jets) {
+        jets++;
+        splittings += (j.primary.length + (j.all ? j.all.length : 0)) / SPLIT_STRIDE;
       }
-      passes++;
-    } while (cpuSeconds() - c0 < minSeconds);
-    bestCpu = Math.min(bestCpu, (cpuSeconds() - c0) / passes);
-    bestWall = Math.min(bestWall, (performance.now() - w0) / 1000 / passes);
-  }
-  process.stdout.write(JSON.stringify({ records: records.length, particles, jets, splittings, rounds, cpuSeconds: bestCpu, wallSeconds: bestWall }) + '\n');
+    }
+  });
+  process.stdout.write(JSON.stringify({ records: records.length, particles, jets, splittings, rounds, cpuSeconds: best.cpu, wallSeconds: best.wall }) + '\n');
 }
 
 /** One pass over a JSON Lines file: every record line (after the header) handed to `each`. */
@@ -148,28 +160,22 @@ async function caLoop(argv: string[]): Promise<void> {
   closeSync(fd);
   reader.close();
   const ws = new ClusterWorkspace();
-  let best = Infinity, ops = 0, checksum = 0;
-  for (let round = 0; round < rounds; round++) {
-    const c0 = cpuSeconds();
-    let passes = 0;
-    do {
-      ws.ops = 0;
-      checksum = 0;
-      for (const p of records) {
-        const m = p.length >> 2;
-        if (m === 0) continue;
-        loadParticles(ws, p, m);
-        cluster(ws, { p: 0, R: Infinity, strategy: 'plain' });
-        // The tree's shape and the last merged jet's rapidity (as the C++ port sums them).
-        for (let k = m; k < ws.nNodes; k++) checksum += (ws.parent1[k] + 2 * ws.parent2[k]) * 1e-6;
-        checksum += ws.rap[ws.nNodes - 1];
-      }
-      ops = ws.ops;
-      passes++;
-    } while (cpuSeconds() - c0 < minSeconds);
-    best = Math.min(best, (cpuSeconds() - c0) / passes);
-  }
-  process.stdout.write(JSON.stringify({ records: records.length, ops, checksum, cpuSeconds: best }) + '\n');
+  let ops = 0, checksum = 0;
+  const best = fastestPass(rounds, minSeconds, () => {
+    ws.ops = 0;
+    checksum = 0;
+    for (const p of records) {
+      const m = p.length >> 2;
+      if (m === 0) continue;
+      loadParticles(ws, p, m);
+      cluster(ws, { p: 0, R: Infinity, strategy: 'plain' });
+      // The tree's shape and the last merged jet's rapidity (as the C++ port sums them).
+      for (let k = m; k < ws.nNodes; k++) checksum += (ws.parent1[k] + 2 * ws.parent2[k]) * 1e-6;
+      checksum += ws.rap[ws.nNodes - 1];
+    }
+    ops = ws.ops;
+  });
+  process.stdout.write(JSON.stringify({ records: records.length, ops, checksum, cpuSeconds: best.cpu }) + '\n');
 }
 
 async function main(): Promise<void> {

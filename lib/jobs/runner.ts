@@ -286,12 +286,10 @@ export class JobRunner implements ProcessingRunner {
     const worker = new Worker(this.workerFile, { workerData: input });
     const exited = new Promise<number>((resolve) => worker.once('exit', resolve));
     let saidDone = () => {};
+    const said = new Promise<void>((resolve) => (saidDone = resolve));
     const thread: JobThread = {
       worker, launchedAt: performance.now(), startedAt: new Date(), ending: null, crash: null, input: null, owner: null, exited,
-      settled: new Promise<void>((resolve) => {
-        saidDone = resolve;
-        void exited.then(() => resolve());
-      }),
+      settled: Promise.race([said, exited.then(() => undefined)]),
     };
     worker.on('message', (message: JobWorkerMessage) => {
       if (message.type === 'done' || message.type === 'failed' || message.type === 'cancelled') thread.ending = message;

@@ -2,7 +2,7 @@
 // record every end in this process (sample-states.ts), which announces it, so that a waiting script gets its
 // answer at once instead of at its next poll. Kept on globalThis: route bundles and the runner may each load
 // this module.
-import { EventEmitter } from 'node:events';
+import { EventEmitter, once } from 'node:events';
 import { processWide } from '@/lib/maps/lru';
 
 /** Waiting requests one person may hold at once; more are answered at once, as without `wait`. */
@@ -18,21 +18,13 @@ export function announceJobEnd(sampleId: number): void {
 }
 
 /** Resolves when the sample's job end is announced, after `ms`, or when `signal` aborts, whichever comes first. */
-export function jobEndOrTimeout(sampleId: number, ms: number, signal: AbortSignal): Promise<void> {
-  return new Promise((resolve) => {
-    const events = jobEnds();
-    const key = String(sampleId);
-    const done = () => {
-      clearTimeout(timer);
-      events.off(key, done);
-      signal.removeEventListener('abort', done);
-      resolve();
-    };
-    const timer = setTimeout(done, ms);
-    events.on(key, done);
-    signal.addEventListener('abort', done);
-    if (signal.aborted) done();
-  });
+export async function jobEndOrTimeout(sampleId: number, ms: number, signal: AbortSignal): Promise<void> {
+  try {
+    await once(jobEnds(), String(sampleId), { signal: AbortSignal.any([signal, AbortSignal.timeout(ms)]) });
+  } catch (error) {
+    // The time is over or the request went away: an answer is due either way.
+    if ((error as Error).name !== 'AbortError') throw error;
+  }
 }
 
 /**
